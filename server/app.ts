@@ -1,0 +1,75 @@
+import path from 'node:path';
+import { existsSync } from 'node:fs';
+import express, { Express, Router } from 'express';
+import helmet from 'helmet';
+import { adminRoutes } from './admin/admin.routes';
+import { authRoutes } from './auth/auth.routes';
+import { configurePassport } from './auth/passport';
+import { sessionMiddleware } from './auth/session';
+import type { Config } from './config';
+import type { AppContext } from './context';
+import type { Db } from './db/client';
+import { errorHandler, notFoundHandler } from './http/error-handler';
+import { routerFrom, RouteSpec } from './http/routes';
+import { xsrfProtection } from './http/xsrf';
+import { MailService } from './mail/mail-service';
+
+export interface CreatedApp { app: Express; ctx: AppContext; routes: RouteSpec[] }
+
+/** Every API route of Parallax, with the roles each allows (the role-matrix test walks this list). */
+export function apiRoutes(ctx: AppContext, passport: ReturnType<typeof configurePassport>): RouteSpec[] {
+  return [...authRoutes(ctx, passport), ...adminRoutes(ctx)];
+}
+
+const CSP = {
+  useDefaults: false,
+  directives: {
+    defaultSrc: ["'self'"],
+    scriptSrc: ["'self'"],
+    // Angular and ag-grid put component styles in <style> elements; no style comes from elsewhere.
+    styleSrc: ["'self'", "'unsafe-inline'"],
+    imgSrc: ["'self'", 'data:', 'blob:'],
+    fontSrc: ["'self'"],
+    connectSrc: ["'self'"],
+    objectSrc: ["'none'"],
+    baseUri: ["'self'"],
+    formAction: ["'self'"],
+    frameAncestors: ["'none'"],
+  },
+};
+
+/** Builds the Express app (no listen; supertest uses it as it is). */
+export function createApp(config: Config, database: Db): CreatedApp {
+  const mail = new MailService(database.db, config.smtpUrl, config.mailFrom);
+  const ctx: AppContext = { db: database.db, config, mail };
+  const passport = configurePassport(database.db);
+  const app = express();
+  app.set('trust proxy', 'loopback');
+  app.disable('x-powered-by');
+  app.use(helmet({ contentSecurityPolicy: CSP, crossOriginEmbedderPolicy: false }));
+  app.use(express.json({ limit: '2mb' }));
+  const api = Router();
+  api.use(xsrfProtection(config.sessionSecret, config.cookieSecure));
+  api.use(sessionMiddleware(database.pool, config));
+  api.use(passport.session());
+  const routes = apiRoutes(ctx, passport);
+  api.use(routerFrom(routes));
+  api.use(notFoundHandler);
+  app.use('/api/v1', api);
+  app.use('/api', notFoundHandler);
+  serveClient(app, config);
+  app.use(notFoundHandler);
+  app.use(errorHandler);
+  return { app, ctx, routes };
+}
+
+function serveClient(app: Express, config: Config): void {
+  const dir = config.clientDir ?? path.resolve(__dirname, '../dist/client/browser');
+  if (!existsSync(path.join(dir, 'index.html'))) return;
+  app.use(express.static(dir, { index: false, maxAge: '1h' }));
+  app.get('/*splat', (req, res, next) => {
+    if (path.extname(req.path)) return next();
+    res.setHeader('Cache-Control', 'no-cache');
+    res.sendFile(path.join(dir, 'index.html'));
+  });
+}

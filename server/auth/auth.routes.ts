@@ -1,0 +1,89 @@
+import type { Request, Response } from 'express';
+import type { PassportStatic } from 'passport';
+import { rateLimit } from 'express-rate-limit';
+import { ChangePasswordBody, SetPasswordBody, SignInBody, TokenParams } from '../../shared/schemas';
+import { recordAudit } from '../audit/audit';
+import type { AppContext } from '../context';
+import { AppError } from '../http/app-error';
+import { parseRequest } from '../http/parse-request';
+import type { RouteSpec } from '../http/routes';
+import { changeOwnPassword, describeSession } from './auth.service';
+import { describeLink, usePasswordLink } from './password-links';
+
+const logIn = (req: Request, user: Express.User) =>
+  new Promise<void>((resolve, reject) => req.login(user, (err) => (err ? reject(err) : resolve())));
+const logOut = (req: Request) =>
+  new Promise<void>((resolve, reject) => req.logout((err) => (err ? reject(err) : resolve())));
+
+/** Runs passport-local's strategy (verifySignIn underneath) and resolves with the user. */
+const authenticate = (passport: PassportStatic, req: Request, res: Response) =>
+  new Promise<Express.User>((resolve, reject) =>
+    passport.authenticate('local', { session: false }, (err: unknown, user: Express.User | false) =>
+      err ? reject(err) : user ? resolve(user) : reject(new AppError('invalid_request', 'Enter your e-mail and password')),
+    )(req, res, reject),
+  );
+
+export function authRoutes(ctx: AppContext, passport: PassportStatic): RouteSpec[] {
+  const limiter = rateLimit({
+    windowMs: 15 * 60_000,
+    limit: ctx.config.signInRateLimit,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    handler: (req, _res, next) => {
+      ctx.db
+        .transaction((tx) => recordAudit(tx, { id: null, name: null, laboratoryId: null }, { action: 'sign-in.rate-limited', entity: 'session', after: { address: req.ip } }))
+        .then(() => next(new AppError('too_many', 'Too many sign-in attempts from this address; wait 15 minutes and try again')), next);
+    },
+  });
+  return [
+    {
+      method: 'get', path: '/session', access: 'public',
+      handler: async (req, res) => {
+        if (!req.user) throw new AppError('unauthenticated', 'Not signed in');
+        res.json(await describeSession(ctx.db, req.user));
+      },
+    },
+    {
+      method: 'post', path: '/session', access: 'public', before: [limiter],
+      handler: async (req, res) => {
+        req.body = parseRequest(SignInBody, req.body, 'body');
+        const user = await authenticate(passport, req, res);
+        await logIn(req, user); // passport regenerates the session id here
+        res.json(await describeSession(ctx.db, user));
+      },
+    },
+    {
+      method: 'delete', path: '/session', access: 'signed-in',
+      handler: async (req, res) => {
+        const user = req.user!;
+        await ctx.db.transaction((tx) => recordAudit(tx, { id: user.id, name: user.name, laboratoryId: user.laboratoryId }, { action: 'sign-out', entity: 'session', entityId: user.id }));
+        await logOut(req);
+        req.session.destroy(() => res.status(204).end());
+      },
+    },
+    {
+      method: 'put', path: '/session/password', access: 'signed-in',
+      handler: async (req, res) => {
+        const body = parseRequest(ChangePasswordBody, req.body, 'body');
+        await changeOwnPassword(ctx.db, req.user!, body, req.ip ?? '');
+        res.status(204).end();
+      },
+    },
+    {
+      method: 'get', path: '/password-links/:token', access: 'public',
+      handler: async (req, res) => {
+        const { token } = parseRequest(TokenParams, req.params, 'params');
+        res.json(await describeLink(ctx.db, token));
+      },
+    },
+    {
+      method: 'post', path: '/password-links/:token', access: 'public',
+      handler: async (req, res) => {
+        const { token } = parseRequest(TokenParams, req.params, 'params');
+        const body = parseRequest(SetPasswordBody, req.body, 'body');
+        await usePasswordLink(ctx.db, token, body.password);
+        res.status(204).end();
+      },
+    },
+  ];
+}

@@ -1,0 +1,53 @@
+import { randomBytes } from 'node:crypto';
+import { z } from 'zod';
+
+const Env = z.object({
+  DATABASE_URL: z.string().url('DATABASE_URL must be a postgres:// URL'),
+  PORT: z.coerce.number().int().min(0).max(65535).default(3000),
+  HOST: z.string().default('127.0.0.1'),
+  PUBLIC_URL: z.string().url().optional(),
+  SMTP_URL: z.string().url('SMTP_URL must look like smtp://host:port').optional(),
+  MAIL_FROM: z.string().default('Parallax <parallax@localhost>'),
+  SESSION_SECRET: z.string().min(32, 'SESSION_SECRET must be at least 32 characters').optional(),
+  SESSION_IDLE_MINUTES: z.coerce.number().positive().default(30),
+  COOKIE_SECURE: z.enum(['0', '1']).default('0'),
+  SIGN_IN_RATE_LIMIT: z.coerce.number().int().positive().default(30),
+  CLIENT_DIR: z.string().optional(),
+});
+
+export type Config = {
+  databaseUrl: string;
+  port: number;
+  host: string;
+  publicUrl: string;
+  smtpUrl: string | undefined;
+  mailFrom: string;
+  sessionSecret: string;
+  sessionIdleMs: number;
+  cookieSecure: boolean;
+  signInRateLimit: number;
+  clientDir: string | undefined;
+};
+
+/** Reads the environment once; a bad value stops start-up with a message naming the variable. */
+export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
+  const parsed = Env.safeParse(env);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `${i.path.join('.')}: ${i.message}`);
+    throw new Error(`configuration error: ${lines.join('; ')}`);
+  }
+  const e = parsed.data;
+  return {
+    databaseUrl: e.DATABASE_URL,
+    port: e.PORT,
+    host: e.HOST,
+    publicUrl: (e.PUBLIC_URL ?? `http://${e.HOST}:${e.PORT}`).replace(/\/$/, ''),
+    smtpUrl: e.SMTP_URL,
+    mailFrom: e.MAIL_FROM,
+    sessionSecret: e.SESSION_SECRET ?? randomBytes(32).toString('hex'),
+    sessionIdleMs: e.SESSION_IDLE_MINUTES * 60_000,
+    cookieSecure: e.COOKIE_SECURE === '1',
+    signInRateLimit: e.SIGN_IN_RATE_LIMIT,
+    clientDir: e.CLIENT_DIR,
+  };
+}

@@ -1,0 +1,212 @@
+import { sql } from 'drizzle-orm';
+import {
+  bigserial, boolean, customType, doublePrecision, index, integer, json, jsonb, pgTable, serial, text, timestamp, uniqueIndex, varchar,
+} from 'drizzle-orm/pg-core';
+
+const bytea = customType<{ data: Buffer; driverData: Buffer }>({ dataType: () => 'bytea' });
+const stamp = (name: string) => timestamp(name, { withTimezone: true, mode: 'date' });
+const created = () => stamp('created_at').notNull().defaultNow();
+
+/** The tenant. Every other row belongs to one laboratory. */
+export const laboratories = pgTable('laboratories', {
+  id: serial('id').primaryKey(),
+  name: text('name').notNull(),
+  timeZone: text('time_zone').notNull().default('UTC'),
+  /** A director must approve the plan before specimens can be entered. */
+  planApprovalRequired: boolean('plan_approval_required').notNull().default(false),
+  /** A one-person laboratory may let a director sign a study whose rows they entered. */
+  allowSelfSign: boolean('allow_self_sign').notNull().default(false),
+  createdAt: created(),
+});
+
+export const users = pgTable('users', {
+  id: serial('id').primaryKey(),
+  laboratoryId: integer('laboratory_id').notNull().references(() => laboratories.id),
+  name: text('name').notNull(),
+  email: text('email').notNull(),
+  passwordHash: text('password_hash'),
+  roles: text('roles').array().notNull(),
+  active: boolean('active').notNull().default(true),
+  failedSignIns: integer('failed_sign_ins').notNull().default(0),
+  lockedUntil: stamp('locked_until'),
+  createdAt: created(),
+}, (t) => [uniqueIndex('users_email_key').on(t.email)]);
+
+/** One-time set-password links (invitations and resets); only the SHA-256 of the token is stored. */
+export const passwordLinks = pgTable('password_links', {
+  id: serial('id').primaryKey(),
+  userId: integer('user_id').notNull().references(() => users.id),
+  tokenHash: text('token_hash').notNull(),
+  expiresAt: stamp('expires_at').notNull(),
+  usedAt: stamp('used_at'),
+  createdAt: created(),
+}, (t) => [uniqueIndex('password_links_token_key').on(t.tokenHash)]);
+
+export const analytes = pgTable('analytes', {
+  id: serial('id').primaryKey(),
+  laboratoryId: integer('laboratory_id').notNull().references(() => laboratories.id),
+  name: text('name').notNull(),
+  unit: text('unit').notNull(),
+  decimals: integer('decimals').notNull().default(1),
+  decisionLevels: doublePrecision('decision_levels').array().notNull().default(sql`'{}'`),
+  allowableBiasAbsolute: doublePrecision('allowable_bias_absolute'),
+  allowableBiasPercent: doublePrecision('allowable_bias_percent'),
+  allowableBiasSource: text('allowable_bias_source').notNull().default(''),
+  canBeNegative: boolean('can_be_negative').notNull().default(false),
+  active: boolean('active').notNull().default(true),
+  createdAt: created(),
+}, (t) => [uniqueIndex('analytes_lab_name_key').on(t.laboratoryId, t.name)]);
+
+export const instruments = pgTable('instruments', {
+  id: serial('id').primaryKey(),
+  laboratoryId: integer('laboratory_id').notNull().references(() => laboratories.id),
+  name: text('name').notNull(),
+  model: text('model').notNull().default(''),
+  serial: text('serial').notNull().default(''),
+  location: text('location').notNull().default(''),
+  active: boolean('active').notNull().default(true),
+  createdAt: created(),
+}, (t) => [uniqueIndex('instruments_lab_name_key').on(t.laboratoryId, t.name)]);
+
+export const studies = pgTable('studies', {
+  id: serial('id').primaryKey(),
+  laboratoryId: integer('laboratory_id').notNull().references(() => laboratories.id),
+  kind: text('kind').notNull(),
+  title: text('title').notNull(),
+  purpose: text('purpose').notNull().default(''),
+  analyteId: integer('analyte_id').notNull().references(() => analytes.id),
+  comparativeInstrumentId: integer('comparative_instrument_id').references(() => instruments.id),
+  candidateInstrumentId: integer('candidate_instrument_id').references(() => instruments.id),
+  instrumentId: integer('instrument_id').references(() => instruments.id),
+  settings: jsonb('settings').notNull().default(sql`'{}'::jsonb`),
+  state: text('state').notNull().default('draft'),
+  version: integer('version').notNull().default(1),
+  supersedesId: integer('supersedes_id'),
+  supersededById: integer('superseded_by_id'),
+  createdBy: integer('created_by').notNull().references(() => users.id),
+  createdAt: created(),
+  updatedAt: stamp('updated_at').notNull().defaultNow(),
+  submittedAt: stamp('submitted_at'),
+  signedAt: stamp('signed_at'),
+}, (t) => [index('studies_lab_state_idx').on(t.laboratoryId, t.state)]);
+
+export const uploads = pgTable('uploads', {
+  id: serial('id').primaryKey(),
+  laboratoryId: integer('laboratory_id').notNull().references(() => laboratories.id),
+  studyId: integer('study_id').notNull().references(() => studies.id),
+  fileName: text('file_name').notNull(),
+  mediaType: text('media_type').notNull(),
+  size: integer('size').notNull(),
+  sha256: text('sha256').notNull(),
+  bytes: bytea('bytes').notNull(),
+  parsed: jsonb('parsed').notNull(),
+  uploadedBy: integer('uploaded_by').notNull().references(() => users.id),
+  createdAt: created(),
+  importedAt: stamp('imported_at'),
+});
+
+export const specimens = pgTable('specimens', {
+  id: serial('id').primaryKey(),
+  studyId: integer('study_id').notNull().references(() => studies.id),
+  position: integer('position').notNull(),
+  label: text('label').notNull().default(''),
+  comparative: doublePrecision('comparative'),
+  candidate: doublePrecision('candidate'),
+  value: doublePrecision('value'),
+  /** The result as typed or imported, so ties are judged at the reported precision. */
+  comparativeText: text('comparative_text'),
+  candidateText: text('candidate_text'),
+  valueText: text('value_text'),
+  sex: text('sex'),
+  ageBand: text('age_band'),
+  excluded: boolean('excluded').notNull().default(false),
+  exclusionReason: text('exclusion_reason'),
+  note: text('note').notNull().default(''),
+  uploadId: integer('upload_id').references(() => uploads.id),
+  enteredBy: integer('entered_by').notNull().references(() => users.id),
+}, (t) => [index('specimens_study_idx').on(t.studyId, t.position)]);
+
+export const analyses = pgTable('analyses', {
+  id: serial('id').primaryKey(),
+  studyId: integer('study_id').notNull().references(() => studies.id),
+  state: text('state').notNull().default('queued'),
+  progress: doublePrecision('progress').notNull().default(0),
+  inputHash: text('input_hash').notNull(),
+  input: jsonb('input').notNull(),
+  engineVersion: text('engine_version').notNull(),
+  seed: text('seed').notNull(),
+  resamples: integer('resamples').notNull(),
+  results: jsonb('results'),
+  error: text('error'),
+  requestedBy: integer('requested_by').notNull().references(() => users.id),
+  queuedAt: created(),
+  startedAt: stamp('started_at'),
+  finishedAt: stamp('finished_at'),
+  durationMs: integer('duration_ms'),
+}, (t) => [index('analyses_study_idx').on(t.studyId)]);
+
+export const signatures = pgTable('signatures', {
+  id: serial('id').primaryKey(),
+  studyId: integer('study_id').notNull().references(() => studies.id),
+  analysisId: integer('analysis_id').references(() => analyses.id),
+  /** 'plan-approved' before data; 'accepted' or 'not-accepted' at sign-off. */
+  meaning: text('meaning').notNull(),
+  signerId: integer('signer_id').notNull().references(() => users.id),
+  signerName: text('signer_name').notNull(),
+  comment: text('comment').notNull().default(''),
+  signedAt: stamp('signed_at').notNull().defaultNow(),
+  contentHash: text('content_hash').notNull(),
+  verificationCode: text('verification_code').notNull(),
+  pdf: bytea('pdf'),
+  pdfSha256: text('pdf_sha256'),
+});
+
+/** Append-only, hash-chained per laboratory; triggers refuse UPDATE and DELETE. */
+export const auditEvents = pgTable('audit_events', {
+  id: bigserial('id', { mode: 'number' }).primaryKey(),
+  laboratoryId: integer('laboratory_id').references(() => laboratories.id),
+  at: stamp('at').notNull().defaultNow(),
+  userId: integer('user_id'),
+  userName: text('user_name'),
+  studyId: integer('study_id'),
+  action: text('action').notNull(),
+  entity: text('entity').notNull(),
+  entityId: text('entity_id'),
+  before: jsonb('before'),
+  after: jsonb('after'),
+  reason: text('reason'),
+  previousHash: text('previous_hash').notNull(),
+  hash: text('hash').notNull(),
+}, (t) => [index('audit_lab_idx').on(t.laboratoryId, t.id), index('audit_study_idx').on(t.studyId, t.id)]);
+
+/** Outgoing e-mail; a message stays queued until SMTP accepts it, and is retried. */
+export const mailOutbox = pgTable('mail_outbox', {
+  id: serial('id').primaryKey(),
+  laboratoryId: integer('laboratory_id').references(() => laboratories.id),
+  to: text('to').array().notNull(),
+  subject: text('subject').notNull(),
+  text: text('text').notNull(),
+  attempts: integer('attempts').notNull().default(0),
+  lastError: text('last_error'),
+  nextAttemptAt: stamp('next_attempt_at').notNull().defaultNow(),
+  sentAt: stamp('sent_at'),
+  createdAt: created(),
+});
+
+/** Every message as the local fake SMTP server received it (demo mailbox and tests). */
+export const mailMessages = pgTable('mail_messages', {
+  id: serial('id').primaryKey(),
+  from: text('from').notNull(),
+  to: text('to').array().notNull(),
+  subject: text('subject').notNull(),
+  text: text('text').notNull(),
+  html: text('html'),
+  receivedAt: created(),
+});
+
+/** connect-pg-simple's table, owned by the migrations. */
+export const session = pgTable('session', {
+  sid: varchar('sid').primaryKey(),
+  sess: json('sess').notNull(),
+  expire: timestamp('expire', { precision: 6, mode: 'date' }).notNull(),
+}, (t) => [index('IDX_session_expire').on(t.expire)]);

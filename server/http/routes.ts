@@ -1,0 +1,30 @@
+import { Router, type Request, type RequestHandler, type Response } from 'express';
+import type { Role } from '../../shared/schemas';
+import { requireRole, requireSignedIn } from './require-role';
+
+export type Access = readonly Role[] | 'public' | 'signed-in';
+
+/** One API route with the roles it allows; the role-matrix test walks every one of these. */
+export interface RouteSpec {
+  method: 'get' | 'post' | 'put' | 'patch' | 'delete';
+  path: string;
+  access: Access;
+  before?: RequestHandler[];
+  handler: (req: Request, res: Response) => unknown;
+}
+
+export function guardFor(access: Access): RequestHandler[] {
+  if (access === 'public') return [];
+  if (access === 'signed-in') return [requireSignedIn];
+  return [requireRole(...access)];
+}
+
+export function routerFrom(specs: readonly RouteSpec[]): Router {
+  const router = Router();
+  for (const s of specs) {
+    router[s.method](s.path, ...guardFor(s.access), ...(s.before ?? []), async (req, res) => {
+      await s.handler(req, res);
+    });
+  }
+  return router;
+}

@@ -1,0 +1,38 @@
+import type { Server } from 'node:http';
+import { createApp } from './app';
+import { loadConfig, type Config } from './config';
+import { openDatabase } from './db/client';
+
+export interface RunningApp { url: string; close: () => Promise<void> }
+
+/** Listens on the configured port; close() drains connections, stops mail delivery and the pool. */
+export async function listen(config: Config): Promise<RunningApp> {
+  const database = openDatabase(config.databaseUrl);
+  const { app, ctx } = createApp(config, database);
+  ctx.mail.start();
+  const server: Server = await new Promise((resolve) => {
+    const s = app.listen(config.port, config.host, () => resolve(s));
+  });
+  const address = server.address();
+  const port = typeof address === 'object' && address ? address.port : config.port;
+  return {
+    url: `http://${config.host}:${port}`,
+    close: async () => {
+      ctx.mail.stop();
+      const closed = new Promise<void>((r) => server.close(() => r()));
+      server.closeAllConnections();
+      await closed;
+      await database.close();
+    },
+  };
+}
+
+if (require.main === module) {
+  const config = loadConfig();
+  listen(config).then((running) => {
+    console.log(`[parallax] serving ${running.url}`);
+    const stop = () => running.close().then(() => process.exit(0));
+    process.once('SIGINT', stop);
+    process.once('SIGTERM', stop);
+  });
+}

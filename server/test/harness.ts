@@ -1,0 +1,51 @@
+import request from 'supertest';
+import type TestAgent from 'supertest/lib/agent';
+import { createApp, CreatedApp } from '../app';
+import { loadConfig } from '../config';
+import { openDatabase, type Db } from '../db/client';
+import { startFakeSmtp } from '../mail/fake-smtp';
+import { DEMO_PASSWORD } from '../db/seed-data';
+
+export interface Harness extends CreatedApp { database: Db; smtpUrl: string; close: () => Promise<void> }
+
+/**
+ * The real app on the test database that `npm test` prepared (DATABASE_URL), with its own local
+ * mail store. Options override the environment, e.g. a short idle time-out.
+ */
+export async function startHarness(env: Record<string, string> = {}): Promise<Harness> {
+  if (!process.env.DATABASE_URL) throw new Error('API tests need DATABASE_URL (run them through npm test)');
+  const database = openDatabase(process.env.DATABASE_URL, 5);
+  const smtp = await startFakeSmtp(database.db);
+  const config = loadConfig({ ...process.env, SMTP_URL: smtp.url, SIGN_IN_RATE_LIMIT: '1000', PUBLIC_URL: 'http://parallax.test', ...env });
+  const created = createApp(config, database);
+  return {
+    ...created,
+    database,
+    smtpUrl: smtp.url,
+    close: async () => {
+      created.ctx.mail.stop();
+      await smtp.close();
+      await database.close();
+    },
+  };
+}
+
+/** An agent with the XSRF cookie in hand; `xsrf` is the header value to send on mutations. */
+export async function anonymous(h: CreatedApp): Promise<{ agent: TestAgent; xsrf: string }> {
+  const agent = request.agent(h.app);
+  const res = await agent.get('/api/v1/session');
+  const cookie = ([] as string[]).concat(res.headers['set-cookie'] ?? []).find((c) => c.startsWith('XSRF-TOKEN='));
+  if (!cookie) throw new Error('no XSRF-TOKEN cookie on GET');
+  return { agent, xsrf: decodeURIComponent(cookie.split(';')[0].slice('XSRF-TOKEN='.length)) };
+}
+
+export async function signedIn(h: CreatedApp, email: string, password = DEMO_PASSWORD) {
+  const session = await anonymous(h);
+  const res = await session.agent.post('/api/v1/session').set('X-XSRF-TOKEN', session.xsrf).send({ email, password });
+  if (res.status !== 200) throw new Error(`sign-in of ${email} answered ${res.status}: ${JSON.stringify(res.body)}`);
+  return session;
+}
+
+let counter = 0;
+/** A unique e-mail per call, so tests never trip over each other's users. */
+export const uniqueEmail = (prefix: string) => `${prefix}.${Date.now().toString(36)}.${++counter}@valeharbor.example`;

@@ -1,0 +1,19 @@
+import { z } from 'zod';
+
+/** A positive integer id in a route parameter such as /users/:id. */
+export const IdParams = z.object({ id: z.coerce.number().int().positive() });
+export type IdParams = z.infer<typeof IdParams>;
+
+export const Email = z.string().trim().toLowerCase().email('Enter a valid e-mail address').max(200);
+
+/** Password rules: at least 12 characters, not only one repeated character, not a well-known password. */
+export const COMMON_PASSWORDS = [
+  'password1234', '123456789012', 'qwertyuiopas', 'letmein12345', 'iloveyou1234', 'administrator',
+  'welcome12345', 'passwordpassword', 'changeme1234', 'laboratory12',
+];
+export const NewPassword = z
+  .string()
+  .min(12, 'Use at least 12 characters')
+  .max(200, 'Use at most 200 characters')
+  .refine((p) => new Set(p).size > 3, 'Use more than three different characters')
+  .refine((p) => !COMMON_PASSWORDS.includes(p.toLowerCase()), 'This password is too common; choose another');
