@@ -3,6 +3,8 @@ import { existsSync } from 'node:fs';
 import express, { Express, Router } from 'express';
 import helmet from 'helmet';
 import { adminRoutes } from './admin/admin.routes';
+import { AnalysisJobs } from './analyses/analysis-jobs';
+import { analysesRoutes } from './analyses/analyses.routes';
 import { authRoutes } from './auth/auth.routes';
 import { configurePassport } from './auth/passport';
 import { sessionMiddleware } from './auth/session';
@@ -13,12 +15,17 @@ import { errorHandler, notFoundHandler } from './http/error-handler';
 import { routerFrom, RouteSpec } from './http/routes';
 import { xsrfProtection } from './http/xsrf';
 import { MailService } from './mail/mail-service';
+import { specimensRoutes } from './specimens/specimens.routes';
+import { studiesRoutes } from './studies/studies.routes';
+import { uploadsRoutes } from './uploads/uploads.routes';
 
 export interface CreatedApp { app: Express; ctx: AppContext; routes: RouteSpec[] }
 
 /** Every API route of Parallax, with the roles each allows (the role-matrix test walks this list). */
 export function apiRoutes(ctx: AppContext, passport: ReturnType<typeof configurePassport>): RouteSpec[] {
-  return [...authRoutes(ctx, passport), ...adminRoutes(ctx)];
+  return [
+    ...authRoutes(ctx, passport), ...adminRoutes(ctx), ...studiesRoutes(ctx), ...specimensRoutes(ctx), ...uploadsRoutes(ctx), ...analysesRoutes(ctx),
+  ];
 }
 
 const CSP = {
@@ -41,7 +48,7 @@ const CSP = {
 /** Builds the Express app (no listen; supertest uses it as it is). */
 export function createApp(config: Config, database: Db): CreatedApp {
   const mail = new MailService(database.db, config.smtpUrl, config.mailFrom);
-  const ctx: AppContext = { db: database.db, config, mail };
+  const ctx: AppContext = { db: database.db, config, mail, jobs: new AnalysisJobs(database.db, config.databaseUrl) };
   const passport = configurePassport(database.db);
   const app = express();
   app.set('trust proxy', 'loopback');

@@ -10,6 +10,7 @@ export async function listen(config: Config): Promise<RunningApp> {
   const database = openDatabase(config.databaseUrl);
   const { app, ctx } = createApp(config, database);
   ctx.mail.start();
+  await ctx.jobs.start();
   const server: Server = await new Promise((resolve) => {
     const s = app.listen(config.port, config.host, () => resolve(s));
   });
@@ -19,6 +20,7 @@ export async function listen(config: Config): Promise<RunningApp> {
     url: `http://${config.host}:${port}`,
     close: async () => {
       ctx.mail.stop();
+      await ctx.jobs.stop();
       const closed = new Promise<void>((r) => server.close(() => r()));
       server.closeAllConnections();
       await closed;

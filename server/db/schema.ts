@@ -88,6 +88,10 @@ export const studies = pgTable('studies', {
   updatedAt: stamp('updated_at').notNull().defaultNow(),
   submittedAt: stamp('submitted_at'),
   signedAt: stamp('signed_at'),
+  returnedAt: stamp('returned_at'),
+  returnComment: text('return_comment'),
+  /** Set when the director approved the plan (a signature with meaning 'plan-approved'). */
+  planApprovedAt: stamp('plan_approved_at'),
 }, (t) => [index('studies_lab_state_idx').on(t.laboratoryId, t.state)]);
 
 export const uploads = pgTable('uploads', {

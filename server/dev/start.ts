@@ -34,7 +34,8 @@ export async function main(): Promise<void> {
     }
     const app = await listen(loadConfig(env));
     cleanups.push(app.close);
-    console.log(`\n  Parallax is running at ${app.url}\n`);
+    console.log(`\n  Parallax is running at ${app.url}`);
+    console.log(`  Database: ${database.url} (extra analysis workers: DATABASE_URL=... npm run worker)\n`);
     console.log(`  Demo sign-ins (demo only; password "${DEMO_PASSWORD}"):`);
     for (const line of demoSignIns()) console.log(`    ${line}`);
     console.log('\n  Press Ctrl-C to stop the app and the database it started.\n');

@@ -15,7 +15,15 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
     res.status(400).json({ error: 'The request body is not valid JSON', issues: [{ path: 'body', message: 'not valid JSON' }] });
     return;
   }
-  if (err?.type === 'entity.too.large' || err?.code === 'LIMIT_FILE_SIZE') {
+  if (err?.code === 'LIMIT_FILE_SIZE') {
+    res.status(413).json({ error: 'The file is larger than 5 MB', issues: [{ path: 'file', message: 'at most 5 MB' }] });
+    return;
+  }
+  if (err?.code?.startsWith?.('LIMIT_')) {
+    res.status(400).json({ error: `The upload was refused: ${err.message}`, issues: [{ path: err.field ?? 'file', message: err.message }] });
+    return;
+  }
+  if (err?.type === 'entity.too.large') {
     res.status(413).json({ error: 'The request is too large', issues: [] });
     return;
   }

@@ -3,3 +3,6 @@ export * from './api-error.schema';
 export * from './common.schema';
 export * from './auth.schema';
 export * from './admin.schema';
+export * from './study.schema';
+export * from './specimen.schema';
+export * from './analysis.schema';

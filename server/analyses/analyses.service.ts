@@ -1,0 +1,54 @@
+import { and, eq } from 'drizzle-orm';
+import { ENGINE_VERSION } from '../../shared/stats/engine';
+import { recordAudit } from '../audit/audit';
+import { actorOf, SignedInUser } from '../auth/session-user';
+import type { Database, Executor } from '../db/client';
+import { analyses, studies } from '../db/schema';
+import { AppError, notFound } from '../http/app-error';
+import { analysisInput, inputHash, studyInputHash } from '../specimens/input-hash';
+import { findStudy } from '../studies/studies.repository';
+import { assertEditable } from '../studies/study-rules';
+import { StudySettings, type Analysis } from '../../shared/schemas';
+import { missingResults } from './run-analysis';
+import type { AnalysisJobs } from './analysis-jobs';
+
+type AnalysisRow = typeof analyses.$inferSelect;
+
+export async function analysisView(db: Executor, a: AnalysisRow, hash?: string): Promise<Analysis> {
+  const [study] = await db.select().from(studies).where(eq(studies.id, a.studyId));
+  const current = a.inputHash === (hash ?? (await studyInputHash(db, study)));
+  return {
+    id: a.id, studyId: a.studyId, state: a.state as Analysis['state'], progress: a.progress, engineVersion: a.engineVersion, seed: a.seed,
+    resamples: a.resamples, inputHash: a.inputHash, current, results: a.results ?? null, error: a.error,
+    queuedAt: a.queuedAt.toISOString(), startedAt: a.startedAt?.toISOString() ?? null, finishedAt: a.finishedAt?.toISOString() ?? null, durationMs: a.durationMs,
+  };
+}
+
+/** Queues an analysis of the study's current rows and settings; the job runs after commit. */
+export async function queueAnalysis(db: Database, jobs: AnalysisJobs, me: SignedInUser, studyId: number): Promise<Analysis> {
+  const queued = await db.transaction(async (tx) => {
+    const study = await findStudy(tx, me.laboratoryId, studyId, true);
+    assertEditable(study);
+    const input = await analysisInput(tx, study);
+    const included = input.rows.filter((r) => !r.excluded).length;
+    if (included < 3) throw new AppError('invalid_request', `An analysis needs at least 3 included rows; the study has ${included}`, [{ path: 'rows', message: 'too few rows' }]);
+    const missing = missingResults(input);
+    if (missing.length) throw new AppError('invalid_request', missing[0], missing.map((m) => ({ path: 'rows', message: m })));
+    const settings = StudySettings.parse(study.settings);
+    const hash = inputHash(input);
+    const [row] = await tx.insert(analyses).values({
+      studyId, state: 'queued', inputHash: hash, input, engineVersion: ENGINE_VERSION, seed: settings.seed, resamples: settings.resamples, requestedBy: me.id,
+    }).returning();
+    await recordAudit(tx, actorOf(me), { action: 'analysis.queued', entity: 'analysis', entityId: row.id, studyId, after: { inputHash: hash, seed: settings.seed, resamples: settings.resamples, engineVersion: ENGINE_VERSION } });
+    return analysisView(tx, row, hash);
+  });
+  await jobs.enqueue(queued.id);
+  return queued;
+}
+
+export async function getAnalysis(db: Database, me: SignedInUser, id: number): Promise<Analysis> {
+  const [row] = await db.select({ a: analyses }).from(analyses).innerJoin(studies, eq(studies.id, analyses.studyId))
+    .where(and(eq(analyses.id, id), eq(studies.laboratoryId, me.laboratoryId)));
+  if (!row) throw notFound('Analysis');
+  return analysisView(db, row.a);
+}

@@ -1,0 +1,50 @@
+import { analyzeComparison } from '../../shared/stats/analyze-comparison';
+import { StudySettings } from '../../shared/schemas';
+import type { AnalysisInput } from '../specimens/input-hash';
+
+export type Progress = (fraction: number) => void;
+
+type Row = AnalysisInput['rows'][number];
+const has = (v: number | null): v is number => v !== null && Number.isFinite(v);
+
+/** Rows that cannot enter an analysis: an included row with an empty result. */
+export function missingResults(input: AnalysisInput): string[] {
+  const fields = input.kind === 'method-comparison' ? (['comparative', 'candidate'] as const) : (['value'] as const);
+  const out: string[] = [];
+  for (const r of input.rows) {
+    if (r.excluded) continue;
+    for (const f of fields) if (!has(r[f])) out.push(`row ${r.position}: the ${f === 'value' ? 'value' : `${f} result`} is empty; fill it or exclude the row with a reason`);
+  }
+  return out;
+}
+
+/** Maps 1-based analysed-row numbers back to the grid's row positions. */
+const toPositions = (numbers: number[], used: Row[]) => numbers.map((k) => used[k - 1]?.position).filter((p): p is number => p !== undefined);
+
+function comparison(input: AnalysisInput, onProgress: Progress) {
+  const s = StudySettings.parse(input.settings);
+  const used = input.rows.filter((r) => has(r.comparative) && has(r.candidate));
+  const result = analyzeComparison(
+    used.map((r) => ({ x: r.comparative!, y: r.candidate!, label: r.label || undefined, excluded: r.excluded, exclusionReason: r.exclusionReason ?? undefined })),
+    {
+      resamples: s.resamples, regressionResamples: s.regressionResamples, seed: s.seed, level: s.confidenceLevel, interval: s.interval,
+      loaMultiplier: s.loaMultiplier, difference: s.differenceType, regression: s.regression, demingRatio: s.demingRatio,
+      decisionLevels: s.decisionLevels, allowableBias: s.allowableBiasAbsolute ?? undefined, allowableBiasPercent: s.allowableBiasPercent ?? undefined,
+      esdAlpha: s.esdAlpha, esdMax: s.esdMax ?? undefined,
+    },
+    onProgress,
+  );
+  return { ...result, outlierPositions: toPositions(result.outliers, used) };
+}
+
+/** Runs the statistics engine for one stored input (called in a worker thread). */
+export function runAnalysis(input: AnalysisInput, onProgress: Progress = () => {}): unknown {
+  const missing = missingResults(input);
+  if (missing.length) throw new Error(missing[0]);
+  switch (input.kind) {
+    case 'method-comparison':
+      return comparison(input, onProgress);
+    default:
+      throw new Error(`Studies of kind ${input.kind} cannot be analysed by this engine version`);
+  }
+}

@@ -1,0 +1,19 @@
+import { loadConfig } from '../config';
+import { openDatabase } from '../db/client';
+import { AnalysisJobs } from './analysis-jobs';
+
+/** `npm run worker`: a process that only takes analysis jobs from the shared PostgreSQL queue. */
+export async function runWorkers(): Promise<void> {
+  const config = loadConfig();
+  const database = openDatabase(config.databaseUrl, 4);
+  const jobs = new AnalysisJobs(database.db, config.databaseUrl);
+  await jobs.start({ work: true });
+  console.log('[parallax] analysis worker is taking jobs; Ctrl-C stops it');
+  const stop = async () => {
+    await jobs.stop();
+    await database.close();
+    process.exit(0);
+  };
+  process.once('SIGINT', () => void stop());
+  process.once('SIGTERM', () => void stop());
+}

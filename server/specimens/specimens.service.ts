@@ -1,0 +1,77 @@
+import { eq } from 'drizzle-orm';
+import type { SpecimenRow, SpecimenRows } from '../../shared/schemas';
+import { recordAudit } from '../audit/audit';
+import { actorOf, SignedInUser } from '../auth/session-user';
+import type { Database, Tx } from '../db/client';
+import { analytes, specimens } from '../db/schema';
+import { AppError } from '../http/app-error';
+import { bumpVersion, findStudy, StudyRow } from '../studies/studies.repository';
+import { assertEditable } from '../studies/study-rules';
+import { loadRows, StoredRow } from './input-hash';
+import { diffRows } from './row-diff';
+import { CleanRow, validateRows } from './row-validation';
+
+export const rowView = (r: StoredRow): SpecimenRow => ({
+  position: r.position, label: r.label, comparative: r.comparative, candidate: r.candidate, value: r.value,
+  comparativeText: r.comparativeText, candidateText: r.candidateText, valueText: r.valueText,
+  sex: r.sex, ageBand: r.ageBand, excluded: r.excluded, exclusionReason: r.exclusionReason, note: r.note, uploadId: r.uploadId,
+});
+
+export const asClean = (r: StoredRow): CleanRow => ({
+  label: r.label, comparative: r.comparative, candidate: r.candidate, value: r.value,
+  comparativeText: r.comparativeText, candidateText: r.candidateText, valueText: r.valueText,
+  sex: r.sex, ageBand: r.ageBand, excluded: r.excluded, exclusionReason: r.exclusionReason, note: r.note,
+});
+
+export async function getRows(db: Database, me: SignedInUser, studyId: number): Promise<SpecimenRows> {
+  const study = await findStudy(db, me.laboratoryId, studyId);
+  return { version: study.version, rows: (await loadRows(db, study.id)).map(rowView) };
+}
+
+/** Validates raw rows for a study; a bad row answers 400 naming it, before anything is written. */
+export async function cleanRowsFor(tx: Tx, study: StudyRow, raw: Record<string, unknown>[]): Promise<CleanRow[]> {
+  const [analyte] = await tx.select().from(analytes).where(eq(analytes.id, study.analyteId));
+  const { rows, issues } = validateRows(study.kind, raw, analyte.canBeNegative);
+  if (issues.length) {
+    throw new AppError('invalid_request', issues.length === 1 ? issues[0].message : `${issues[0].message} (and ${issues.length - 1} more problems)`, issues);
+  }
+  return rows;
+}
+
+/**
+ * Replaces the study's rows in the caller's transaction, bumping the version and auditing every
+ * changed cell with its before and after value. `uploadIds` marks rows that came from a file.
+ */
+export async function writeRows(
+  tx: Tx, me: SignedInUser, study: StudyRow, version: number, rows: CleanRow[], action: string, uploadIds: (number | null)[] = [],
+): Promise<SpecimenRows> {
+  assertEditable(study);
+  const before = await loadRows(tx, study.id);
+  const updated = await bumpVersion(tx, study, version);
+  await tx.delete(specimens).where(eq(specimens.studyId, study.id));
+  const unchanged = (i: number) => !!before[i] && sameRow(asClean(before[i]), rows[i]);
+  if (rows.length) {
+    await tx.insert(specimens).values(rows.map((r, i) => ({
+      ...r, studyId: study.id, position: i + 1,
+      uploadId: uploadIds[i] ?? (unchanged(i) ? before[i].uploadId : null),
+      enteredBy: unchanged(i) ? before[i].enteredBy : me.id,
+    })));
+  }
+  const diff = diffRows(before.map(asClean), rows);
+  await recordAudit(tx, actorOf(me), {
+    action, entity: 'specimens', entityId: study.id, studyId: study.id,
+    before: { rowCount: before.length, version }, after: { rowCount: rows.length, version: updated.version, ...diff },
+  });
+  return { version: updated.version, rows: (await loadRows(tx, study.id)).map(rowView) };
+}
+
+const sameRow = (a: CleanRow, b: CleanRow | undefined) => !!b && JSON.stringify(a) === JSON.stringify(b);
+
+export async function putRows(db: Database, me: SignedInUser, studyId: number, version: number, raw: Record<string, unknown>[]): Promise<SpecimenRows> {
+  return db.transaction(async (tx) => {
+    const study = await findStudy(tx, me.laboratoryId, studyId, true);
+    assertEditable(study);
+    const rows = await cleanRowsFor(tx, study, raw);
+    return writeRows(tx, me, study, version, rows, 'specimens.saved');
+  });
+}

@@ -1,0 +1,107 @@
+import { and, asc, desc, eq, gte, ilike, inArray, isNotNull, lte, or, sql, SQL } from 'drizzle-orm';
+import { StudySettings, type CreateStudyBody, type Study, type StudyListQuery, type StudyPage, type UpdateStudyBody, type Worklist } from '../../shared/schemas';
+import { recordAudit } from '../audit/audit';
+import { actorOf, SignedInUser } from '../auth/session-user';
+import type { Database, Tx } from '../db/client';
+import { specimens, studies } from '../db/schema';
+import { invalid } from '../http/app-error';
+import { bumpVersion, findLabAnalyte, findLabInstrument, findStudy } from './studies.repository';
+import { assertEditable } from './study-rules';
+import { initialSettings } from './study-settings';
+import { studyView, summarise } from './study-view';
+
+async function checkRefs(tx: Tx, me: SignedInUser, kind: string, ids: { analyteId?: number; comparativeInstrumentId?: number | null; candidateInstrumentId?: number | null; instrumentId?: number | null }) {
+  if (ids.analyteId !== undefined && !(await findLabAnalyte(tx, me.laboratoryId, ids.analyteId))) throw invalid('analyteId', 'Choose an analyte from the catalog');
+  for (const field of ['comparativeInstrumentId', 'candidateInstrumentId', 'instrumentId'] as const) {
+    const id = ids[field];
+    if (id !== undefined && id !== null && !(await findLabInstrument(tx, me.laboratoryId, id))) throw invalid(field, 'Choose an instrument from the catalog');
+  }
+  if (kind === 'method-comparison' && ids.comparativeInstrumentId && ids.comparativeInstrumentId === ids.candidateInstrumentId) {
+    throw invalid('candidateInstrumentId', 'The candidate instrument must differ from the comparative one');
+  }
+}
+
+export async function createStudy(db: Database, me: SignedInUser, body: CreateStudyBody): Promise<Study> {
+  return db.transaction(async (tx) => {
+    await checkRefs(tx, me, body.kind, body);
+    if (body.kind === 'method-comparison' && (!body.comparativeInstrumentId || !body.candidateInstrumentId)) {
+      throw invalid(body.comparativeInstrumentId ? 'candidateInstrumentId' : 'comparativeInstrumentId', 'A method comparison needs a comparative and a candidate instrument');
+    }
+    if (body.kind !== 'method-comparison' && !body.instrumentId) throw invalid('instrumentId', 'Choose the instrument');
+    const analyte = (await findLabAnalyte(tx, me.laboratoryId, body.analyteId))!;
+    const [row] = await tx.insert(studies).values({
+      laboratoryId: me.laboratoryId, kind: body.kind, title: body.title, purpose: body.purpose, analyteId: body.analyteId,
+      comparativeInstrumentId: body.comparativeInstrumentId ?? null, candidateInstrumentId: body.candidateInstrumentId ?? null,
+      instrumentId: body.instrumentId ?? null, settings: initialSettings(body.kind, analyte, body.settings), createdBy: me.id,
+    }).returning();
+    await recordAudit(tx, actorOf(me), { action: 'study.created', entity: 'study', entityId: row.id, studyId: row.id, after: { ...body, settings: row.settings } });
+    return studyView(tx, row);
+  });
+}
+
+export async function updateStudy(db: Database, me: SignedInUser, id: number, body: UpdateStudyBody): Promise<Study> {
+  return db.transaction(async (tx) => {
+    const study = await findStudy(tx, me.laboratoryId, id, true);
+    assertEditable(study);
+    await checkRefs(tx, me, study.kind, body);
+    const { version, settings, reason, ...fields } = body;
+    const merged = settings ? StudySettings.parse({ ...(study.settings as object), ...settings }) : undefined;
+    const updated = await bumpVersion(tx, study, version, { ...fields, ...(merged ? { settings: merged } : {}) });
+    const changed = (Object.keys(fields) as (keyof typeof fields)[]).filter((k) => fields[k] !== undefined);
+    await recordAudit(tx, actorOf(me), {
+      action: 'study.updated', entity: 'study', entityId: id, studyId: id, reason: reason ?? null,
+      before: pick(study, changed, settings && Object.keys(settings)),
+      after: pick(updated, changed, settings && Object.keys(settings)),
+    });
+    return studyView(tx, updated);
+  });
+}
+
+const pick = (row: typeof studies.$inferSelect, fields: string[], settingKeys?: string[]) => ({
+  ...Object.fromEntries(fields.map((f) => [f, (row as Record<string, unknown>)[f]])),
+  ...(settingKeys ? { settings: Object.fromEntries(settingKeys.map((k) => [k, (row.settings as Record<string, unknown>)[k]])) } : {}),
+});
+
+export async function getStudy(db: Database, me: SignedInUser, id: number): Promise<Study> {
+  return studyView(db, await findStudy(db, me.laboratoryId, id));
+}
+
+const SORT = { title: studies.title, updatedAt: studies.updatedAt, state: studies.state, kind: studies.kind } as const;
+
+export async function listStudies(db: Database, me: SignedInUser, q: StudyListQuery): Promise<StudyPage> {
+  const where: SQL[] = [eq(studies.laboratoryId, me.laboratoryId)];
+  if (q.kind) where.push(eq(studies.kind, q.kind));
+  if (q.state) where.push(eq(studies.state, q.state));
+  if (q.analyteId) where.push(eq(studies.analyteId, q.analyteId));
+  if (q.instrumentId) where.push(or(eq(studies.comparativeInstrumentId, q.instrumentId), eq(studies.candidateInstrumentId, q.instrumentId), eq(studies.instrumentId, q.instrumentId))!);
+  if (q.from) where.push(gte(studies.updatedAt, new Date(`${q.from}T00:00:00Z`)));
+  if (q.to) where.push(lte(studies.updatedAt, new Date(`${q.to}T23:59:59.999Z`)));
+  if (q.q) where.push(or(ilike(studies.title, `%${escapeLike(q.q)}%`), ilike(studies.purpose, `%${escapeLike(q.q)}%`))!);
+  const n = sql<number>`(SELECT count(*) FROM ${specimens} s WHERE s.study_id = ${studies.id} AND NOT s.excluded)`;
+  const sortColumn = q.sort === 'n' ? n : SORT[q.sort];
+  const rows = await db.select().from(studies).where(and(...where))
+    .orderBy(q.order === 'asc' ? asc(sortColumn) : desc(sortColumn), desc(studies.id))
+    .limit(q.pageSize).offset((q.page - 1) * q.pageSize);
+  const [{ total }] = await db.select({ total: sql<number>`count(*)::int` }).from(studies).where(and(...where));
+  return { items: await summarise(db, rows), total };
+}
+
+const escapeLike = (s: string) => s.replace(/[\\%_]/g, (c) => `\\${c}`);
+
+export async function worklist(db: Database, me: SignedInUser): Promise<Worklist> {
+  const mine = and(eq(studies.laboratoryId, me.laboratoryId), eq(studies.createdBy, me.id));
+  const lab = eq(studies.laboratoryId, me.laboratoryId);
+  const recent = (w: SQL | undefined, limit = 20) => db.select().from(studies).where(w).orderBy(desc(studies.updatedAt)).limit(limit);
+  const isDirector = me.roles.includes('director');
+  const [drafts, returned, awaiting, signed] = await Promise.all([
+    recent(and(mine, eq(studies.state, 'draft'), sql`${studies.returnedAt} IS NULL`)),
+    recent(and(mine, eq(studies.state, 'draft'), isNotNull(studies.returnedAt))),
+    isDirector ? recent(and(lab, eq(studies.state, 'awaiting-signoff'))) : Promise.resolve([]),
+    recent(and(lab, eq(studies.state, 'signed')), 10),
+  ]);
+  return {
+    drafts: await summarise(db, drafts), returned: await summarise(db, returned),
+    awaitingSignature: await summarise(db, awaiting), recentlySigned: await summarise(db, signed),
+  };
+}
+

@@ -1,0 +1,29 @@
+import { analytes, instruments } from '../db/schema';
+import type { Harness } from './harness';
+
+/** The demo glucose analyte and two instruments of the Vale Harbor laboratory. */
+export async function catalogIds(h: Harness) {
+  const a = await h.database.db.select().from(analytes);
+  const i = await h.database.db.select().from(instruments);
+  const glucose = a.find((x) => x.name === 'Glucose' && x.unit === 'mmol/L')!;
+  const mine = i.filter((x) => x.laboratoryId === glucose.laboratoryId).sort((p, q) => p.id - q.id);
+  return { analyteId: glucose.id, comparativeInstrumentId: mine[0].id, candidateInstrumentId: mine[1].id };
+}
+
+type Agent = { agent: import('supertest').Agent; xsrf: string };
+
+export async function createComparison(h: Harness, s: Agent, title = `Comparison ${Date.now()}`, settings: object = {}) {
+  const res = await s.agent.post('/api/v1/studies').set('X-XSRF-TOKEN', s.xsrf)
+    .send({ kind: 'method-comparison', title, ...(await catalogIds(h)), settings: { resamples: 1000, regressionResamples: 1000, seed: 'fixture', ...settings } });
+  if (res.status !== 201) throw new Error(`create study answered ${res.status}: ${JSON.stringify(res.body)}`);
+  return res.body as { id: number; version: number };
+}
+
+/** Invented glucose pairs (mmol/L): a small constant bias with a little noise, deterministic. */
+export function inventedPairs(n: number, bias = 0.1): { label: string; comparative: string; candidate: string }[] {
+  return Array.from({ length: n }, (_, i) => {
+    const x = 3 + (i * 17) / n + ((i * 7) % 5) * 0.1;
+    const noise = (((i * 37) % 11) - 5) * 0.02;
+    return { label: `S${String(i + 1).padStart(3, '0')}`, comparative: x.toFixed(1), candidate: (x + bias + noise).toFixed(1) };
+  });
+}

@@ -1,0 +1,68 @@
+import { and, eq } from 'drizzle-orm';
+import { COMPARISON_FIELDS, INTERVAL_FIELDS, type ImportBody, type SpecimenRows, type UploadPreview } from '../../shared/schemas';
+import { recordAudit } from '../audit/audit';
+import { sha256Hex } from '../audit/canonical-json';
+import { actorOf, SignedInUser } from '../auth/session-user';
+import type { Database } from '../db/client';
+import { uploads } from '../db/schema';
+import { AppError, invalid, notFound } from '../http/app-error';
+import { loadRows } from '../specimens/input-hash';
+import { asClean, cleanRowsFor, writeRows } from '../specimens/specimens.service';
+import { findStudy } from '../studies/studies.repository';
+import { assertEditable } from '../studies/study-rules';
+import { suggestMapping } from './column-mapping';
+import { parseUpload, ParsedTable } from './parse-file';
+
+/** Stores the original file with its SHA-256 and answers the preview; nothing touches the rows yet. */
+export async function receiveUpload(db: Database, me: SignedInUser, studyId: number, file: { originalname: string; mimetype: string; buffer: Buffer } | undefined): Promise<UploadPreview> {
+  if (!file) throw invalid('file', 'Choose a file to upload (field "file")');
+  return db.transaction(async (tx) => {
+    const study = await findStudy(tx, me.laboratoryId, studyId);
+    assertEditable(study);
+    const table = await parseUpload(file.originalname, file.buffer);
+    const sha256 = sha256Hex(file.buffer);
+    const [row] = await tx.insert(uploads).values({
+      laboratoryId: me.laboratoryId, studyId, fileName: file.originalname, mediaType: file.mimetype, size: file.buffer.length,
+      sha256, bytes: file.buffer, parsed: table, uploadedBy: me.id,
+    }).returning({ id: uploads.id });
+    await recordAudit(tx, actorOf(me), { action: 'upload.received', entity: 'upload', entityId: row.id, studyId, after: { fileName: file.originalname, size: file.buffer.length, sha256, rows: table.rows.length } });
+    return {
+      uploadId: row.id, fileName: file.originalname, sha256, columns: table.columns, preview: table.rows.slice(0, 10), rowCount: table.rows.length,
+      suggestedMapping: suggestMapping(study.kind, table.columns, table.rows),
+    };
+  });
+}
+
+/** Imports an upload with the user's column mapping, replacing or appending rows in one transaction. */
+export async function importUpload(db: Database, me: SignedInUser, studyId: number, uploadId: number, body: ImportBody): Promise<SpecimenRows> {
+  return db.transaction(async (tx) => {
+    const study = await findStudy(tx, me.laboratoryId, studyId, true);
+    assertEditable(study);
+    const [upload] = await tx.select().from(uploads).where(and(eq(uploads.id, uploadId), eq(uploads.studyId, study.id)));
+    if (!upload) throw notFound('Upload');
+    const table = upload.parsed as ParsedTable;
+    const fields: readonly string[] = study.kind === 'method-comparison' ? COMPARISON_FIELDS : INTERVAL_FIELDS;
+    for (const [field, column] of Object.entries(body.mapping)) {
+      if (!fields.includes(field)) throw invalid(`mapping.${field}`, `"${field}" is not a field of this study's rows`);
+      if (!table.columns.includes(column)) throw invalid(`mapping.${field}`, `The file has no column "${column}"`);
+    }
+    const needed = study.kind === 'method-comparison' ? ['comparative', 'candidate'] : ['value'];
+    for (const f of needed) if (!body.mapping[f]) throw invalid(`mapping.${f}`, `Choose the column that holds the ${f === 'value' ? 'values' : `${f} results`}`);
+    const raw = table.rows.map((r) => Object.fromEntries(Object.entries(body.mapping).map(([f, c]) => [f, r[table.columns.indexOf(c)]])));
+    const offset = table.hasHeader ? 1 : 0;
+    const imported = await cleanRowsFor(tx, study, raw.map((r) => ({ ...r, excluded: false }))).catch((err) => {
+      throw err instanceof AppError ? fileRows(err, offset) : err;
+    });
+    const existing = body.mode === 'append' ? await loadRows(tx, study.id) : [];
+    const kept = existing.map(asClean);
+    const uploadIds = [...existing.map((r) => r.uploadId), ...imported.map(() => upload.id)];
+    await tx.update(uploads).set({ importedAt: new Date() }).where(eq(uploads.id, upload.id));
+    return writeRows(tx, me, study, body.version, [...kept, ...imported], body.mode === 'append' ? 'specimens.imported.appended' : 'specimens.imported.replaced', uploadIds);
+  });
+}
+
+/** Row numbers in messages follow the file (its header counts as line 1). */
+function fileRows(err: AppError, offset: number): AppError {
+  const fix = (m: string) => m.replace(/\brow (\d+)/g, (_, n) => `file row ${Number(n) + offset}`);
+  return new AppError(err.code, fix(err.message), err.issues.map((i) => ({ ...i, message: fix(i.message) })));
+}

@@ -1,0 +1,74 @@
+import { z } from 'zod';
+
+/** A result as typed or pasted: a number, a text with decimal point or comma, or empty. */
+export const ResultInput = z.union([z.number(), z.string().max(40), z.null()]);
+
+export const ComparisonRowInput = z.object({
+  label: z.string().max(100).default(''),
+  comparative: ResultInput,
+  candidate: ResultInput,
+  excluded: z.boolean().default(false),
+  exclusionReason: z.string().max(500).nullable().default(null),
+  note: z.string().max(1000).default(''),
+});
+export type ComparisonRowInput = z.input<typeof ComparisonRowInput>;
+
+export const IntervalRowInput = z.object({
+  label: z.string().max(100).default(''),
+  value: ResultInput,
+  sex: z.string().max(20).nullable().default(null),
+  ageBand: z.string().max(40).nullable().default(null),
+  excluded: z.boolean().default(false),
+  exclusionReason: z.string().max(500).nullable().default(null),
+  note: z.string().max(1000).default(''),
+});
+export type IntervalRowInput = z.input<typeof IntervalRowInput>;
+
+export const MAX_ROWS = 10000;
+export const PutSpecimensBody = z.object({
+  version: z.number().int().positive(),
+  rows: z.array(z.record(z.string(), z.unknown())).max(MAX_ROWS, `At most ${MAX_ROWS} rows`),
+});
+export type PutSpecimensBody = z.infer<typeof PutSpecimensBody>;
+
+/** A stored row, as GET answers it (numbers parsed; the text keeps the reported precision). */
+export const SpecimenRow = z.object({
+  position: z.number(),
+  label: z.string(),
+  comparative: z.number().nullable(),
+  candidate: z.number().nullable(),
+  value: z.number().nullable(),
+  comparativeText: z.string().nullable(),
+  candidateText: z.string().nullable(),
+  valueText: z.string().nullable(),
+  sex: z.string().nullable(),
+  ageBand: z.string().nullable(),
+  excluded: z.boolean(),
+  exclusionReason: z.string().nullable(),
+  note: z.string(),
+  uploadId: z.number().nullable(),
+});
+export type SpecimenRow = z.infer<typeof SpecimenRow>;
+export const SpecimenRows = z.object({ version: z.number(), rows: z.array(SpecimenRow) });
+export type SpecimenRows = z.infer<typeof SpecimenRows>;
+
+export const COMPARISON_FIELDS = ['label', 'comparative', 'candidate', 'excluded', 'exclusionReason', 'note'] as const;
+export const INTERVAL_FIELDS = ['label', 'value', 'sex', 'ageBand', 'excluded', 'exclusionReason', 'note'] as const;
+
+export const UploadPreview = z.object({
+  uploadId: z.number(),
+  fileName: z.string(),
+  sha256: z.string(),
+  columns: z.array(z.string()),
+  preview: z.array(z.array(z.string())),
+  rowCount: z.number(),
+  suggestedMapping: z.record(z.string(), z.string()),
+});
+export type UploadPreview = z.infer<typeof UploadPreview>;
+
+export const ImportBody = z.object({
+  version: z.number().int().positive(),
+  mapping: z.record(z.string(), z.string().min(1)),
+  mode: z.enum(['replace', 'append']),
+});
+export type ImportBody = z.infer<typeof ImportBody>;
