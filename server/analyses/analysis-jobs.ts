@@ -4,6 +4,7 @@ import { recordAudit } from '../audit/audit';
 import type { Database } from '../db/client';
 import { analyses, studies } from '../db/schema';
 import type { AnalysisInput } from '../specimens/input-hash';
+import { runAnalysis } from './run-analysis';
 import { AnalysisPool } from './worker-pool';
 
 export const QUEUE = 'analysis';
@@ -42,15 +43,17 @@ export class AnalysisJobs {
   }
 
   /** Runs one analysis: queued → running → done (results) or failed (the error in words). */
-  async execute(analysisId: number): Promise<void> {
+  async execute(analysisId: number, options: { inThread?: boolean } = {}): Promise<void> {
     const [claimed] = await this.db.update(analyses).set({ state: 'running', startedAt: new Date(), progress: 0 })
       .where(and(eq(analyses.id, analysisId), eq(analyses.state, 'queued'))).returning();
     if (!claimed) return;
     const started = Date.now();
     try {
-      const results = await this.pool!.run(claimed.input as AnalysisInput, (f) => {
+      const progress = (f: number) => {
         void this.db.update(analyses).set({ progress: f }).where(and(eq(analyses.id, analysisId), eq(analyses.state, 'running')));
-      });
+      };
+      const input = claimed.input as AnalysisInput;
+      const results = options.inThread ? runAnalysis(input) : await this.pool!.run(input, progress);
       await this.finish(claimed.studyId, analysisId, { state: 'done', results, progress: 1, durationMs: Date.now() - started });
     } catch (err) {
       await this.finish(claimed.studyId, analysisId, { state: 'failed', error: (err as Error).message, durationMs: Date.now() - started });

@@ -4,6 +4,7 @@ import { hashPassword } from '../auth/passwords';
 import type { Database } from './client';
 import { analytes, instruments, laboratories, users } from './schema';
 import { DEMO_LABS, DEMO_PASSWORD } from './seed-data';
+import { seedDemoStudies } from './seed-studies';
 
 const SYSTEM = (laboratoryId: number) => ({ id: null, name: 'demo seed', laboratoryId });
 
@@ -30,6 +31,8 @@ export async function seedDemo(db: Database): Promise<void> {
       }
     });
   }
+  const [demo] = await db.select().from(laboratories).where(eq(laboratories.name, DEMO_LABS[0].name));
+  await seedDemoStudies(db, demo.id);
 }
 
 export const demoSignIns = (): string[] =>
