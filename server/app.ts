@@ -4,6 +4,7 @@ import express, { Express, Router } from 'express';
 import helmet from 'helmet';
 import { adminRoutes } from './admin/admin.routes';
 import { AnalysisJobs } from './analyses/analysis-jobs';
+import { auditRoutes } from './audit/audit.routes';
 import { analysesRoutes } from './analyses/analyses.routes';
 import { authRoutes } from './auth/auth.routes';
 import { configurePassport } from './auth/passport';
@@ -15,6 +16,7 @@ import { errorHandler, notFoundHandler } from './http/error-handler';
 import { routerFrom, RouteSpec } from './http/routes';
 import { xsrfProtection } from './http/xsrf';
 import { MailService } from './mail/mail-service';
+import { signoffRoutes } from './signoff/signoff.routes';
 import { specimensRoutes } from './specimens/specimens.routes';
 import { studiesRoutes } from './studies/studies.routes';
 import { uploadsRoutes } from './uploads/uploads.routes';
@@ -25,6 +27,7 @@ export interface CreatedApp { app: Express; ctx: AppContext; routes: RouteSpec[]
 export function apiRoutes(ctx: AppContext, passport: ReturnType<typeof configurePassport>): RouteSpec[] {
   return [
     ...authRoutes(ctx, passport), ...adminRoutes(ctx), ...studiesRoutes(ctx), ...specimensRoutes(ctx), ...uploadsRoutes(ctx), ...analysesRoutes(ctx),
+    ...signoffRoutes(ctx), ...auditRoutes(ctx),
   ];
 }
 

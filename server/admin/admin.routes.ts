@@ -1,9 +1,10 @@
-import { AnalyteBody, IdParams, InstrumentBody, InviteUserBody, UpdateUserBody } from '../../shared/schemas';
+import { AnalyteBody, IdParams, InstrumentBody, InviteUserBody, LaboratorySettings, UpdateUserBody } from '../../shared/schemas';
 import type { AppContext } from '../context';
 import { parseRequest } from '../http/parse-request';
 import type { RouteSpec } from '../http/routes';
 import { listMail } from './admin.repository';
 import { analyteCatalog, instrumentCatalog } from './catalog.service';
+import { getLaboratory, updateLaboratory } from './laboratory.service';
 import { inviteUser, listLabUsers, resendInvitation, unlockLabUser, updateLabUser } from './users.service';
 import { mailView } from './views';
 
@@ -24,6 +25,11 @@ export function adminRoutes(ctx: AppContext): RouteSpec[] {
     },
   ];
   return [
+    { method: 'get', path: '/laboratory', access: EVERY_ROLE, handler: async (req, res) => res.json(await getLaboratory(ctx.db, req.user!)) },
+    {
+      method: 'put', path: '/laboratory', access: ADMIN,
+      handler: async (req, res) => res.json(await updateLaboratory(ctx.db, req.user!, parseRequest(LaboratorySettings, req.body, 'body'))),
+    },
     { method: 'get', path: '/users', access: ADMIN, handler: async (req, res) => res.json(await listLabUsers(ctx, req.user!)) },
     {
       method: 'post', path: '/users', access: ADMIN,

@@ -1,4 +1,8 @@
 import { analyzeComparison } from '../../shared/stats/analyze-comparison';
+import { analyzeInterval } from '../../shared/stats/analyze-interval';
+import { CAUTION } from '../../shared/stats/comparison-types';
+import { engineInfo } from '../../shared/stats/engine';
+import { verifyInterval } from '../../shared/stats/verify-interval';
 import { StudySettings } from '../../shared/schemas';
 import type { AnalysisInput } from '../specimens/input-hash';
 
@@ -37,6 +41,26 @@ function comparison(input: AnalysisInput, onProgress: Progress) {
   return { ...result, outlierPositions: toPositions(result.outliers, used) };
 }
 
+function establish(input: AnalysisInput, onProgress: Progress) {
+  const s = StudySettings.parse(input.settings);
+  const used = input.rows.filter((r) => has(r.value));
+  const result = analyzeInterval(
+    used.map((r) => ({ value: r.value!, label: r.label || undefined, sex: r.sex ?? undefined, ageBand: r.ageBand ?? undefined, excluded: r.excluded, exclusionReason: r.exclusionReason ?? undefined })),
+    { resamples: s.resamples, seed: s.seed, level: s.confidenceLevel, method: s.intervalMethod, percentiles: s.percentiles, partitionFields: s.partitionFields },
+    onProgress,
+  );
+  return { ...result, outlierPositions: toPositions(result.outliers, used) };
+}
+
+function verify(input: AnalysisInput) {
+  const s = StudySettings.parse(input.settings);
+  if (s.statedLower === null || s.statedUpper === null) throw new Error('Give the stated lower and upper limits in Setup before running the analysis');
+  const used = input.rows.filter((r) => !r.excluded && has(r.value));
+  const result = verifyInterval(used.map((r) => r.value!), { lower: s.statedLower, upper: s.statedUpper });
+  const outsidePositions = used.filter((r) => r.value! < s.statedLower! || r.value! > s.statedUpper!).map((r) => r.position);
+  return { ...result, excludedCount: input.rows.length - used.length, outsidePositions, stated: { lower: s.statedLower, upper: s.statedUpper, source: s.statedSource }, caution: CAUTION, engine: engineInfo(s.seed, s.resamples) };
+}
+
 /** Runs the statistics engine for one stored input (called in a worker thread). */
 export function runAnalysis(input: AnalysisInput, onProgress: Progress = () => {}): unknown {
   const missing = missingResults(input);
@@ -44,6 +68,10 @@ export function runAnalysis(input: AnalysisInput, onProgress: Progress = () => {
   switch (input.kind) {
     case 'method-comparison':
       return comparison(input, onProgress);
+    case 'interval-establish':
+      return establish(input, onProgress);
+    case 'interval-verify':
+      return verify(input);
     default:
       throw new Error(`Studies of kind ${input.kind} cannot be analysed by this engine version`);
   }

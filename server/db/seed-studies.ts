@@ -9,10 +9,12 @@ import { createStudy } from '../studies/studies.service';
 import type { Database } from './client';
 import { analytes, instruments, studies, users } from './schema';
 
+const gaussian = (rng: () => number) => Math.sqrt(-2 * Math.log(1 - rng())) * Math.cos(2 * Math.PI * rng());
+
 /** Invented pairs: y = slope·x + offset, with noise proportional to x (CV) and a floor. Deterministic. */
 function pairs(seed: string, n: number, lo: number, hi: number, slope: number, offset: number, cv: number, decimals: number) {
   const rng = seedrandom(seed);
-  const normal = () => Math.sqrt(-2 * Math.log(1 - rng())) * Math.cos(2 * Math.PI * rng());
+  const normal = () => gaussian(rng);
   return Array.from({ length: n }, (_, i) => {
     const truth = lo * Math.pow(hi / lo, rng());
     const x = truth * (1 + cv * normal());
@@ -40,6 +42,40 @@ const COMPARISONS: DemoComparison[] = [
   },
 ];
 
+/** Invented reference values: log-normal around a median with a spread, per sex. Deterministic. */
+function referenceValues(seed: string, groups: { sex: string | null; n: number; median: number; gsd: number }[], decimals: number) {
+  const rng = seedrandom(seed);
+  return groups.flatMap((g, k) => Array.from({ length: g.n }, (_, i) => ({
+    label: `RI-${k + 1}${String(i + 1).padStart(3, '0')}`,
+    value: (g.median * Math.exp(Math.log(g.gsd) * gaussian(rng))).toFixed(decimals),
+    sex: g.sex,
+  })));
+}
+
+interface DemoInterval { title: string; kind: 'interval-establish' | 'interval-verify'; analyte: string; instrument: string; purpose: string; rows: object[]; settings: StudySettingsPatch }
+
+const INTERVALS: DemoInterval[] = [
+  {
+    title: 'Creatinine reference interval, adults (Chemistry line 2)', kind: 'interval-establish', analyte: 'Creatinine', instrument: 'Chemistry line 2',
+    purpose: 'Establish the adult creatinine reference interval printed beside results (invented demo study).',
+    rows: referenceValues('vh-ri-creatinine', [{ sex: 'F', n: 120, median: 64, gsd: 1.16 }, { sex: 'M', n: 120, median: 82, gsd: 1.15 }], 0),
+    settings: { seed: 'vh-ri-creatinine-2026', partitionFields: ['sex'], reagentLot: 'CRE-2264',
+      populationDescription: 'Healthy adult volunteers aged 18–65 recruited among blood donors (invented); excluded: known kidney disease, pregnancy, diabetes, nephrotoxic medication, strenuous exercise within 24 h.' },
+  },
+  {
+    title: 'Potassium: verify the stated interval (Chemistry line 2)', kind: 'interval-verify', analyte: 'Potassium', instrument: 'Chemistry line 2',
+    purpose: 'Verify that the manufacturer\'s potassium interval fits our population (invented demo study).',
+    rows: referenceValues('vh-rv-potassium', [{ sex: null, n: 20, median: 4.2, gsd: 1.07 }], 1),
+    settings: { seed: 'vh-rv-potassium-2026', statedLower: 3.5, statedUpper: 5.1, statedSource: 'Manufacturer\'s package insert (invented), adult serum' },
+  },
+  {
+    title: 'Thyrotropin: verify the stated interval (Immunoassay 1)', kind: 'interval-verify', analyte: 'Thyrotropin (TSH)', instrument: 'Immunoassay 1',
+    purpose: 'Verify the published TSH interval for our population (invented demo study; it does not fit).',
+    rows: referenceValues('vh-rv-tsh', [{ sex: null, n: 20, median: 3.1, gsd: 1.45 }], 2),
+    settings: { seed: 'vh-rv-tsh-2026', statedLower: 0.4, statedUpper: 4.0, statedSource: 'Published study of another population (invented citation)' },
+  },
+];
+
 /** The demo laboratory's analysed studies (skipped when a study of that title exists). */
 export async function seedDemoStudies(db: Database, labId: number): Promise<void> {
   const [tech] = await db.select().from(users).where(eq(users.email, 'tech@valeharbor.example'));
@@ -57,6 +93,14 @@ export async function seedDemoStudies(db: Database, labId: number): Promise<void
     };
     const study = await createStudy(db, me, body);
     await putRows(db, me, study.id, study.version, demo.rows);
+    await analyseNow(db, jobs, me, study.id);
+  }
+  for (const demo of INTERVALS) {
+    const exists = await db.select({ id: studies.id }).from(studies).where(and(eq(studies.laboratoryId, labId), eq(studies.title, demo.title)));
+    if (exists.length) continue;
+    const [analyte] = await db.select().from(analytes).where(and(eq(analytes.laboratoryId, labId), eq(analytes.name, demo.analyte)));
+    const study = await createStudy(db, me, { kind: demo.kind, title: demo.title, purpose: demo.purpose, analyteId: analyte.id, instrumentId: byName(demo.instrument), settings: demo.settings });
+    await putRows(db, me, study.id, study.version, demo.rows as Record<string, unknown>[]);
     await analyseNow(db, jobs, me, study.id);
   }
 }

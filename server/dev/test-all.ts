@@ -45,6 +45,13 @@ async function e2e(databaseUrl: string, built: boolean): Promise<SuiteCount> {
   return readPlaywright('end-to-end (Chromium)', path.join(out, 'e2e.json'));
 }
 
+/** The server, shared code and tests type-check (the client build checks the client). */
+async function typeCheck(): Promise<SuiteCount> {
+  log('type check: tsc -p tsconfig.server.json --noEmit');
+  const code = await runInherit(bin('tsc'), ['-p', 'tsconfig.server.json', '--noEmit'], { cwd: root });
+  return { name: 'server and shared type check', passed: code === 0 ? 1 : 0, failed: code === 0 ? 0 : 1 };
+}
+
 /** `npm test`: a throwaway database, then every suite; ends with one line `tests: N passed, N failed`. */
 export async function main(): Promise<void> {
   rmSync(out, { recursive: true, force: true });
@@ -59,6 +66,7 @@ export async function main(): Promise<void> {
     const env = { ...process.env, DATABASE_URL: database.url, TZ: 'UTC' };
     const built = existsSync(path.join(root, 'angular.json')) ? await buildClient() : false;
     counts.push({ name: 'client production build', passed: built ? 1 : 0, failed: built ? 0 : 1 });
+    counts.push(await typeCheck());
     counts.push(await jestGroup('unit', env));
     counts.push(await jestGroup('api', env));
     counts.push(await e2e(database.url, built));

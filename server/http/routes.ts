@@ -10,6 +10,8 @@ export interface RouteSpec {
   path: string;
   access: Access;
   before?: RequestHandler[];
+  /** A POST that only reads and re-computes (a re-check); it changes no record. */
+  readOnly?: boolean;
   handler: (req: Request, res: Response) => unknown;
 }
 

@@ -6,7 +6,7 @@ import type { Database, Tx } from '../db/client';
 import { analytes, specimens } from '../db/schema';
 import { AppError } from '../http/app-error';
 import { bumpVersion, findStudy, StudyRow } from '../studies/studies.repository';
-import { assertEditable } from '../studies/study-rules';
+import { assertEditable, assertPlanApproved } from '../studies/study-rules';
 import { loadRows, StoredRow } from './input-hash';
 import { diffRows } from './row-diff';
 import { CleanRow, validateRows } from './row-validation';
@@ -46,6 +46,7 @@ export async function writeRows(
   tx: Tx, me: SignedInUser, study: StudyRow, version: number, rows: CleanRow[], action: string, uploadIds: (number | null)[] = [],
 ): Promise<SpecimenRows> {
   assertEditable(study);
+  await assertPlanApproved(tx, study);
   const before = await loadRows(tx, study.id);
   const updated = await bumpVersion(tx, study, version);
   await tx.delete(specimens).where(eq(specimens.studyId, study.id));

@@ -7,7 +7,7 @@ import { specimens, studies } from '../db/schema';
 import { invalid } from '../http/app-error';
 import { bumpVersion, findLabAnalyte, findLabInstrument, findStudy } from './studies.repository';
 import { assertEditable } from './study-rules';
-import { initialSettings } from './study-settings';
+import { initialSettings, PLAN_FIELDS } from './study-settings';
 import { studyView, summarise } from './study-view';
 
 async function checkRefs(tx: Tx, me: SignedInUser, kind: string, ids: { analyteId?: number; comparativeInstrumentId?: number | null; candidateInstrumentId?: number | null; instrumentId?: number | null }) {
@@ -46,6 +46,10 @@ export async function updateStudy(db: Database, me: SignedInUser, id: number, bo
     await checkRefs(tx, me, study.kind, body);
     const { version, settings, reason, ...fields } = body;
     const merged = settings ? StudySettings.parse({ ...(study.settings as object), ...settings }) : undefined;
+    const moved = planChanges(study, merged);
+    if (moved.length && !reason?.trim()) {
+      throw invalid('reason', `The plan was approved; give a reason for changing ${moved.map((m) => m.field).join(', ')}`);
+    }
     const updated = await bumpVersion(tx, study, version, { ...fields, ...(merged ? { settings: merged } : {}) });
     const changed = (Object.keys(fields) as (keyof typeof fields)[]).filter((k) => fields[k] !== undefined);
     await recordAudit(tx, actorOf(me), {
@@ -53,8 +57,23 @@ export async function updateStudy(db: Database, me: SignedInUser, id: number, bo
       before: pick(study, changed, settings && Object.keys(settings)),
       after: pick(updated, changed, settings && Object.keys(settings)),
     });
+    if (moved.length) {
+      const rowsEntered = (await tx.select({ id: specimens.id }).from(specimens).where(eq(specimens.studyId, id)).limit(1)).length > 0;
+      await recordAudit(tx, actorOf(me), {
+        action: 'study.plan-amended', entity: 'study', entityId: id, studyId: id, reason: reason!.trim(),
+        before: Object.fromEntries(moved.map((m) => [m.field, m.from])), after: { ...Object.fromEntries(moved.map((m) => [m.field, m.to])), afterData: rowsEntered },
+      });
+    }
     return studyView(tx, updated);
   });
+}
+
+/** Plan fields whose value changes after the director approved the plan. */
+function planChanges(study: typeof studies.$inferSelect, merged: StudySettings | undefined) {
+  if (!study.planApprovedAt || !merged) return [];
+  const before = study.settings as Record<string, unknown>;
+  return PLAN_FIELDS.filter((f) => JSON.stringify(before[f] ?? null) !== JSON.stringify((merged as Record<string, unknown>)[f] ?? null))
+    .map((f) => ({ field: f, from: before[f] ?? null, to: (merged as Record<string, unknown>)[f] ?? null }));
 }
 
 const pick = (row: typeof studies.$inferSelect, fields: string[], settingKeys?: string[]) => ({

@@ -25,13 +25,12 @@ export async function findingsOf(db: Executor, study: StudyRow): Promise<{ statu
 export async function summarise(db: Executor, rows: StudyRow[]): Promise<StudySummary[]> {
   if (!rows.length) return [];
   const ids = rows.map((r) => r.id);
-  const [analyteRows, instrumentRows, userRows, counts] = await Promise.all([
-    db.select({ id: analytes.id, name: analytes.name }).from(analytes).where(inArray(analytes.id, rows.map((r) => r.analyteId))),
-    db.select({ id: instruments.id, name: instruments.name }).from(instruments).where(eq(instruments.laboratoryId, rows[0].laboratoryId)),
-    db.select({ id: users.id, name: users.name }).from(users).where(inArray(users.id, rows.map((r) => r.createdBy))),
-    db.select({ studyId: specimens.studyId, n: sql<number>`count(*)::int` }).from(specimens)
-      .where(and(inArray(specimens.studyId, ids), eq(specimens.excluded, false))).groupBy(specimens.studyId),
-  ]);
+  // One after another: inside a transaction all queries share one connection.
+  const analyteRows = await db.select({ id: analytes.id, name: analytes.name }).from(analytes).where(inArray(analytes.id, rows.map((r) => r.analyteId)));
+  const instrumentRows = await db.select({ id: instruments.id, name: instruments.name }).from(instruments).where(eq(instruments.laboratoryId, rows[0].laboratoryId));
+  const userRows = await db.select({ id: users.id, name: users.name }).from(users).where(inArray(users.id, rows.map((r) => r.createdBy)));
+  const counts = await db.select({ studyId: specimens.studyId, n: sql<number>`count(*)::int` }).from(specimens)
+    .where(and(inArray(specimens.studyId, ids), eq(specimens.excluded, false))).groupBy(specimens.studyId);
   const name = (list: { id: number; name: string }[], id: number | null) => list.find((x) => x.id === id)?.name ?? '';
   const out: StudySummary[] = [];
   for (const r of rows) {

@@ -27,3 +27,23 @@ export function inventedPairs(n: number, bias = 0.1): { label: string; comparati
     return { label: `S${String(i + 1).padStart(3, '0')}`, comparative: x.toFixed(1), candidate: (x + bias + noise).toFixed(1) };
   });
 }
+
+/** Polls an analysis until it is done or failed. */
+export async function waitForAnalysis(s: Agent, id: number) {
+  for (let i = 0; i < 240; i++) {
+    const res = await s.agent.get(`/api/v1/analyses/${id}`);
+    if (res.body.state === 'done' || res.body.state === 'failed') return res.body;
+    await new Promise((r) => setTimeout(r, 250));
+  }
+  throw new Error(`analysis ${id} did not finish`);
+}
+
+/** A comparison with 40 rows entered by `s` and current findings (the harness must run jobs). */
+export async function analysedComparison(h: Harness, s: Agent, title?: string) {
+  const study = await createComparison(h, s, title);
+  await s.agent.put(`/api/v1/studies/${study.id}/specimens`).set('X-XSRF-TOKEN', s.xsrf).send({ version: study.version, rows: inventedPairs(40) });
+  const queued = await s.agent.post(`/api/v1/studies/${study.id}/analyses`).set('X-XSRF-TOKEN', s.xsrf);
+  const done = await waitForAnalysis(s, queued.body.id);
+  if (done.state !== 'done') throw new Error(`fixture analysis failed: ${done.error}`);
+  return study;
+}

@@ -51,3 +51,11 @@ export async function signedIn(h: CreatedApp, email: string, password = DEMO_PAS
 let counter = 0;
 /** A unique e-mail per call, so tests never trip over each other's users. */
 export const uniqueEmail = (prefix: string) => `${prefix}.${Date.now().toString(36)}.${++counter}@valeharbor.example`;
+
+/** supertest parser that keeps a binary body (PDF, xlsx) as a Buffer. */
+// eslint-disable-next-line @typescript-eslint/no-explicit-any
+export const binary = (res: any, done: (err: Error | null, body: Buffer) => void): void => {
+  const chunks: Buffer[] = [];
+  res.on('data', (c: Buffer) => chunks.push(c));
+  res.on('end', () => done(null, Buffer.concat(chunks)));
+};

@@ -6,3 +6,4 @@ export * from './admin.schema';
 export * from './study.schema';
 export * from './specimen.schema';
 export * from './analysis.schema';
+export * from './audit.schema';

@@ -153,3 +153,37 @@ export const Worklist = z.object({
   recentlySigned: z.array(StudySummary),
 });
 export type Worklist = z.infer<typeof Worklist>;
+
+export const SignBody = z.object({
+  meaning: z.enum(['accepted', 'not-accepted'], { error: 'Choose accepted or not accepted' }),
+  comment: z.string().max(2000).default(''),
+  password: z.string().min(1, 'Enter your password to sign'),
+});
+export type SignBody = z.infer<typeof SignBody>;
+export const ReturnBody = z.object({ comment: z.string().trim().min(1, 'Say why the study goes back').max(2000) });
+export type ReturnBody = z.infer<typeof ReturnBody>;
+export const AmendBody = z.object({ reason: z.string().trim().min(1, 'Say why the signed study is amended').max(2000) });
+export type AmendBody = z.infer<typeof AmendBody>;
+export const PlanApprovalBody = z.object({ comment: z.string().max(2000).default(''), password: z.string().min(1, 'Enter your password to approve') });
+export type PlanApprovalBody = z.infer<typeof PlanApprovalBody>;
+
+export const Signature = z.object({
+  id: z.number(),
+  meaning: z.enum(['plan-approved', 'accepted', 'not-accepted']),
+  meaningWords: z.string(),
+  signerName: z.string(),
+  comment: z.string(),
+  signedAt: z.string(),
+  contentHash: z.string(),
+  verificationCode: z.string(),
+  pdfSha256: z.string().nullable(),
+  analysisId: z.number().nullable(),
+});
+export type Signature = z.infer<typeof Signature>;
+
+export const LaboratorySettings = z.object({
+  timeZone: z.string().min(1).max(64),
+  planApprovalRequired: z.boolean(),
+  allowSelfSign: z.boolean(),
+});
+export type LaboratorySettings = z.infer<typeof LaboratorySettings>;

@@ -1,0 +1,82 @@
+import ExcelJS from 'exceljs';
+import { desc, eq } from 'drizzle-orm';
+import { StudySettings, type ArchiveQuery } from '../../shared/schemas';
+import type { SignedInUser } from '../auth/session-user';
+import type { Database } from '../db/client';
+import { analyses } from '../db/schema';
+import { listSignatures } from '../signoff/report.service';
+import { loadRows } from '../specimens/input-hash';
+import { findStudy } from '../studies/studies.repository';
+import { studyView } from '../studies/study-view';
+import { searchArchive } from './archive.service';
+import { studyHistory } from './history.service';
+
+function sheet(wb: ExcelJS.Workbook, name: string, columns: [string, string, number][], rows: Record<string, unknown>[]) {
+  const ws = wb.addWorksheet(name);
+  ws.columns = columns.map(([header, key, width]) => ({ header, key, width }));
+  ws.getRow(1).font = { bold: true };
+  ws.views = [{ state: 'frozen', ySplit: 1 }];
+  rows.forEach((r) => ws.addRow(r));
+  return ws;
+}
+
+const buffer = async (wb: ExcelJS.Workbook) => Buffer.from(await wb.xlsx.writeBuffer());
+
+function newBook(): ExcelJS.Workbook {
+  const wb = new ExcelJS.Workbook();
+  wb.creator = 'Parallax';
+  wb.created = new Date(0);
+  return wb;
+}
+
+/** The archive result list (same filters as the page, every match, not one page). */
+export async function exportArchive(db: Database, me: SignedInUser, q: ArchiveQuery): Promise<Buffer> {
+  const all = await searchArchive(db, me, { ...q, page: 1, pageSize: 500 });
+  const wb = newBook();
+  sheet(wb, 'Studies', [
+    ['Study', 'id', 8], ['Kind', 'kind', 20], ['Title', 'title', 44], ['Analyte', 'analyte', 16], ['Instruments', 'instruments', 32], ['n', 'n', 6],
+    ['State', 'state', 16], ['Verdict', 'verdict', 14], ['Signed by', 'signerName', 22], ['Meaning', 'meaning', 14], ['Signed at (UTC)', 'signedAt', 22],
+    ['Created (UTC)', 'createdAt', 22], ['Superseded', 'superseded', 11], ['Supersedes', 'supersedesId', 11],
+  ], all.items.map((i) => ({ ...i, superseded: i.superseded ? 'yes' : 'no' })));
+  return buffer(wb);
+}
+
+/** Flattens a results object to path → value rows (histogram bins left out: they are plot data). */
+function flatten(v: unknown, path = '', out: { field: string; value: unknown }[] = []) {
+  if (v && typeof v === 'object') {
+    if (path.endsWith('bins')) return out;
+    for (const [k, x] of Object.entries(v)) flatten(x, Array.isArray(v) ? `${path}[${k}]` : path ? `${path}.${k}` : k, out);
+  } else out.push({ field: path, value: v ?? '' });
+  return out;
+}
+
+/** One study's whole record: settings, rows with exclusions and reasons, results, signatures, history. */
+export async function exportStudy(db: Database, me: SignedInUser, studyId: number): Promise<Buffer> {
+  const row = await findStudy(db, me.laboratoryId, studyId);
+  const study = await studyView(db, row);
+  const wb = newBook();
+  const about = [
+    ['Study', study.id], ['Kind', study.kind], ['Title', study.title], ['Purpose', study.purpose], ['Analyte', `${study.analyte.name} (${study.analyteUnit})`],
+    ['Instruments', study.instruments], ['State', study.state], ['Version', study.version], ['Supersedes', study.supersedesId ?? ''],
+    ...Object.entries(StudySettings.parse(row.settings)).map(([k, v]) => [`setting: ${k}`, Array.isArray(v) ? v.join(', ') : v ?? '']),
+  ];
+  sheet(wb, 'Study', [['Field', 'field', 30], ['Value', 'value', 70]], about.map(([field, value]) => ({ field, value })));
+  sheet(wb, 'Rows', [
+    ['#', 'position', 6], ['Specimen', 'label', 14], ['Comparative', 'comparativeText', 12], ['Candidate', 'candidateText', 12], ['Value', 'valueText', 10],
+    ['Sex', 'sex', 6], ['Age band', 'ageBand', 10], ['Excluded', 'excluded', 9], ['Exclusion reason', 'exclusionReason', 36], ['Note', 'note', 30], ['Upload', 'uploadId', 8],
+  ], (await loadRows(db, studyId)).map((r) => ({ ...r, excluded: r.excluded ? 'yes' : 'no' })));
+  const signatureRows = await listSignatures(db, me, studyId);
+  const signedId = signatureRows.filter((s) => s.meaning !== 'plan-approved').pop()?.analysisId;
+  const [analysis] = signedId
+    ? await db.select().from(analyses).where(eq(analyses.id, signedId))
+    : await db.select().from(analyses).where(eq(analyses.studyId, studyId)).orderBy(desc(analyses.id)).limit(1);
+  sheet(wb, 'Results', [['Field', 'field', 50], ['Value', 'value', 40]], [
+    { field: 'analysis', value: analysis?.id ?? '(none)' }, { field: 'engine version', value: analysis?.engineVersion ?? '' },
+    { field: 'seed', value: analysis?.seed ?? '' }, { field: 'resamples', value: analysis?.resamples ?? '' }, { field: 'input hash', value: analysis?.inputHash ?? '' },
+    ...flatten(analysis?.results ?? {}),
+  ]);
+  sheet(wb, 'Signatures', [['Meaning', 'meaningWords', 30], ['Signed by', 'signerName', 24], ['Signed at (UTC)', 'signedAt', 24], ['Comment', 'comment', 40], ['Content hash', 'contentHash', 70], ['Verification code', 'verificationCode', 16], ['PDF SHA-256', 'pdfSha256', 70]], signatureRows);
+  const history = await studyHistory(db, me, studyId);
+  sheet(wb, 'History', [['Time (UTC)', 'at', 24], ['Who', 'userName', 22], ['What', 'headline', 50], ['Details', 'details', 90]], history.map((h) => ({ ...h, details: h.details.join('\n') })));
+  return buffer(wb);
+}

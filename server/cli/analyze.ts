@@ -1,0 +1,42 @@
+/**
+ * `npm run --silent analyze -- KIND FILE.csv [options]`: reads a CSV with a header row, runs one analysis of
+ * shared/stats and prints its result as one JSON object on stdout. KIND: comparison | interval |
+ * verify-interval | bootstrap-test. A bad file or option prints one line naming the row or option on
+ * stderr and exits with status 2.
+ */
+import { readFileSync } from 'node:fs';
+import { OptionError } from '../../shared/stats';
+import { CsvError, parseCsv } from './csv';
+import { FlagError, flagFor, parseFlags } from './flags';
+import { KINDS } from './kinds';
+
+const USAGE = `usage: npm run --silent analyze -- ${Object.keys(KINDS).join('|')} FILE.csv [--option value ...]`;
+
+export function main(argv: string[]): number {
+  const [kindName, file, ...rest] = argv;
+  const kind = KINDS[kindName ?? ''];
+  if (!kind || !file) return fail(kindName && !kind ? `unknown analysis kind "${kindName}"; ${USAGE}` : USAGE);
+  try {
+    const options = parseFlags(rest, kind.flags);
+    let text: string;
+    try {
+      text = readFileSync(file, 'utf8');
+    } catch (error) {
+      return fail(`cannot read ${file}: ${(error as NodeJS.ErrnoException).code ?? String(error)}`);
+    }
+    const result = kind.run(parseCsv(text), options);
+    process.stdout.write(`${JSON.stringify(result, null, 2)}\n`);
+    return 0;
+  } catch (error) {
+    if (error instanceof OptionError) return fail(`${flagFor(kind.flags, error.option)}: ${error.message.replace(/^option \S+ /, '')}`);
+    if (error instanceof CsvError || error instanceof FlagError || error instanceof RangeError) return fail(error.message);
+    throw error;
+  }
+}
+
+function fail(message: string): number {
+  process.stderr.write(`analyze: ${message.replace(/\s+/g, ' ')}\n`);
+  return 2;
+}
+
+if (require.main === module) process.exitCode = main(process.argv.slice(2));

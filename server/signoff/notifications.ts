@@ -1,0 +1,36 @@
+import { and, eq, sql } from 'drizzle-orm';
+import type { Tx } from '../db/client';
+import { users } from '../db/schema';
+import { queueMail } from '../mail/outbox';
+import type { StudyRow } from '../studies/studies.repository';
+
+const link = (publicUrl: string, study: StudyRow, page: string) => `${publicUrl}/studies/${study.id}/${page}`;
+
+export async function labDirectors(tx: Tx, laboratoryId: number) {
+  return tx.select().from(users).where(and(eq(users.laboratoryId, laboratoryId), eq(users.active, true), sql`'director' = ANY(${users.roles})`));
+}
+
+/** Tells the laboratory's directors that a study awaits their signature. */
+export async function notifySubmitted(tx: Tx, study: StudyRow, by: string, publicUrl: string): Promise<void> {
+  const directors = await labDirectors(tx, study.laboratoryId);
+  if (!directors.length) return;
+  await queueMail(tx, {
+    laboratoryId: study.laboratoryId,
+    to: directors.map((d) => d.email),
+    subject: `Awaiting your signature: ${study.title}`,
+    text: [`${by} submitted the study "${study.title}" for sign-off.`, '', `Review it here: ${link(publicUrl, study, 'review')}`, '',
+      'The findings are decision support; acceptance follows local accreditation rules and your professional judgement.'].join('\n'),
+  });
+}
+
+/** Tells the study's author what the director decided. */
+export async function notifyAuthor(tx: Tx, study: StudyRow, subject: string, lines: string[], publicUrl: string): Promise<void> {
+  const [author] = await tx.select().from(users).where(eq(users.id, study.createdBy));
+  if (!author?.active) return;
+  await queueMail(tx, {
+    laboratoryId: study.laboratoryId,
+    to: [author.email],
+    subject: `${subject}: ${study.title}`,
+    text: [...lines, '', `Open the study: ${link(publicUrl, study, 'setup')}`].join('\n'),
+  });
+}

@@ -1,0 +1,70 @@
+import { eq } from 'drizzle-orm';
+import type { Study } from '../../shared/schemas';
+import { recordAudit } from '../audit/audit';
+import { findUserById } from '../auth/auth.repository';
+import { registerFailure } from '../auth/auth.service';
+import { isLocked } from '../auth/lockout';
+import { checkPassword } from '../auth/passwords';
+import { actorOf, SignedInUser } from '../auth/session-user';
+import type { AppContext } from '../context';
+import type { Tx } from '../db/client';
+import { AppError } from '../http/app-error';
+import { findStudy, StudyRow } from '../studies/studies.repository';
+import { studies } from '../db/schema';
+import { studyView } from '../studies/study-view';
+import { notifyAuthor, notifySubmitted } from './notifications';
+import { submissionProblems } from './submission-checks';
+
+/** Runs a sign-off step in one transaction, then sends the mail it queued. */
+export async function step<T>(ctx: AppContext, work: (tx: Tx) => Promise<T>): Promise<T> {
+  const out = await ctx.db.transaction(work);
+  ctx.mail.kick();
+  return out;
+}
+
+export function submitStudy(ctx: AppContext, me: SignedInUser, id: number): Promise<Study> {
+  return step(ctx, async (tx) => {
+    const study = await findStudy(tx, me.laboratoryId, id, true);
+    if (study.state !== 'draft') throw new AppError('conflict', 'Only a draft can be submitted');
+    const problems = await submissionProblems(tx, study);
+    if (problems.length) throw new AppError('invalid_request', `The study cannot be submitted yet: ${problems.map((p) => p.message).join('; ')}`, problems);
+    const [row] = await tx.update(studies).set({ state: 'awaiting-signoff', submittedAt: new Date(), returnedAt: null, version: study.version + 1, updatedAt: new Date() })
+      .where(eq(studies.id, id)).returning();
+    await recordAudit(tx, actorOf(me), { action: 'study.submitted', entity: 'study', entityId: id, studyId: id, before: { state: study.state }, after: { state: row.state } });
+    await notifySubmitted(tx, row, me.name, ctx.config.publicUrl);
+    return studyView(tx, row);
+  });
+}
+
+export function returnStudy(ctx: AppContext, me: SignedInUser, id: number, comment: string): Promise<Study> {
+  return step(ctx, async (tx) => {
+    const study = await awaiting(tx, me, id);
+    const [row] = await tx.update(studies).set({ state: 'draft', returnedAt: new Date(), returnComment: comment, version: study.version + 1, updatedAt: new Date() })
+      .where(eq(studies.id, id)).returning();
+    await recordAudit(tx, actorOf(me), { action: 'study.returned', entity: 'study', entityId: id, studyId: id, reason: comment, before: { state: study.state }, after: { state: 'draft' } });
+    await notifyAuthor(tx, row, 'Returned to you', [`${me.name} returned the study "${row.title}" to draft with this comment:`, '', comment], ctx.config.publicUrl);
+    return studyView(tx, row);
+  });
+}
+
+export async function awaiting(tx: Tx, me: SignedInUser, id: number): Promise<StudyRow> {
+  const study = await findStudy(tx, me.laboratoryId, id, true);
+  if (study.state !== 'awaiting-signoff') throw new AppError('conflict', 'This study is not awaiting sign-off');
+  return study;
+}
+
+/**
+ * The password again, checked on the server. A wrong one is audited and counted toward the
+ * lockout in its own committed transaction, then refused.
+ */
+export async function confirmPassword(ctx: AppContext, me: SignedInUser, password: string, address: string, where: string): Promise<void> {
+  const outcome = await ctx.db.transaction(async (tx) => {
+    const user = await findUserById(tx, me.id);
+    if (isLocked(user.lockedUntil)) return 'locked';
+    if (await checkPassword(password, user.passwordHash)) return 'ok';
+    await registerFailure(tx, user, address, where);
+    return 'wrong';
+  });
+  if (outcome === 'locked') throw new AppError('locked', 'Your account is locked after repeated wrong passwords; ask an administrator to unlock it');
+  if (outcome === 'wrong') throw new AppError('invalid_request', 'The password is wrong; the signature was not made', [{ path: 'password', message: 'The password is wrong' }]);
+}

@@ -1,0 +1,31 @@
+import { StudySettings } from '../../shared/schemas';
+import type { Executor } from '../db/client';
+import { loadRows } from '../specimens/input-hash';
+import type { StudyRow } from '../studies/studies.repository';
+import { findingsOf } from '../studies/study-view';
+
+/** Reasons a draft cannot be submitted yet, in words; empty when it can. */
+export async function submissionProblems(db: Executor, study: StudyRow): Promise<{ path: string; message: string }[]> {
+  const problems: { path: string; message: string }[] = [];
+  const s = StudySettings.parse(study.settings);
+  const findings = await findingsOf(db, study);
+  if (findings.status !== 'current') {
+    problems.push({ path: 'findings', message: findings.status === 'none' ? 'Run the analysis first' : 'The findings are out of date or not finished; run the analysis again' });
+  }
+  const rows = await loadRows(db, study.id);
+  for (const r of rows) if (r.excluded && !r.exclusionReason) problems.push({ path: `rows.${r.position - 1}.exclusionReason`, message: `row ${r.position}: excluded without a reason` });
+  if (study.kind === 'method-comparison') {
+    if (!s.decisionLevels.length) problems.push({ path: 'settings.decisionLevels', message: 'Name at least one medical decision level' });
+    if (s.allowableBiasAbsolute === null && s.allowableBiasPercent === null) problems.push({ path: 'settings.allowableBiasAbsolute', message: 'Set the allowable bias' });
+  }
+  if (study.kind !== 'interval-verify' && !s.allowableBiasSource && study.kind === 'method-comparison') {
+    problems.push({ path: 'settings.allowableBiasSource', message: 'Name the source of the allowable bias' });
+  }
+  if (study.kind === 'interval-verify' && (s.statedLower === null || s.statedUpper === null || !s.statedSource)) {
+    problems.push({ path: 'settings.statedSource', message: 'Give the stated interval and its source' });
+  }
+  if (study.kind === 'interval-establish' && !s.populationDescription.trim()) {
+    problems.push({ path: 'settings.populationDescription', message: 'Describe the reference population and the exclusion criteria used' });
+  }
+  return problems;
+}

@@ -1,0 +1,89 @@
+/**
+ * An audit event in words, for the History tab, the laboratory history page and the exports:
+ * "row 14: candidate result 5.2 → 5.4", never raw JSON. Shared by client and server.
+ */
+export interface AuditEventLike {
+  action: string; entity: string; entityId: string | null; before: unknown; after: unknown; reason: string | null;
+}
+
+type Obj = Record<string, unknown>;
+const isObj = (v: unknown): v is Obj => typeof v === 'object' && v !== null && !Array.isArray(v);
+const FIELD: Record<string, string> = {
+  comparative: 'comparative result', candidate: 'candidate result', value: 'value', label: 'specimen label', exclusionReason: 'exclusion reason',
+  ageBand: 'age band', note: 'note', excluded: 'excluded', sex: 'sex', allowableBiasAbsolute: 'allowable bias', allowableBiasPercent: 'allowable bias %',
+  allowableBiasSource: 'source of the allowable bias', decisionLevels: 'decision levels', plannedSpecimens: 'planned specimens', statedLower: 'stated lower limit',
+  statedUpper: 'stated upper limit', statedSource: 'source of the stated interval', confidenceLevel: 'confidence level', differenceType: 'difference type',
+  demingRatio: 'Deming error ratio', analyteId: 'analyte', comparativeInstrumentId: 'comparative instrument', candidateInstrumentId: 'candidate instrument',
+  instrumentId: 'instrument', outlierRule: 'outlier rule', acceptanceRule: 'acceptance rule', intervalMethod: 'interval method', partitionFields: 'partition fields',
+};
+const name = (f: string) => FIELD[f] ?? f.replace(/([A-Z])/g, ' $1').toLowerCase();
+
+export function show(v: unknown): string {
+  if (v === null || v === undefined || v === '') return '(empty)';
+  if (v === true) return 'yes';
+  if (v === false) return 'no';
+  if (Array.isArray(v)) return v.length ? v.map(show).join(', ') : '(none)';
+  if (isObj(v)) return Object.entries(v).map(([k, x]) => `${name(k)} ${show(x)}`).join(', ');
+  if (typeof v === 'number') return v.toLocaleString('en-US', { maximumFractionDigits: 10 });
+  return String(v);
+}
+
+const changesOf = (before: unknown, after: unknown): string[] => {
+  const b = isObj(before) ? before : {};
+  const a = isObj(after) ? after : {};
+  const out: string[] = [];
+  for (const k of new Set([...Object.keys(b), ...Object.keys(a)])) {
+    if (k === 'settings') out.push(...changesOf(b[k], a[k]));
+    else if (JSON.stringify(b[k]) !== JSON.stringify(a[k])) out.push(`${name(k)}: ${show(b[k])} → ${show(a[k])}`);
+  }
+  return out;
+};
+
+function rowLines(after: Obj): string[] {
+  const lines: string[] = [];
+  for (const c of (after.changes as { row: number; field: string; from: unknown; to: unknown }[]) ?? []) lines.push(`row ${c.row}: ${name(c.field)} ${show(c.from)} → ${show(c.to)}`);
+  if (Number(after.moreChanges) > 0) lines.push(`and ${after.moreChanges} more cell changes`);
+  for (const r of (after.added as Obj[]) ?? []) { const { row, ...rest } = r; lines.push(`row ${row} added: ${show(rest)}`); }
+  for (const r of (after.removed as Obj[]) ?? []) { const { row, ...rest } = r; lines.push(`row ${row} removed (was ${show(rest)})`); }
+  return lines.length ? lines : ['no cell changed'];
+}
+
+const HEADLINES: Record<string, (a: Obj, b: Obj) => string> = {
+  'study.created': (a) => `Study created: "${a.title ?? ''}"`,
+  'study.updated': () => 'Setup changed',
+  'study.plan-amended': (a) => `Plan changed after approval${a.afterData ? ', after data were entered' : ''}`,
+  'study.submitted': () => 'Submitted for sign-off',
+  'study.returned': () => 'Returned to draft by the director',
+  'study.signed': (a) => `Signed: ${a.meaning === 'accepted' ? 'accepted for patient testing' : 'not accepted for patient testing'}`,
+  'study.amended': (a) => `Amendment started; it supersedes study ${a.supersedes} once signed`,
+  'study.amendment-started': (a) => `An amendment was started as study ${a.amendment}`,
+  'plan.approved': () => 'Plan approved by the director',
+  'specimens.saved': (a, b) => `Specimen rows saved (${b.rowCount ?? 0} → ${a.rowCount ?? 0} rows)`,
+  'specimens.imported.replaced': (a) => `Rows replaced from an uploaded file (${a.rowCount} rows)`,
+  'specimens.imported.appended': (a) => `Rows appended from an uploaded file (now ${a.rowCount} rows)`,
+  'upload.received': (a) => `File "${a.fileName}" uploaded (${a.rows} rows, SHA-256 ${String(a.sha256 ?? '').slice(0, 12)}…)`,
+  'analysis.queued': (a) => `Analysis queued (seed ${a.seed}, ${show(a.resamples)} resamples, ${a.engineVersion})`,
+  'analysis.done': (a) => `Analysis finished in ${show(a.durationMs)} ms`,
+  'analysis.failed': (a) => `Analysis failed: ${a.error ?? 'unknown error'}`,
+  'signature.self-sign-allowed': () => 'The director signed rows they entered, as the laboratory setting allows',
+  'sign-in': () => 'Signed in',
+  'sign-out': () => 'Signed out',
+  'user.locked': () => 'Account locked after five wrong passwords',
+  'user.unlocked': () => 'Account unlocked',
+  'user.invited': (a) => `User invited: ${a.name} <${a.email}>`,
+  'password.changed': () => 'Password changed',
+};
+
+/** A headline and detail lines for one event. */
+export function describeEvent(e: AuditEventLike): { headline: string; details: string[] } {
+  const a = isObj(e.after) ? e.after : {};
+  const b = isObj(e.before) ? e.before : {};
+  const headline = HEADLINES[e.action]?.(a, b) ?? `${e.entity} ${e.action.split('.').slice(1).join(' ') || e.action}`;
+  let details: string[];
+  if (e.action.startsWith('specimens.')) details = rowLines(a);
+  else if (['study.updated', 'study.plan-amended', 'user.updated', 'analyte.updated', 'instrument.updated'].includes(e.action)) details = changesOf(b, a).filter((l) => !l.startsWith('after data'));
+  else if (['study.signed', 'study.submitted', 'study.returned'].includes(e.action)) details = a.contentHash ? [`content hash ${a.contentHash}`, ...(a.comment ? [`comment: ${a.comment}`] : [])] : [];
+  else details = [];
+  if (e.reason) details.push(`reason: ${e.reason}`);
+  return { headline, details };
+}
