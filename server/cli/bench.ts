@@ -1,7 +1,8 @@
 /**
  * `npm run bench [-- --json]`: median milliseconds of each workload (bench-workloads.ts) for n = 40, 120, 500,
  * 2,000 and 10,000 with B = 10,000 resamples, beside a plain sort-per-resample version timed in the same run.
- * Fewer repetitions for the large naive rows (shown in the runs columns); one warm-up run before timing.
+ * Fewer repetitions for the large rows (shown in the runs columns); a warm-up run before timing the small ones;
+ * from n = 2,000 the naive versions draw a tenth of the resamples and their time is multiplied by 10.
  */
 import { FULL_B, REGRESSION_RESAMPLES, takeCredit, WORKLOADS, type Workload } from './bench-workloads';
 import { useStyle, type SortStyle } from './bench-naive';
@@ -26,13 +27,13 @@ function medianMs(run: () => void, runs: number, warmUp: boolean): number {
 }
 
 function measure(w: Workload, n: number): Row {
-  const runs = n <= 500 ? 7 : n <= 2000 ? 5 : 3;
-  const naiveRuns = n <= 120 ? 5 : n <= 500 ? 3 : 1;
-  const ms = medianMs(() => w.engine(n, B), runs, true);
+  const runs = n <= 500 ? 7 : 3;
+  const naiveRuns = n <= 120 ? 3 : 1;
+  const ms = medianMs(() => w.engine(n, B), runs, n <= 500);
   const factor = n >= NAIVE_SCALED_FROM ? 10 : 1;
   const naive = (s: SortStyle): number => {
     useStyle(s);
-    return factor * medianMs(() => w.naive(n, B / factor), naiveRuns, n <= 500);
+    return factor * medianMs(() => w.naive(n, B / factor), naiveRuns, n <= 120);
   };
   const naiveMs = naive('plain');
   const typedSortMs = naive('typed');

@@ -1,0 +1,9 @@
+/** The parts of jStat (npm package "jstat", no bundled types) that the engine uses. */
+declare module 'jstat' {
+  export const jStat: {
+    gammaln(x: number): number;
+    erfc(x: number): number;
+    normal: { cdf(x: number, mean: number, sd: number): number; inv(p: number, mean: number, sd: number): number };
+    studentt: { cdf(x: number, dof: number): number; inv(p: number, dof: number): number };
+  };
+}

@@ -1,0 +1,34 @@
+import seedrandom from 'seedrandom';
+import { Xor4096, streamFor } from './rng';
+
+describe('Xor4096', () => {
+  it('gives the same 32-bit outputs as seedrandom.xor4096 for the same seed', () => {
+    const reference = seedrandom.xor4096('parallax');
+    const stream = new Xor4096('parallax');
+    for (let k = 0; k < 5000; k++) expect(stream.nextInt32()).toBe(reference.int32());
+  });
+
+  it('draws indices as Math.floor(seedrandom.xor4096(seed)() * n)', () => {
+    const reference = seedrandom.xor4096('seed-7');
+    const stream = new Xor4096('seed-7');
+    for (let k = 0; k < 2000; k++) expect(stream.nextIndex(37)).toBe(Math.floor(reference() * 37));
+  });
+
+  it('fills counts with the same draws as single index calls', () => {
+    const a = new Xor4096('s');
+    const b = new Xor4096('s');
+    const counts = new Int32Array(25);
+    for (let rep = 0; rep < 3; rep++) {
+      a.fillCounts(counts, 25);
+      const expected = new Int32Array(25);
+      for (let k = 0; k < 25; k++) expected[b.nextIndex(25)]++;
+      expect(Array.from(counts)).toEqual(Array.from(expected));
+    }
+    expect(a.nextInt32()).toBe(b.nextInt32());
+  });
+
+  it('gives each part of an analysis its own stream', () => {
+    expect(streamFor('1', 'a').nextInt32()).not.toBe(streamFor('1', 'b').nextInt32());
+    expect(streamFor('1', 'a').nextInt32()).toBe(streamFor('1', 'a').nextInt32());
+  });
+});

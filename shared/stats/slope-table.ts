@@ -1,0 +1,55 @@
+/**
+ * The pairwise slopes of Passing–Bablok regression, sorted once, each with the two rows it joins.
+ * For rows i < j with x_i ≤ x_j (rows taken in order of x, then y): S_ij = (y_j − y_i)/(x_j − x_i);
+ * a pair with equal x and different y has slope +∞; identical points (0/0) and slopes of exactly −1 are
+ * left out (Passing & Bablok 1983). K = the number of slopes below −1.
+ * Exact arithmetic on ties: inputs are compared as given (they carry the reported precision).
+ */
+export interface SlopeTable {
+  slopes: Float64Array;
+  first: Int32Array;
+  second: Int32Array;
+  /** Pairs left out (identical points or slope −1), as row pairs, for weighted counts. */
+  leftOut: Int32Array;
+  belowMinusOne: number;
+}
+
+export function slopeTable(x: ArrayLike<number>, y: ArrayLike<number>): SlopeTable {
+  const n = x.length;
+  const total = (n * (n - 1)) / 2;
+  const raw = new Float64Array(total);
+  const a = new Int32Array(total);
+  const b = new Int32Array(total);
+  const leftOut: number[] = [];
+  let count = 0;
+  for (let i = 0; i < n; i++) {
+    for (let j = i + 1; j < n; j++) {
+      const [lo, hi] = x[i] < x[j] || (x[i] === x[j] && y[i] <= y[j]) ? [i, j] : [j, i];
+      const dx = x[hi] - x[lo];
+      const dy = y[hi] - y[lo];
+      const slope = dx === 0 ? (dy === 0 ? NaN : Infinity) : dy / dx;
+      if (Number.isNaN(slope) || slope === -1) {
+        leftOut.push(i, j);
+        continue;
+      }
+      raw[count] = slope;
+      a[count] = i;
+      b[count] = j;
+      count++;
+    }
+  }
+  const order = new Uint32Array(count);
+  for (let k = 0; k < count; k++) order[k] = k;
+  order.sort((p, q) => raw[p] - raw[q] || p - q);
+  const slopes = new Float64Array(count);
+  const first = new Int32Array(count);
+  const second = new Int32Array(count);
+  let belowMinusOne = 0;
+  for (let k = 0; k < count; k++) {
+    slopes[k] = raw[order[k]];
+    first[k] = a[order[k]];
+    second[k] = b[order[k]];
+    if (slopes[k] < -1) belowMinusOne++;
+  }
+  return { slopes, first, second, leftOut: Int32Array.from(leftOut), belowMinusOne };
+}
