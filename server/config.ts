@@ -1,5 +1,5 @@
 import { randomBytes } from 'node:crypto';
-import { z } from 'zod';
+import * as z from 'zod';
 
 const Env = z.object({
   DATABASE_URL: z.string().url('DATABASE_URL must be a postgres:// URL'),

@@ -77,6 +77,6 @@ export async function exportStudy(db: Database, me: SignedInUser, studyId: numbe
   ]);
   sheet(wb, 'Signatures', [['Meaning', 'meaningWords', 30], ['Signed by', 'signerName', 24], ['Signed at (UTC)', 'signedAt', 24], ['Comment', 'comment', 40], ['Content hash', 'contentHash', 70], ['Verification code', 'verificationCode', 16], ['PDF SHA-256', 'pdfSha256', 70]], signatureRows);
   const history = await studyHistory(db, me, studyId);
-  sheet(wb, 'History', [['Time (UTC)', 'at', 24], ['Who', 'userName', 22], ['What', 'headline', 50], ['Details', 'details', 90]], history.map((h) => ({ ...h, details: h.details.join('\n') })));
+  sheet(wb, 'Audit history', [['Time (UTC)', 'at', 24], ['Who', 'userName', 22], ['What', 'headline', 50], ['Details', 'details', 90]], history.map((h) => ({ ...h, details: h.details.join('\n') })));
   return buffer(wb);
 }

@@ -6,6 +6,11 @@ import { AnalysisJobs } from '../analyses/analysis-jobs';
 import { toSignedIn } from '../auth/auth.service';
 import { putRows } from '../specimens/specimens.service';
 import { createStudy } from '../studies/studies.service';
+import type { AppContext } from '../context';
+import { MailService } from '../mail/mail-service';
+import { signStudy } from '../signoff/sign.service';
+import { submitStudy } from '../signoff/signoff.service';
+import { DEMO_PASSWORD } from './seed-data';
 import type { Database } from './client';
 import { analytes, instruments, studies, users } from './schema';
 
@@ -23,7 +28,8 @@ function pairs(seed: string, n: number, lo: number, hi: number, slope: number, o
   });
 }
 
-interface DemoComparison { title: string; analyte: string; purpose: string; rows: ReturnType<typeof pairs>; settings: StudySettingsPatch }
+type Finish = 'draft' | 'submitted' | 'signed';
+interface DemoComparison { title: string; analyte: string; purpose: string; rows: ReturnType<typeof pairs>; settings: StudySettingsPatch; finish: Finish }
 
 const COMPARISONS: DemoComparison[] = [
   {
@@ -32,6 +38,7 @@ const COMPARISONS: DemoComparison[] = [
     purpose: 'Verify the new chemistry line before it reports patient glucose results (invented demo study).',
     rows: pairs('vh-glucose', 60, 2.5, 25, 1.005, 0.02, 0.012, 1),
     settings: { seed: 'vh-glucose-2026', comparativeLot: 'GLU-4471', candidateLot: 'GLU-4502', runsFrom: '2026-11-02', runsTo: '2026-11-09', plannedSpecimens: 60 },
+    finish: 'signed',
   },
   {
     title: 'Creatinine: Chemistry line 2 against line 1',
@@ -39,6 +46,7 @@ const COMPARISONS: DemoComparison[] = [
     purpose: 'Verify creatinine on the new chemistry line; the candidate reads proportionally high (invented demo study).',
     rows: pairs('vh-creatinine', 80, 40, 900, 1.075, -2, 0.02, 0),
     settings: { seed: 'vh-creatinine-2026', comparativeLot: 'CRE-2210', candidateLot: 'CRE-2264', runsFrom: '2026-11-03', runsTo: '2026-11-12', plannedSpecimens: 80 },
+    finish: 'submitted',
   },
 ];
 
@@ -52,7 +60,7 @@ function referenceValues(seed: string, groups: { sex: string | null; n: number; 
   })));
 }
 
-interface DemoInterval { title: string; kind: 'interval-establish' | 'interval-verify'; analyte: string; instrument: string; purpose: string; rows: object[]; settings: StudySettingsPatch }
+interface DemoInterval { title: string; kind: 'interval-establish' | 'interval-verify'; analyte: string; instrument: string; purpose: string; rows: object[]; settings: StudySettingsPatch; finish: Finish }
 
 const INTERVALS: DemoInterval[] = [
   {
@@ -61,28 +69,41 @@ const INTERVALS: DemoInterval[] = [
     rows: referenceValues('vh-ri-creatinine', [{ sex: 'F', n: 120, median: 64, gsd: 1.16 }, { sex: 'M', n: 120, median: 82, gsd: 1.15 }], 0),
     settings: { seed: 'vh-ri-creatinine-2026', partitionFields: ['sex'], reagentLot: 'CRE-2264',
       populationDescription: 'Healthy adult volunteers aged 18–65 recruited among blood donors (invented); excluded: known kidney disease, pregnancy, diabetes, nephrotoxic medication, strenuous exercise within 24 h.' },
+    finish: 'draft',
   },
   {
     title: 'Potassium: verify the stated interval (Chemistry line 2)', kind: 'interval-verify', analyte: 'Potassium', instrument: 'Chemistry line 2',
     purpose: 'Verify that the manufacturer\'s potassium interval fits our population (invented demo study).',
     rows: referenceValues('vh-rv-potassium', [{ sex: null, n: 20, median: 4.2, gsd: 1.07 }], 1),
     settings: { seed: 'vh-rv-potassium-2026', statedLower: 3.5, statedUpper: 5.1, statedSource: 'Manufacturer\'s package insert (invented), adult serum' },
+    finish: 'signed',
   },
   {
     title: 'Thyrotropin: verify the stated interval (Immunoassay 1)', kind: 'interval-verify', analyte: 'Thyrotropin (TSH)', instrument: 'Immunoassay 1',
     purpose: 'Verify the published TSH interval for our population (invented demo study; it does not fit).',
     rows: referenceValues('vh-rv-tsh', [{ sex: null, n: 20, median: 3.1, gsd: 1.45 }], 2),
     settings: { seed: 'vh-rv-tsh-2026', statedLower: 0.4, statedUpper: 4.0, statedSource: 'Published study of another population (invented citation)' },
+    finish: 'draft',
   },
 ];
 
 /** The demo laboratory's analysed studies (skipped when a study of that title exists). */
-export async function seedDemoStudies(db: Database, labId: number): Promise<void> {
+export async function seedDemoStudies(db: Database, labId: number, publicUrl: string): Promise<void> {
   const [tech] = await db.select().from(users).where(eq(users.email, 'tech@valeharbor.example'));
   const me = toSignedIn(tech);
   const labInstruments = await db.select().from(instruments).where(eq(instruments.laboratoryId, labId));
   const byName = (n: string) => labInstruments.find((i) => i.name === n)!.id;
   const jobs = new AnalysisJobs(db, '');
+  const [director] = await db.select().from(users).where(eq(users.email, 'director@valeharbor.example'));
+  // No SMTP here: the mail the sign-off steps queue waits in the outbox until the app delivers it.
+  const ctx: AppContext = { db, jobs, mail: new MailService(db, undefined, ''), config: { publicUrl } as AppContext['config'] };
+  const finish = async (id: number, how: Finish) => {
+    if (how === 'draft') return;
+    await submitStudy(ctx, me, id);
+    if (how === 'signed') {
+      await signStudy(ctx, toSignedIn(director), id, { meaning: 'accepted', comment: 'Meets the laboratory goal at every decision level; released for patient testing.', password: DEMO_PASSWORD }, 'demo seed');
+    }
+  };
   for (const demo of COMPARISONS) {
     const exists = await db.select({ id: studies.id }).from(studies).where(and(eq(studies.laboratoryId, labId), eq(studies.title, demo.title)));
     if (exists.length) continue;
@@ -94,6 +115,7 @@ export async function seedDemoStudies(db: Database, labId: number): Promise<void
     const study = await createStudy(db, me, body);
     await putRows(db, me, study.id, study.version, demo.rows);
     await analyseNow(db, jobs, me, study.id);
+    await finish(study.id, demo.finish);
   }
   for (const demo of INTERVALS) {
     const exists = await db.select({ id: studies.id }).from(studies).where(and(eq(studies.laboratoryId, labId), eq(studies.title, demo.title)));
@@ -102,5 +124,6 @@ export async function seedDemoStudies(db: Database, labId: number): Promise<void
     const study = await createStudy(db, me, { kind: demo.kind, title: demo.title, purpose: demo.purpose, analyteId: analyte.id, instrumentId: byName(demo.instrument), settings: demo.settings });
     await putRows(db, me, study.id, study.version, demo.rows as Record<string, unknown>[]);
     await analyseNow(db, jobs, me, study.id);
+    await finish(study.id, demo.finish);
   }
 }

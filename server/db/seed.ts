@@ -9,7 +9,7 @@ import { seedDemoStudies } from './seed-studies';
 const SYSTEM = (laboratoryId: number) => ({ id: null, name: 'demo seed', laboratoryId });
 
 /** Seeds the demo laboratories once; running it again changes nothing. */
-export async function seedDemo(db: Database): Promise<void> {
+export async function seedDemo(db: Database, publicUrl = 'http://127.0.0.1:3000'): Promise<void> {
   const hash = await hashPassword(DEMO_PASSWORD);
   for (const lab of DEMO_LABS) {
     await db.transaction(async (tx) => {
@@ -32,7 +32,7 @@ export async function seedDemo(db: Database): Promise<void> {
     });
   }
   const [demo] = await db.select().from(laboratories).where(eq(laboratories.name, DEMO_LABS[0].name));
-  await seedDemoStudies(db, demo.id);
+  await seedDemoStudies(db, demo.id, publicUrl);
 }
 
 export const demoSignIns = (): string[] =>

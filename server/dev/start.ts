@@ -22,7 +22,7 @@ export async function main(): Promise<void> {
     await migrateDatabase(database.url);
     const seedDb = openDatabase(database.url, 2);
     cleanups.push(seedDb.close);
-    await seedDemo(seedDb.db);
+    await seedDemo(seedDb.db, process.env.PUBLIC_URL ?? `http://${process.env.HOST ?? "127.0.0.1"}:${process.env.PORT ?? 3000}`);
     log('migrations applied; demo laboratory ready');
     if (!(await buildClient())) throw new Error('the client did not build; see the messages above');
     const env: NodeJS.ProcessEnv = { ...process.env, DATABASE_URL: database.url };

@@ -1,5 +1,5 @@
 import multer from 'multer';
-import { z } from 'zod';
+import * as z from 'zod';
 import { ImportBody } from '../../shared/schemas';
 import type { AppContext } from '../context';
 import { parseRequest } from '../http/parse-request';

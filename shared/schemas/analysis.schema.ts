@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 
 export const AnalysisState = z.enum(['queued', 'running', 'done', 'failed']);
 export type AnalysisState = z.infer<typeof AnalysisState>;

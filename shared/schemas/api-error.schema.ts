@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 
 /** Every error the API answers has this shape. */
 export const ApiIssue = z.object({ path: z.string(), message: z.string() });

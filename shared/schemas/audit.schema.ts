@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 import { StudyKind, StudyState } from './study.schema';
 
 const day = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date like 2026-11-30');

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 import { Email, NewPassword } from './common.schema';
 import { Role } from './roles';
 

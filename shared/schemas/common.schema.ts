@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 
 /** A positive integer id in a route parameter such as /users/:id. */
 export const IdParams = z.object({ id: z.coerce.number().int().positive() });

@@ -1,13 +1,6 @@
-import { z } from 'zod';
+import * as z from 'zod';
+import { ROLES } from './role-names';
 
-/** The four roles of Parallax; a user may hold several. */
-export const ROLES = ['technologist', 'director', 'quality', 'admin'] as const;
+export { ROLE_LABELS, ROLES } from './role-names';
 export const Role = z.enum(ROLES);
 export type Role = z.infer<typeof Role>;
-
-export const ROLE_LABELS: Record<Role, string> = {
-  technologist: 'Technologist',
-  director: 'Laboratory director',
-  quality: 'Quality officer',
-  admin: 'Administrator',
-};

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 
 /** A result as typed or pasted: a number, a text with decimal point or comma, or empty. */
 export const ResultInput = z.union([z.number(), z.string().max(40), z.null()]);

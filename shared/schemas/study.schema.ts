@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 
 export const STUDY_KINDS = ['method-comparison', 'interval-establish', 'interval-verify'] as const;
 export const StudyKind = z.enum(STUDY_KINDS);
@@ -60,7 +60,14 @@ export const StudySettings = z.object({
   reagentLot: z.string().max(100).default(''),
 });
 export type StudySettings = z.infer<typeof StudySettings>;
-export const StudySettingsPatch = StudySettings.partial();
+/** Only the fields given: zod's .partial() would still fill in every default and overwrite stored values. */
+const shape = StudySettings.shape;
+type Shape = typeof shape;
+export const StudySettingsPatch = z.object(
+  Object.fromEntries(Object.entries(shape).map(([k, v]) => [k, (v.def.type === 'default' ? ((v as z.ZodDefault).unwrap() as z.ZodType) : (v as z.ZodType)).optional()])) as {
+    [K in keyof Shape]: z.ZodOptional<Shape[K] extends z.ZodDefault<infer T> ? T : Shape[K]>;
+  },
+);
 export type StudySettingsPatch = z.infer<typeof StudySettingsPatch>;
 
 const id = z.number().int().positive();

@@ -1,0 +1,247 @@
+import { expect, request, test, type APIRequestContext, type Download, type Page } from '@playwright/test';
+import { createHash } from 'node:crypto';
+import { mkdirSync, readFileSync, statSync } from 'node:fs';
+import path from 'node:path';
+
+const SCREENSHOTS = path.resolve(__dirname, '../.test-output/screenshots');
+const PASSWORD = 'parallax-demo';
+const QUALITY_STATE = path.resolve(__dirname, '../.test-output/quality-session.json');
+/** A fresh cookie jar, whatever `test.use` sets for the pages. */
+const NO_SESSION = { cookies: [], origins: [] };
+
+/** Sends the XSRF-TOKEN cookie back as the header, as Angular does; the token is read fresh each call. */
+async function send(api: APIRequestContext, method: 'post' | 'put', url: string, data: unknown) {
+  const { cookies } = await api.storageState();
+  const token = cookies.find((c) => c.name === 'XSRF-TOKEN')?.value ?? '';
+  const response = await api[method](url, { data, headers: { 'X-XSRF-TOKEN': token } });
+  expect(response.ok(), `${method.toUpperCase()} ${url} answered ${response.status()}: ${await response.text()}`).toBe(true);
+  return response.json();
+}
+
+/** An API session of one demo user (its own cookie jar). */
+async function apiAs(baseURL: string, email: string): Promise<APIRequestContext> {
+  const api = await request.newContext({ baseURL, storageState: NO_SESSION });
+  await api.get('/api/v1/session'); // 401, but it sets the XSRF-TOKEN cookie
+  await send(api, 'post', '/api/v1/session', { email, password: PASSWORD });
+  return api;
+}
+
+/** 40 invented glucose pairs (mmol/L) across 3–20, the candidate about 1% higher, with a small fixed wobble. */
+function inventedRows() {
+  const wobble = [0.1, -0.1, 0, 0.1, -0.1, 0, 0.05, -0.05];
+  return Array.from({ length: 40 }, (_, i) => {
+    const comparative = Math.round((3 + (17 * i) / 39) * 10) / 10;
+    const candidate = Math.round((comparative * 1.01 + wobble[i % wobble.length]) * 10) / 10;
+    return { label: `AU-${String(i + 1).padStart(3, '0')}`, comparative, candidate };
+  });
+}
+
+/** The analyte's unit, decision levels and allowable bias with its source, as study settings. */
+function goalOf(analyte: Record<string, unknown>): Record<string, unknown> {
+  const keys = ['unit', 'decimals', 'decisionLevels', 'allowableBiasAbsolute', 'allowableBiasPercent', 'allowableBiasSource'];
+  return Object.fromEntries(keys.filter((k) => analyte[k] !== undefined).map((k) => [k, analyte[k]]));
+}
+
+/** A technologist enters, analyses and submits a glucose comparison; the director signs it as accepted. */
+async function signedStudy(baseURL: string, title: string): Promise<number> {
+  const tech = await apiAs(baseURL, 'tech@valeharbor.example');
+  const analytes: Record<string, unknown>[] & { id: number; name: string; unit: string }[] = await (await tech.get('/api/v1/analytes')).json();
+  const instruments: { id: number; name: string }[] = await (await tech.get('/api/v1/instruments')).json();
+  const glucose = analytes.find((a) => a.name === 'Glucose' && a.unit === 'mmol/L') ?? analytes.find((a) => a.name === 'Glucose');
+  expect(glucose, 'the demo catalog has Glucose').toBeTruthy();
+  expect(instruments.length).toBeGreaterThanOrEqual(2);
+  const study = await send(tech, 'post', '/api/v1/studies', {
+    kind: 'method-comparison', title, analyteId: glucose!.id,
+    comparativeInstrumentId: instruments[0].id, candidateInstrumentId: instruments[1].id,
+    // The analyte's goal is passed on too: the server's settings patch fills in every default, so
+    // without them the new study would lose the decision levels and allowable bias it copies in.
+    settings: { resamples: 1000, regressionResamples: 1000, ...goalOf(glucose!) },
+  });
+  const fresh = await (await tech.get(`/api/v1/studies/${study.id}`)).json();
+  await send(tech, 'put', `/api/v1/studies/${study.id}/specimens`, { version: fresh.version, rows: inventedRows() });
+  const { id: analysisId } = await send(tech, 'post', `/api/v1/studies/${study.id}/analyses`, {});
+  await expect
+    .poll(async () => (await (await tech.get(`/api/v1/analyses/${analysisId}`)).json()).state, { timeout: 120_000, intervals: [500, 1000, 2000] })
+    .toBe('done');
+  await send(tech, 'post', `/api/v1/studies/${study.id}/submit`, {});
+  await tech.dispose();
+  const director = await apiAs(baseURL, 'director@valeharbor.example');
+  await send(director, 'post', `/api/v1/studies/${study.id}/sign`, { meaning: 'accepted', comment: 'Bias within goal at all three decision levels.', password: PASSWORD });
+  await director.dispose();
+  return study.id;
+}
+
+async function signIn(page: Page, email: string): Promise<void> {
+  await page.goto('/sign-in');
+  await page.getByTestId('email').fill(email);
+  await page.getByTestId('password').fill(PASSWORD);
+  await page.getByTestId('sign-in').click();
+  await expect(page.getByTestId('welcome')).toBeVisible();
+}
+
+/**
+ * A screenshot once the web fonts (text and icons) have loaded and nothing is still loading. The shell
+ * scrolls inside its content pane, so `whole` grows the window to the content's height for one shot.
+ */
+async function shoot(page: Page, name: string, whole = false): Promise<void> {
+  await expect(page.locator('mat-progress-bar')).toHaveCount(0);
+  await page.evaluate(async () => {
+    await document.fonts.ready;
+    await Promise.all(document.getAnimations().map((animation) => animation.finished));
+  });
+  const viewport = page.viewportSize()!;
+  if (whole) {
+    const height = await page.evaluate(() => (document.querySelector('mat-sidenav-content')?.scrollHeight ?? document.body.scrollHeight) + 64);
+    await page.setViewportSize({ width: viewport.width, height: Math.max(height, viewport.height) });
+  }
+  await page.screenshot({ path: `${SCREENSHOTS}/${name}.png`, fullPage: whole });
+  await page.setViewportSize(viewport);
+}
+
+/** A downloaded file is a non-empty .xlsx: a zip archive, so it starts with "PK". */
+async function expectXlsx(download: Download): Promise<void> {
+  expect(download.suggestedFilename()).toMatch(/\.xlsx$/);
+  const saved = path.resolve(__dirname, '../.test-output/downloads', download.suggestedFilename());
+  await download.saveAs(saved);
+  expect(statSync(saved).size).toBeGreaterThan(1000);
+  expect(readFileSync(saved).subarray(0, 2).toString()).toBe('PK');
+}
+
+/** Buttons and links whose words would change a study; the quality officer must see none. */
+const CHANGES_A_STUDY = /^\s*(submit|sign(?! out)|edit|return|amend|approve|delete|remove|save|run|upload|import|new study)\b/i;
+
+test.describe('the quality officer audits a study the laboratory signed', () => {
+  let id = 0;
+  const title = `Audit check: glucose line 2 against line 1 (${Date.now()})`;
+
+  // The quality officer signs in through the page once; each test then opens its own tab in that session
+  // (sign-ins are rate-limited per address, so the tests do not sign in again and again).
+  test.use({ storageState: QUALITY_STATE });
+
+  test.beforeAll(async ({ browser, baseURL }) => {
+    test.setTimeout(180_000);
+    mkdirSync(SCREENSHOTS, { recursive: true });
+    id = await signedStudy(baseURL!, title);
+    const context = await browser.newContext({ baseURL, storageState: NO_SESSION });
+    await signIn(await context.newPage(), 'quality@valeharbor.example');
+    await context.storageState({ path: QUALITY_STATE });
+    await context.close();
+  });
+
+  test.beforeEach(async ({ page }) => {
+    await page.goto('/');
+    await expect(page.getByTestId('user-roles')).toHaveText('Quality officer');
+  });
+
+  test('finds the study in the Archive by its title and downloads the list', async ({ page }) => {
+    await page.getByTestId('nav-archive').click();
+    await expect(page.getByRole('heading', { level: 1, name: 'Archive' })).toBeVisible();
+    await expect(page.getByTestId('caution')).toContainText('Decision support only');
+    await page.getByTestId('archive-q').fill(title);
+    await expect(page).toHaveURL(/[?&]q=/);
+    const row = page.getByTestId(`archive-row-${id}`);
+    await expect(row).toBeVisible();
+    await expect(page.getByTestId('archive-count')).toHaveText('1 study matches');
+    await expect(row).toContainText('Signed');
+    await expect(row).toContainText('Accepted for patient testing');
+    await expect(row.getByTestId('verdict')).toContainText(/Within goal|Inconclusive|Exceeds goal/);
+    // Times are the laboratory's; the column header names the zone.
+    await expect(page.getByRole('columnheader', { name: /Created/ })).toContainText(/\(([A-Za-z_]+\/[A-Za-z_/]+|UTC) time\)/);
+    await expect(row).toContainText(/\d{1,2} [A-Z][a-z]{2} \d{4}, \d\d:\d\d/);
+    await shoot(page, 'archive');
+    const [download] = await Promise.all([page.waitForEvent('download', { timeout: 30_000 }), page.getByTestId('archive-download').click()]);
+    await expectXlsx(download);
+    await row.click();
+    await expect(page).toHaveURL(new RegExp(`/archive/${id}$`));
+  });
+
+  test('opens the audit record: the signature, the signed PDF, both re-checks passing, and nothing that changes a study', async ({ page }) => {
+    await page.goto(`/archive/${id}`);
+    await expect(page.getByTestId('record-title')).toHaveText(title);
+    await expect(page.getByTestId('study-state')).toHaveText('Signed');
+    await expect(page.getByTestId('caution')).toBeVisible();
+    const signature = page.locator('[data-meaning="accepted"]');
+    await expect(signature).toContainText('Accepted for patient testing');
+    await expect(signature).toContainText('Bias within goal at all three decision levels.');
+    await expect(signature.getByTestId('content-hash')).toHaveText(/^[0-9a-f]{64}$/);
+    await expect(signature.getByTestId('verification-code')).not.toBeEmpty();
+    await expect(page.getByTestId('study-history')).toContainText('Signed: accepted for patient testing');
+
+    // The signed PDF opens in a new tab, and its bytes are the ones the signature names.
+    const pdfLink = page.getByTestId('open-pdf');
+    await expect(pdfLink).toHaveText(/Open signed PDF/);
+    await expect(pdfLink).toHaveAttribute('target', '_blank');
+    const pdf = await page.request.get((await pdfLink.getAttribute('href'))!);
+    const bytes = await pdf.body();
+    expect(bytes.subarray(0, 5).toString()).toBe('%PDF-');
+    await expect(signature).toContainText(createHash('sha256').update(bytes).digest('hex'));
+
+    // Both re-checks pass, check by check, in words, and each is recorded in the study's history.
+    await page.getByTestId('check-integrity').click();
+    await expect(page.getByTestId('integrity-outcome')).toContainText('Passed. All 4 checks passed');
+    for (const name of ['Content hash', 'Signed PDF', 'Analysis input', 'History chain']) {
+      await expect(page.getByTestId(`check-${name}`)).toContainText(`${name}: passed`);
+    }
+    await page.getByTestId('reproduce-results').click();
+    await expect(page.getByTestId('reproduce-outcome')).toContainText('Passed. Re-running the analysis gave identical results');
+    await expect(page.getByTestId('differences')).toHaveCount(0);
+    const history = page.getByTestId('study-history');
+    await expect(history.locator('[data-action="integrity.checked"]')).not.toHaveCount(0);
+    await expect(history.locator('[data-action="reproduce.checked"]')).not.toHaveCount(0);
+    await shoot(page, 'audit-record');
+    await shoot(page, 'audit-record-full', true);
+
+    // Nothing on the record changes a study.
+    const words = await page.locator('main').locator('button, a').allInnerTexts();
+    expect(words.length).toBeGreaterThan(3);
+    expect(words.filter((w) => CHANGES_A_STUDY.test(w.replace(/^[a-z_]+\s/, '')))).toEqual([]);
+
+    // Printed, the record keeps its content and drops the navigation and the buttons.
+    await page.emulateMedia({ media: 'print' });
+    await expect(page.locator('mat-sidenav')).toBeHidden();
+    await expect(page.getByTestId('check-integrity')).toBeHidden();
+    await expect(page.getByTestId('record-title')).toBeVisible();
+    await shoot(page, 'audit-record-print', true);
+  });
+
+  test('downloads the study’s full record as a non-empty .xlsx', async ({ page }) => {
+    await page.goto(`/archive/${id}`);
+    await expect(page.getByTestId('record-title')).toHaveText(title);
+    const [download] = await Promise.all([page.waitForEvent('download', { timeout: 30_000 }), page.getByTestId('download-record').click()]);
+    expect(download.suggestedFilename()).toBe(`parallax-study-${id}.xlsx`);
+    await expectXlsx(download);
+  });
+
+  test('reads the laboratory history of the study, with a link back to its record', async ({ page }) => {
+    await page.getByTestId('nav-history').click();
+    await expect(page.getByRole('heading', { level: 1, name: 'History' })).toBeVisible();
+    await page.getByTestId('history-study').fill(String(id));
+    await expect(page).toHaveURL(new RegExp(`studyId=${id}`));
+    const signed = page.locator('[data-action="study.signed"]');
+    await expect(signed).toHaveCount(1);
+    await expect(signed).toContainText('Signed: accepted for patient testing');
+    await expect(page.locator('[data-action="study.created"]')).toContainText(title);
+    await shoot(page, 'history');
+    await signed.getByRole('link', { name: `Study ${id}` }).click();
+    await expect(page.getByTestId('record-title')).toHaveText(title);
+  });
+
+  test('cannot open the laboratory settings, which are for administrators', async ({ page }) => {
+    await expect(page.getByTestId('nav-laboratory')).toHaveCount(0);
+    await page.goto('/admin/laboratory');
+    await expect(page).toHaveURL(/\/$/);
+    await expect(page.locator('mat-snack-bar-container')).toContainText('Your roles do not include that page.');
+  });
+});
+
+test('an administrator reads the laboratory settings in plain words', async ({ page }) => {
+  mkdirSync(SCREENSHOTS, { recursive: true });
+  await signIn(page, 'admin@valeharbor.example');
+  await page.getByTestId('nav-laboratory').click();
+  await expect(page.getByRole('heading', { level: 1, name: 'Laboratory' })).toBeVisible();
+  await expect(page.getByTestId('lab-time-zone')).toHaveValue(/^[A-Za-z_]+(\/[A-Za-z_+-]+)*$/);
+  await expect(page.getByTestId('lab-plan-approval')).toContainText('Plan approval before data');
+  await expect(page.locator('main')).toContainText("Specimens can be entered only after a director approved the study's plan.");
+  await expect(page.locator('main')).toContainText('A director may sign a study whose rows they entered (each such signature is recorded in the history).');
+  await shoot(page, 'laboratory');
+});

@@ -1,0 +1,139 @@
+import { expect, test, type Locator, type Page } from '@playwright/test';
+import { mkdirSync } from 'node:fs';
+import path from 'node:path';
+
+const SCREENSHOTS = path.resolve(__dirname, '../.test-output/screenshots');
+
+/**
+ * 40 invented glucose pairs (mmol/L) across 3–20: the candidate reads about 1% higher plus 0.05, with a
+ * small fixed wobble. A header line leads the block, a few cells use a decimal comma, and row 17's
+ * candidate result is the typing error "5,x".
+ */
+function inventedPairs(): { text: string; badRow: number } {
+  const badRow = 17;
+  const wobble = [0.1, -0.1, 0, 0.2, -0.2, 0.1, 0, -0.1];
+  const lines = ['Specimen\tCurrent method\tNew method'];
+  for (let i = 0; i < 40; i++) {
+    const x = Math.round((3 + (17 * i) / 39) * 10) / 10;
+    const y = Math.round((x * 1.01 + 0.05 + wobble[i % wobble.length]) * 10) / 10;
+    const label = `VH-${String(i + 1).padStart(3, '0')}`;
+    const comma = i % 5 === 0;
+    const write = (v: number): string => (comma ? v.toFixed(1).replace('.', ',') : v.toFixed(1));
+    lines.push(`${label}\t${write(x)}\t${i + 1 === badRow ? '5,x' : write(y)}`);
+  }
+  return { text: `${lines.join('\r\n')}\r\n`, badRow };
+}
+
+async function signIn(page: Page): Promise<void> {
+  await page.goto('/sign-in');
+  await page.getByTestId('email').fill('tech@valeharbor.example');
+  await page.getByTestId('password').fill('parallax-demo');
+  await page.getByTestId('sign-in').click();
+  await expect(page.getByTestId('welcome')).toBeVisible();
+}
+
+async function choose(page: Page, select: Locator, option: string | RegExp): Promise<void> {
+  await select.click();
+  await page.getByRole('option', { name: option }).first().click();
+}
+
+/** Closes the snack bar, if one is open, so it does not cover a screenshot. */
+async function closeNotice(page: Page): Promise<void> {
+  const notice = page.locator('mat-snack-bar-container');
+  if (await notice.count()) await notice.getByRole('button').click();
+  await expect(notice).toHaveCount(0);
+}
+
+/**
+ * The whole page in one picture: the shell scrolls inside its content pane, so the viewport is made as
+ * tall as that pane's content for the shot, then put back to 1366×768.
+ */
+async function fullShot(page: Page, file: string): Promise<void> {
+  const height = await page.evaluate(() => {
+    const pane = document.querySelector('mat-sidenav-content');
+    return Math.ceil((pane?.scrollHeight ?? document.body.scrollHeight) + (pane?.getBoundingClientRect().top ?? 0));
+  });
+  await page.setViewportSize({ width: 1366, height: Math.max(768, height) });
+  await page.waitForTimeout(400);
+  await page.screenshot({ path: path.join(SCREENSHOTS, file) });
+  await page.setViewportSize({ width: 1366, height: 768 });
+}
+
+/** A grid cell by row index and column. */
+const cell = (page: Page, row: number, column: string): Locator =>
+  page.locator(`[role="row"][row-index="${row}"] [role="gridcell"][col-id="${column}"]`);
+
+test('a technologist compares two chemistry lines: pastes 40 pairs, fixes a bad cell, runs the analysis and reads the findings', async ({
+  page, context, baseURL,
+}) => {
+  test.setTimeout(180_000);
+  mkdirSync(SCREENSHOTS, { recursive: true });
+  await context.grantPermissions(['clipboard-read', 'clipboard-write'], { origin: baseURL });
+  await signIn(page);
+
+  // Setup: a new method comparison of glucose, line 1 (comparative) against line 2 (candidate).
+  await page.getByTestId('nav-studies').click();
+  await page.getByTestId('study-new').click();
+  const title = `Glucose: Chemistry line 2 against line 1 (${Date.now()})`;
+  await page.getByTestId('setup-title').fill(title);
+  await choose(page, page.getByTestId('setup-analyte'), /^Glucose \(mmol\/L\)/);
+  await expect(page.getByTestId('setup-unit')).toHaveValue('mmol/L');
+  await expect(page.getByTestId('setup-levels')).not.toHaveValue('');
+  await expect(page.getByTestId('setup-seed')).toHaveValue(/^[0-9a-f]{12}$/);
+  await choose(page, page.getByTestId('setup-comparative'), 'Chemistry line 1');
+  await choose(page, page.getByTestId('setup-candidate'), 'Chemistry line 2');
+  await page.getByTestId('setup-save').click();
+  await expect(page).toHaveURL(/\/studies\/\d+\/specimens$/);
+  await expect(page.getByTestId('study-title')).toHaveText(title);
+
+  // Specimens: paste the block from the clipboard with a real Ctrl+V at the first cell.
+  const { text, badRow } = inventedPairs();
+  await page.evaluate((block) => navigator.clipboard.writeText(block), text);
+  await cell(page, 0, 'label').click();
+  await page.keyboard.press('Control+V');
+  await expect(page.getByTestId('row-count')).toHaveText('40 rows');
+  await expect(cell(page, 0, 'label')).toHaveText('VH-001');
+  await expect(cell(page, 0, 'comparative')).toHaveText('3.0');
+
+  // The bad cell is marked at once, named in the summary, and the server refuses to save it.
+  const bad = cell(page, badRow - 1, 'candidate');
+  await expect(bad).toHaveClass(/cell-problem/);
+  await expect(page.locator('[role="gridcell"].cell-problem')).toHaveCount(1);
+  await expect(page.getByTestId('problems')).toContainText(`row ${badRow}: candidate result is not a number`);
+  await expect(page.getByTestId('save-state')).toContainText(`Not saved: row ${badRow}: candidate result`);
+
+  // Fix it by typing over it; the mark goes and the rows are saved.
+  await bad.click();
+  await page.keyboard.type('10.2');
+  await page.keyboard.press('Enter');
+  await expect(bad).toHaveText('10.2');
+  await expect(bad).not.toHaveClass(/cell-problem/);
+  await expect(page.getByTestId('problems')).toHaveCount(0);
+  await expect(page.getByTestId('save-state')).toHaveText('Saved', { timeout: 20_000 });
+  await expect(page.getByTestId('study-n')).toHaveText('n = 40');
+  await closeNotice(page);
+  await page.screenshot({ path: path.join(SCREENSHOTS, 'specimens.png') });
+
+  // Findings: run the analysis, follow it, and read the verdict and the plots.
+  await page.getByTestId('tab-findings').click();
+  await expect(page.getByTestId('caution')).toContainText('Decision support only');
+  await page.getByTestId('run-analysis').click();
+  await expect(page.getByTestId('verdict-panel')).toBeVisible({ timeout: 120_000 });
+  await expect(page.getByTestId('verdict').first()).toHaveText(/Within|Inconclusive|Exceeds/);
+  await expect(page.getByTestId('median-bias')).toContainText('Shifted-null bootstrap test');
+  await expect(page.getByTestId('study-findings')).toHaveText('Findings up to date');
+  for (const plot of ['plot-scatter', 'plot-difference', 'plot-null', 'plot-bias']) {
+    const canvas = page.getByTestId(plot).locator('canvas');
+    await expect(canvas).toBeVisible();
+    const painted = await canvas.evaluate((c: HTMLCanvasElement) => {
+      const data = c.getContext('2d')!.getImageData(0, 0, c.width, c.height).data;
+      let inked = 0;
+      for (let i = 3; i < data.length; i += 4) if (data[i] > 0) inked++;
+      return { width: c.width, height: c.height, inked };
+    });
+    expect(painted.width).toBeGreaterThan(200);
+    expect(painted.height).toBeGreaterThan(200);
+    expect(painted.inked).toBeGreaterThan(1000);
+  }
+  await fullShot(page, 'findings.png');
+});

@@ -1,0 +1,73 @@
+import { expect, test, type Page } from '@playwright/test';
+import path from 'node:path';
+import { navigationFor } from '../src/app/core/layout/navigation';
+
+const SCREENSHOTS = path.resolve(__dirname, '../.test-output/screenshots');
+
+async function shoot(page: Page, name: string): Promise<void> {
+  await page.evaluate(async () => {
+    await document.fonts.ready;
+    await Promise.all(document.getAnimations().map((animation) => animation.finished.catch(() => undefined)));
+  });
+  await page.screenshot({ path: `${SCREENSHOTS}/${name}.png` });
+}
+
+async function signIn(page: Page, email: string, password: string): Promise<void> {
+  await page.getByTestId('email').fill(email);
+  await page.getByTestId('password').fill(password);
+  await page.getByTestId('sign-in').click();
+  await expect(page.getByTestId('welcome')).toBeVisible();
+}
+
+test('an administrator invites a technologist, who sets a password from the e-mail and signs in', async ({ page }) => {
+  const email = `new.tech.${Date.now()}@valeharbor.example`;
+  const password = `harbour-${Date.now()}-lights`;
+
+  await page.goto('/sign-in');
+  await signIn(page, 'admin@valeharbor.example', 'parallax-demo');
+  await page.getByTestId('nav-users').click();
+  await page.getByTestId('invite-user').click();
+  const dialog = page.getByRole('dialog');
+  await dialog.getByTestId('user-name-input').fill('Noor Newcomer');
+  await dialog.getByTestId('user-email-input').fill(email);
+  await dialog.getByTestId('role-technologist').getByRole('checkbox').check();
+  await shoot(page, 'invite-dialog');
+  await dialog.getByTestId('user-save').click();
+  await expect(dialog).toBeHidden();
+  const row = page.getByTestId(`user-${email}`);
+  await expect(row).toContainText('Invited — no password yet');
+  await expect(row).toContainText('Technologist');
+
+  await page.getByTestId('nav-mailbox').click();
+  const message = page.getByTestId('mail-list').getByRole('button').filter({ hasText: email });
+  await expect(async () => {
+    await page.getByTestId('mailbox-refresh').click();
+    await expect(message.first()).toBeVisible({ timeout: 2_000 });
+  }).toPass({ timeout: 30_000 });
+  await message.first().click();
+  const link = page.getByTestId('mail-body').locator('a[href*="/set-password/"]');
+  await expect(link).toHaveCount(1);
+  await shoot(page, 'mailbox-invitation');
+  const href = await link.getAttribute('href');
+  await link.click();
+
+  await expect(page).toHaveURL(/\/set-password\//);
+  await expect(page.getByTestId('link-for')).toContainText(email);
+  await page.getByTestId('new-password').fill(password);
+  await page.getByTestId('repeat-password').fill(password);
+  await shoot(page, 'set-password');
+  await page.getByTestId('save-password').click();
+
+  await expect(page).toHaveURL(/\/sign-in/);
+  await expect(page.getByTestId('email')).toHaveValue(email);
+  await expect(page.getByText('Your password is set.')).toBeVisible();
+  await signIn(page, email, password);
+  await expect(page.getByTestId('user-name')).toHaveText('Noor Newcomer');
+  const shown = await page.locator('nav [data-testid^="nav-"]').evaluateAll((links) => links.map((a) => a.getAttribute('data-testid')));
+  expect(shown).toEqual(navigationFor(['technologist']).map((item) => `nav-${item.id}`));
+  expect(shown).not.toContain('nav-users');
+
+  // The link works once.
+  await page.goto(href!);
+  await expect(page.getByTestId('banner')).toContainText('This link is not valid or has expired');
+});

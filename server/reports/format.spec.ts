@@ -1,0 +1,31 @@
+import { num, percent, pValue, range, withCi } from './format';
+import { laboratoryTime, utcOffset } from './time-zone';
+
+describe('report number formats', () => {
+  it('prints a true minus sign and no sign on a rounded zero', () => {
+    expect(num(-0.071, 2)).toBe('−0.07');
+    expect(num(-0.001, 2)).toBe('0.00');
+    expect(num(1.25, 1)).toBe('1.3');
+    expect(num(null, 2)).toBe('—');
+    expect(num(Number.NaN, 2)).toBe('—');
+  });
+
+  it('prints intervals, estimates with CIs, p-values and levels', () => {
+    expect(range([-0.19, 0.08], 2)).toBe('−0.19 to 0.08');
+    expect(withCi({ estimate: 0.5, ci: [0.3, 0.6] }, 2)).toBe('0.50 (0.30 to 0.60)');
+    expect(withCi({ estimate: null, ci: null }, 2)).toBe('— (—)');
+    expect(pValue(0.0004)).toBe('< 0.001');
+    expect(pValue(0.0431)).toBe('0.043');
+    expect(percent(0.95)).toBe('95%');
+    expect(percent(0.975)).toBe('97.5%');
+  });
+});
+
+describe("times in the laboratory's zone", () => {
+  it('names the zone and the offset in force, summer time included', () => {
+    expect(laboratoryTime(new Date('2026-12-02T13:14:00Z'), 'America/Halifax')).toBe('2026-12-02 09:14 America/Halifax (UTC−04:00)');
+    expect(laboratoryTime(new Date('2026-07-02T13:14:00Z'), 'America/Halifax')).toBe('2026-07-02 10:14 America/Halifax (UTC−03:00)');
+    expect(laboratoryTime(new Date('2026-12-31T23:30:00Z'), 'Asia/Kolkata')).toBe('2027-01-01 05:00 Asia/Kolkata (UTC+05:30)');
+    expect(utcOffset(new Date('2026-12-02T00:00:00Z'), 'UTC')).toBe('UTC+00:00');
+  });
+});

@@ -1,0 +1,51 @@
+import { renderStudyReport } from './render-report';
+import type { EstablishFindings, VerifyFindings } from './report-model';
+import { comparisonReport, establishReport, verifyReport } from './testing/fixtures';
+import { flat, pdfPages } from './testing/pdf-text';
+
+describe('the reports of reference-interval studies', () => {
+  it('prints the established limits with both CIs, the method and why, the partition test and the histogram', async () => {
+    const report = establishReport(130);
+    const results = report.results as EstablishFindings;
+    const text = flat(pdfPages(await renderStudyReport(report)));
+    const lower = results.lower!;
+    expect(text).toContain('Reference interval establishment: study report');
+    expect(text).toContain(`Lower limit 2.5th ${lower.estimate!.toFixed(1)} ${lower.ci![0].toFixed(1)} to ${lower.ci![1].toFixed(1)} ${lower.rankCi![0].toFixed(1)} to ${lower.rankCi![1].toFixed(1)} ${lower.ranks!.lowerRank}–${lower.ranks!.upperRank}`);
+    expect(text).toContain(`Values ${results.n} analysed; ${results.excludedCount} excluded of 130`);
+    expect(text).toContain('Why this method Makes no assumption about the shape of the distribution');
+    expect(text).toContain('Partition by sex (Harris & Boyd)');
+    expect(text).toContain(`z = ${results.partitions[0].z!.toFixed(2)} against z* = ${results.partitions[0].zCritical!.toFixed(2)}`);
+    expect(text).toContain(`Histogram of ${results.n} values`);
+    expect(text).toContain('On diuretics (questionnaire)');
+  });
+
+  it('prints a failed verification in words with the binomial probability and the advice', async () => {
+    const report = verifyReport(20, { lower: 137, upper: 143 });
+    const results = report.results as VerifyFindings;
+    expect(results.accepted).toBe(false);
+    const text = flat(pdfPages(await renderStudyReport(report)));
+    expect(text).toContain(`Not accepted: ${results.outside} of ${results.n} values outside the stated interval (at most ${results.allowedOutside} allowed)`);
+    expect(text).toContain(`P = ${results.probability.toFixed(3)} of ${results.outside} or more outside`);
+    expect(text).toContain('test 20 more reference individuals');
+    expect(text).toContain(`${results.n} local values`);
+    expect(text.split('Outside the stated interval').length - 1).toBe(results.outside);
+  });
+
+  it('prints an accepted verification as accepted', async () => {
+    const report = verifyReport(20, { lower: 130, upper: 150 });
+    expect((report.results as VerifyFindings).accepted).toBe(true);
+    const text = flat(pdfPages(await renderStudyReport(report)));
+    expect(text).toContain('Accepted: 0 of 19 values outside the stated interval');
+    expect(text).not.toContain('Not accepted');
+  });
+
+  it.each([
+    ['method-comparison', comparisonReport(12)],
+    ['interval-establish', establishReport(30)],
+    ['interval-verify', verifyReport(20)],
+  ] as const)('renders a %s study without an analysis, saying there are no findings', async (_kind, report) => {
+    const pages = pdfPages(await renderStudyReport({ ...report, results: null, signature: null, draft: true }));
+    expect(flat(pages)).toContain('so no findings are shown');
+    expect(flat(pages[pages.length - 1])).toContain('Decision support only.');
+  });
+});

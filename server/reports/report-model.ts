@@ -1,0 +1,53 @@
+import type { SpecimenRow, StudyKind, StudySettings, StudyState } from '../../shared/schemas';
+import type { ComparisonResult, EngineInfo, IntervalResult, VerifyIntervalResult } from '../../shared/stats';
+
+/**
+ * Everything the verification PDF prints, as plain data: the renderer does no I/O and reads no clock,
+ * so the same StudyReport always gives the same bytes. The server builds it from the database at
+ * signing (or for a DRAFT preview); times are Date objects, printed in the laboratory's time zone.
+ */
+export interface StudyReport {
+  laboratory: { name: string; timeZone: string };
+  study: { id: number; kind: StudyKind; title: string; purpose: string; state: StudyState; supersedesId: number | null };
+  analyte: { name: string; unit: string };
+  instruments: { comparative?: InstrumentInfo; candidate?: InstrumentInfo; instrument?: InstrumentInfo };
+  settings: StudySettings;
+  engineVersion: string;
+  rows: ReportRow[];
+  /** The stored analysis results for the study's kind, or null when there is no current analysis. */
+  results: ReportResults | null;
+  amendments: Amendment[];
+  planApproval?: PlanApproval | null;
+  signature?: ReportSignature | null;
+  /** SHA-256 of the signed content, 64 hex digits. */
+  contentHash: string;
+  verificationCode: string;
+  draft: boolean;
+  generatedAt: Date;
+}
+
+export interface InstrumentInfo { name: string; model: string; serial: string }
+
+/** A stored specimen row; the *Text fields, when given, keep the precision as reported. */
+export type ReportRow = Pick<SpecimenRow,
+  'position' | 'label' | 'comparative' | 'candidate' | 'value' | 'sex' | 'ageBand' | 'excluded' | 'exclusionReason' | 'note'
+> & Partial<Pick<SpecimenRow, 'comparativeText' | 'candidateText' | 'valueText'>>;
+
+/** A criterion changed after the plan was approved. */
+export interface Amendment { at: Date; by: string; field: string; from: string; to: string; reason: string }
+
+export interface PlanApproval { signerName: string; signedAt: Date; comment: string }
+
+export interface ReportSignature { signerName: string; meaning: 'accepted' | 'not-accepted'; comment: string; signedAt: Date }
+
+/** The server adds grid positions to the engine's 1-based row numbers. */
+export type ComparisonFindings = ComparisonResult & { outlierPositions?: number[] };
+export type EstablishFindings = IntervalResult & { outlierPositions?: number[] };
+export type VerifyFindings = VerifyIntervalResult & {
+  excludedCount?: number;
+  outsidePositions?: number[];
+  stated?: { lower: number; upper: number; source: string };
+  caution?: string;
+  engine?: EngineInfo;
+};
+export type ReportResults = ComparisonFindings | EstablishFindings | VerifyFindings;

@@ -1,0 +1,43 @@
+import type { ComparisonCore, Estimate } from '../../../shared/stats';
+import { integer, num, withCi, withUnit } from '../format';
+import type { Layout } from '../layout';
+import type { ComparisonFindings, StudyReport } from '../report-model';
+import { drawTable } from '../table';
+import { VERDICT_WORDS } from '../words';
+import { decimalsOf } from './comparison-data';
+
+const lowerFirst = (text: string): string => text.charAt(0).toLowerCase() + text.slice(1);
+
+/** The main estimates with the excluded rows left out (as analysed) and put back in, side by side. */
+export function comparisonSensitivity(layout: Layout, report: StudyReport, results: ComparisonFindings): void {
+  layout.subheading('Sensitivity: with and without the excluded rows');
+  const other = results.sensitivity;
+  if (!other) {
+    layout.paragraph('No row was excluded, so there is no second analysis to compare.');
+    return;
+  }
+  const d = decimalsOf(report);
+  const cell = (e: Estimate | undefined, decimals = d.stat): string => withCi(e, decimals);
+  const lines: [string, (c: ComparisonCore) => string][] = [
+    ['Pairs (n)', (c) => integer(c.n)],
+    ['Mean bias (CI)', (c) => cell(c.bias?.mean)],
+    ['Median bias (CI)', (c) => cell(c.bias?.median)],
+    ['SD of the differences (CI)', (c) => cell(c.sd)],
+    ['Lower limit of agreement (CI)', (c) => cell(c.limitsOfAgreement?.lower)],
+    ['Upper limit of agreement (CI)', (c) => cell(c.limitsOfAgreement?.upper)],
+    ['Slope (CI)', (c) => cell(c.regression?.slope, 4)],
+    ['Intercept (CI)', (c) => cell(c.regression?.intercept)],
+    ...(results.decisionLevels ?? []).map((l, k): [string, (c: ComparisonCore) => string] => [
+      `Bias at ${withUnit(num(l.level, d.value), report.analyte.unit)}`,
+      (c) => {
+        const at = c.decisionLevels?.[k];
+        return at ? `${cell(at.bias)}: ${at.verdict ? lowerFirst(VERDICT_WORDS[at.verdict]) : 'no verdict'}` : '—';
+      },
+    ]),
+  ];
+  drawTable(layout, [
+    { header: 'Statistic', weight: 1.6 },
+    { header: `Excluded rows left out (as analysed)`, weight: 2 },
+    { header: `All rows, ${other.excludedCount} excluded row(s) included`, weight: 2 },
+  ], lines.map(([label, f]) => [label, f(results), f(other)]));
+}

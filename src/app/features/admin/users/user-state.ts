@@ -1,0 +1,28 @@
+import type { User } from '../../../../../shared/schemas';
+
+export type UserStateKind = 'active' | 'invited' | 'locked' | 'deactivated';
+
+export interface UserState {
+  kind: UserStateKind;
+  text: string;
+}
+
+/** True while a sign-in lock is still running at `now`. */
+export function isLocked(user: User, now: Date): boolean {
+  return user.lockedUntil !== null && new Date(user.lockedUntil).getTime() > now.getTime();
+}
+
+/**
+ * The account's state in words. Deactivation wins over a lock, a lock over a missing password;
+ * the lock's end is told in the laboratory's time zone.
+ */
+export function userState(user: User, now: Date, timeZone: string): UserState {
+  if (!user.active) return { kind: 'deactivated', text: 'Deactivated' };
+  if (isLocked(user, now)) {
+    const until = new Intl.DateTimeFormat('en-GB', { hour: '2-digit', minute: '2-digit', hourCycle: 'h23', timeZone })
+      .format(new Date(user.lockedUntil as string));
+    return { kind: 'locked', text: `Locked until ${until}` };
+  }
+  if (!user.hasPassword) return { kind: 'invited', text: 'Invited — no password yet' };
+  return { kind: 'active', text: 'Active' };
+}

@@ -1,0 +1,45 @@
+import type { IntegrityReport, ReproduceReport } from '../../../../shared/schemas';
+
+/** One line a re-check result opens with: an icon and words that say passed or failed on their own. */
+export interface Outcome {
+  passed: boolean;
+  icon: string;
+  word: string;
+  headline: string;
+}
+
+const outcome = (passed: boolean, headline: string): Outcome => ({
+  passed, icon: passed ? 'verified' : 'report', word: passed ? 'Passed' : 'Failed', headline,
+});
+
+export function integrityOutcome(report: IntegrityReport): Outcome {
+  const failed = report.checks.filter((c) => !c.passed).length;
+  const of = `${report.checks.length} check${report.checks.length === 1 ? '' : 's'}`;
+  return report.passed && failed === 0
+    ? outcome(true, `All ${of} passed: nothing changed since signing.`)
+    : outcome(false, `${failed || 'Some'} of ${of} failed: the stored record no longer matches what was signed.`);
+}
+
+export function reproduceOutcome(report: ReproduceReport): Outcome {
+  const fields = `${report.fieldsCompared.toLocaleString('en-US')} result field${report.fieldsCompared === 1 ? '' : 's'}`;
+  return report.identical
+    ? outcome(true, `Re-running the analysis gave identical results in all ${fields}.`)
+    : outcome(false, `Re-running the analysis gave different values in ${report.differences.length.toLocaleString('en-US')} of ${fields}.`);
+}
+
+/** Which engine computed the stored results and which re-ran them, in words. */
+export function engineLine(report: ReproduceReport): string {
+  return report.sameEngine
+    ? `Stored and re-run with the same engine version, ${report.currentEngine}.`
+    : `Stored with engine ${report.storedEngine}; re-run with ${report.currentEngine}, a different version.`;
+}
+
+/** A stored or recomputed value as a table cell shows it. */
+export function showValue(value: unknown): string {
+  if (value === undefined) return '(absent)';
+  if (value === null) return '(none)';
+  if (typeof value === 'number') return String(value);
+  if (typeof value === 'string') return value === '' ? '(empty)' : value;
+  if (typeof value === 'boolean') return value ? 'yes' : 'no';
+  return JSON.stringify(value);
+}

@@ -1,0 +1,60 @@
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, untracked } from '@angular/core';
+import type { Analysis, Study } from '../../../../../../shared/schemas';
+import { Notices } from '../../../../core/notify/notices';
+import { ErrorBanner } from '../../../../ui/error-banner';
+import { SpecimensStore } from '../../specimens/specimens-store';
+import { kindView } from '../../study-kinds';
+import { StudyStore } from '../../study/study-store';
+import { plotPoints } from '../charts/plot-points';
+import { asComparison, unitsOf } from './comparison-result';
+import { EstimateTables } from './estimate-tables/estimate-tables';
+import { FindingsPlots } from './findings-plots/findings-plots';
+import { Exclusion, OutlierList } from './outlier-list/outlier-list';
+import { SensitivityPanel } from './sensitivity-panel/sensitivity-panel';
+import { VerdictPanel } from './verdict-panel/verdict-panel';
+
+/** The Findings of a method comparison, in order: verdict, sensitivity, tables, outliers and warnings, plots. */
+@Component({
+  selector: 'app-comparison-findings',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  imports: [ErrorBanner, VerdictPanel, SensitivityPanel, EstimateTables, OutlierList, FindingsPlots],
+  template: `
+    @if (result(); as r) {
+      <app-verdict-panel [result]="r" [units]="units()!" [source]="study().settings.allowableBiasSource" />
+      <app-sensitivity-panel [result]="r" [units]="units()!" />
+      <app-estimate-tables [result]="r" [units]="units()!" />
+      <app-outlier-list [result]="r" [rows]="specimens.rows()" [canExclude]="current() && studyStore.editable()" (excluded)="exclude($event)" />
+      <app-findings-plots [result]="r" [units]="units()!" [points]="points()" />
+    } @else {
+      <app-error-banner message="These results are not those of a method comparison; Parallax cannot show them here." />
+    }
+  `,
+})
+export class ComparisonFindings {
+  readonly study = input.required<Study>();
+  readonly analysis = input.required<Analysis>();
+  readonly results = input.required<unknown>();
+
+  protected readonly specimens = inject(SpecimensStore);
+  protected readonly studyStore = inject(StudyStore);
+  private readonly notices = inject(Notices);
+  protected readonly result = computed(() => asComparison(this.results()));
+  protected readonly units = computed(() => (this.result() ? unitsOf(this.study(), this.result()!) : null));
+  /** The analysed rows are the saved rows while the findings are current and nothing on screen is unsaved. */
+  protected readonly current = computed(() => this.analysis().current && this.specimens.status() === 'saved' && !this.specimens.loading());
+  protected readonly points = computed(() =>
+    this.current() && this.result() ? plotPoints(this.specimens.rows(), this.result()!.differenceType) : null,
+  );
+
+  constructor() {
+    effect(() => {
+      const study = this.study();
+      untracked(() => this.specimens.ensureLoaded(study.id, kindView(study.kind).layout));
+    });
+  }
+
+  protected exclude(change: Exclusion): void {
+    this.specimens.exclude(change.position - 1, change.reason);
+    this.notices.post(`Row ${change.position} is excluded with its reason. Run the analysis again to update the findings.`);
+  }
+}

@@ -1,0 +1,36 @@
+import type { Study } from '../../../../../../shared/schemas';
+import type { ComparisonResult } from './engine-types';
+
+/**
+ * The results of a method-comparison analysis as the API returns them: the engine's result
+ * (shared/stats, types only: the browser computes nothing authoritative) plus the grid positions
+ * of the flagged outliers, which the server adds.
+ */
+export type ComparisonFindingsResult = ComparisonResult & { outlierPositions?: number[] };
+
+export function asComparison(results: unknown): ComparisonFindingsResult | null {
+  const r = results as Partial<ComparisonResult> | null;
+  return r && r.kind === 'comparison' ? (r as ComparisonFindingsResult) : null;
+}
+
+/** How findings write their numbers: the unit of results and of differences, and the decimals of each. */
+export interface Units {
+  unit: string;
+  /** The unit of a difference: the study's unit, or % for percent differences. */
+  difference: string;
+  decimals: number;
+  differenceDecimals: number;
+  percent: boolean;
+}
+
+export function unitsOf(study: Pick<Study, 'settings' | 'analyteUnit'>, result: Pick<ComparisonResult, 'differenceType'>): Units {
+  const unit = study.settings.unit || study.analyteUnit;
+  const decimals = study.settings.decimals + 1;
+  const percent = result.differenceType !== 'absolute';
+  return { unit, difference: percent ? '%' : unit, decimals, differenceDecimals: percent ? 2 : decimals, percent };
+}
+
+/** A value with its unit: "0.12 mmol/L", "1.5 %". */
+export function withUnit(text: string, unit: string): string {
+  return unit ? `${text} ${unit}` : text;
+}

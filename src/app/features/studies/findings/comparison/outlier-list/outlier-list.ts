@@ -1,0 +1,59 @@
+import { ChangeDetectionStrategy, Component, computed, inject, input, output } from '@angular/core';
+import { MatButtonModule } from '@angular/material/button';
+import { MatDialog } from '@angular/material/dialog';
+import { MatIconModule } from '@angular/material/icon';
+import { filter } from 'rxjs';
+import type { GridRow } from '../../../specimens/specimen-layout';
+import { ComparisonFindingsResult } from '../comparison-result';
+import { formatP } from '../number-format';
+import { ExcludeData, ExcludeDialog } from './exclude-dialog';
+
+/** A row to exclude, by its grid position (1-based), with the reason the user gave. */
+export interface Exclusion {
+  position: number;
+  reason: string;
+}
+
+/** The outliers the stated rule flagged, each with an Exclude button that asks for the reason; then the warnings. */
+@Component({
+  selector: 'app-outlier-list',
+  templateUrl: './outlier-list.html',
+  styleUrl: '../estimate-tables/estimate-tables.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  imports: [MatButtonModule, MatIconModule],
+})
+export class OutlierList {
+  readonly result = input.required<ComparisonFindingsResult>();
+  readonly rows = input.required<readonly GridRow[]>();
+  /** False when the rows changed since the analysis, or the study no longer changes: no Exclude buttons. */
+  readonly canExclude = input(false);
+  readonly excluded = output<Exclusion>();
+  private readonly dialogs = inject(MatDialog);
+
+  protected readonly rule = computed(() => {
+    const t = this.result().outlierTest;
+    return `${t.method}, α = ${formatP(t.alpha)}, at most ${t.maxOutliers} flagged`;
+  });
+  protected readonly flagged = computed(() => {
+    const positions = this.result().outlierPositions ?? this.result().outliers;
+    return positions.map((position) => {
+      const row = this.rows()[position - 1];
+      return {
+        position,
+        label: row ? String(row['label'] || '—') : '—',
+        comparative: row ? String(row['comparative']) : '',
+        candidate: row ? String(row['candidate']) : '',
+        excluded: row?.['excluded'] === true,
+      };
+    });
+  });
+
+  protected ask(position: number, label: string): void {
+    const data: ExcludeData = { row: `row ${position}${label !== '—' ? ` (${label})` : ''}` };
+    this.dialogs
+      .open<ExcludeDialog, ExcludeData, string>(ExcludeDialog, { data, width: '520px', maxWidth: '95vw' })
+      .afterClosed()
+      .pipe(filter((reason): reason is string => !!reason))
+      .subscribe((reason) => this.excluded.emit({ position, reason }));
+  }
+}

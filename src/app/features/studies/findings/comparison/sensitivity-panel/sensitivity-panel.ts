@@ -1,0 +1,43 @@
+import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
+import { ComparisonFindingsResult, Units } from '../comparison-result';
+import { sensitivityRows } from '../summary-rows';
+
+/** (b) Sensitivity: the main estimates without the excluded rows beside the same estimates with every row. */
+@Component({
+  selector: 'app-sensitivity-panel',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  styleUrl: './sensitivity-panel.scss',
+  template: `
+    <section class="panel" aria-labelledby="sensitivity-heading" data-testid="sensitivity-panel">
+      <h2 id="sensitivity-heading">With and without the excluded rows</h2>
+      @if (rows(); as rows) {
+        <p class="muted">{{ excluded() }} excluded, each with its reason on the Specimens tab. The findings above leave them out; here they are shown both ways.</p>
+        <div class="table-scroll">
+          <table>
+            <thead><tr><th scope="col">Estimate (CI)</th><th scope="col" class="num">Without the excluded rows</th><th scope="col" class="num">With every row</th></tr></thead>
+            <tbody>
+              @for (r of rows; track r.name) {
+                <tr><th scope="row">{{ r.name }}</th><td class="num">{{ r.main }}</td><td class="num">{{ r.all }}</td></tr>
+              }
+            </tbody>
+          </table>
+        </div>
+      } @else {
+        <p class="muted" data-testid="no-exclusions">No row is excluded, so the findings already use every row.</p>
+      }
+    </section>
+  `,
+})
+export class SensitivityPanel {
+  readonly result = input.required<ComparisonFindingsResult>();
+  readonly units = input.required<Units>();
+
+  protected readonly rows = computed(() => {
+    const r = this.result();
+    return r.sensitivity ? sensitivityRows(r, r.sensitivity, this.units()) : null;
+  });
+  protected readonly excluded = computed(() => {
+    const count = this.result().excluded.count;
+    return count === 1 ? 'One row is' : `${count} rows are`;
+  });
+}

@@ -1,0 +1,135 @@
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, output, signal, untracked } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
+import { ReactiveFormsModule } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatSelectModule } from '@angular/material/select';
+import { NgComponentOutlet } from '@angular/common';
+import { catchError, of } from 'rxjs';
+import type { Study } from '../../../../../shared/schemas';
+import { CreateStudyBody, STUDY_KIND_LABELS, UpdateStudyBody } from '../../../../../shared/schemas';
+import { ApiError } from '../../../core/http/api-error';
+import { showApiError, showIssues } from '../../../core/http/form-errors';
+import { Notices } from '../../../core/notify/notices';
+import { ErrorBanner } from '../../../ui/error-banner';
+import { FieldErrorPipe } from '../../../ui/field-error';
+import { schemaIssues } from '../../../ui/schema-rule';
+import { StudiesApi } from '../api/studies-api';
+import { StudyCatalog, StudyCatalogApi } from '../api/catalog-api';
+import { SUPPORTED_KINDS, kindView } from '../study-kinds';
+import { STUDY_CONFLICT_TEXT, StudyStore } from '../study/study-store';
+import { INTERVAL_LABELS } from '../study-text';
+import { buildSetupForm, readSetup } from './setup-form-group';
+import { createBody, randomSeed, settingsFromAnalyte, setupValues, updateBody } from './setup-model';
+
+/**
+ * The Setup form of a study (or of a new one when `study` is null): what is compared, the goals,
+ * the analysis settings and the plan. The kind of study adds its own fields (study-kinds.ts).
+ */
+@Component({
+  selector: 'app-setup-form',
+  templateUrl: './setup-form.html',
+  styleUrl: './setup-form.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  imports: [
+    ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule, MatIconModule,
+    NgComponentOutlet, ErrorBanner, FieldErrorPipe,
+  ],
+})
+export class SetupForm {
+  readonly study = input<Study | null>(null);
+  readonly readonly = input(false);
+  readonly created = output<Study>();
+
+  private readonly api = inject(StudiesApi);
+  private readonly store = inject(StudyStore, { optional: true });
+  private readonly notices = inject(Notices);
+  protected readonly catalog = toSignal(
+    inject(StudyCatalogApi).catalog().pipe(catchError(() => of<StudyCatalog>({ analytes: [], instruments: [] }))),
+  );
+  protected readonly form = buildSetupForm(setupValues(null, randomSeed()));
+  protected readonly problem = signal<string | null>(null);
+  protected readonly busy = signal(false);
+  protected readonly conflict = computed(() => this.store?.conflict() ?? false);
+  protected readonly conflictText = STUDY_CONFLICT_TEXT;
+  protected readonly kinds = SUPPORTED_KINDS.map((kind) => ({ kind, label: STUDY_KIND_LABELS[kind] }));
+  protected readonly intervals = Object.entries(INTERVAL_LABELS);
+  protected readonly levels = [0.9, 0.95, 0.99];
+  private readonly kind = toSignal(this.form.controls.kind.valueChanges, { initialValue: this.form.controls.kind.value });
+  protected readonly kindFields = computed(() => kindView(this.kind()).setupFields);
+  protected readonly activeAnalytes = computed(() =>
+    (this.catalog()?.analytes ?? []).filter((a) => a.active || a.id === this.study()?.analyte.id),
+  );
+
+  constructor() {
+    effect(() => {
+      const study = this.study();
+      untracked(() => {
+        if (study && !this.form.dirty) this.form.reset(setupValues(study, study.settings.seed));
+      });
+    });
+    effect(() => {
+      if (this.readonly()) this.form.disable({ emitEvent: false });
+      else this.form.enable({ emitEvent: false });
+      if (this.study()) this.form.controls.kind.disable({ emitEvent: false });
+    });
+  }
+
+  /** True when the form holds changes that are not saved. */
+  hasUnsavedChanges(): boolean {
+    return this.form.dirty && !this.readonly();
+  }
+
+  /** The user picked an analyte: its unit, decision levels and allowable bias come into the settings. */
+  protected chooseAnalyte(id: number): void {
+    const analyte = this.catalog()?.analytes.find((a) => a.id === id);
+    if (analyte) this.form.controls.settings.patchValue(settingsFromAnalyte(analyte));
+  }
+
+  protected newSeed(): void {
+    this.form.controls.settings.controls.seed.setValue(randomSeed());
+    this.form.markAsDirty();
+  }
+
+  protected reload(): void {
+    const id = this.study()?.id;
+    if (id === undefined || !this.store) return;
+    this.form.markAsPristine();
+    this.problem.set(null);
+    this.store.load(id);
+  }
+
+  protected save(): void {
+    this.problem.set(null);
+    this.form.markAllAsTouched();
+    if (this.form.invalid) {
+      this.problem.set('Check the marked fields.');
+      return;
+    }
+    const values = readSetup(this.form);
+    const study = this.study();
+    const body = study ? { ...updateBody(values, this.form.controls.reason.value), version: study.version } : createBody(values);
+    const issues = schemaIssues(study ? UpdateStudyBody : CreateStudyBody, body);
+    if (issues.length > 0) {
+      this.problem.set(showIssues(this.form, 'Check the marked fields.', issues));
+      return;
+    }
+    this.busy.set(true);
+    const request = study && this.store ? this.store.save(updateBody(values, this.form.controls.reason.value)) : this.api.create(body as CreateStudyBody);
+    request.subscribe({
+      next: (saved) => {
+        this.busy.set(false);
+        this.form.markAsPristine();
+        this.form.controls.reason.setValue('');
+        if (study) this.notices.post('Setup saved.');
+        else this.created.emit(saved);
+      },
+      error: (err: ApiError) => {
+        this.busy.set(false);
+        if (err.status !== 409) this.problem.set(showApiError(this.form, err));
+      },
+    });
+  }
+}

@@ -1,0 +1,53 @@
+import { allProblems, cellProblem, rowProblems } from './row-validation';
+import { COMPARISON_LAYOUT, GridRow, blankRow } from './specimen-layout';
+
+const layout = COMPARISON_LAYOUT;
+const row = (values: Partial<Record<string, string | boolean>>): GridRow => ({ ...blankRow(layout), ...values });
+const allowNegative = { canBeNegative: true };
+const noNegative = { canBeNegative: false };
+
+describe('rowProblems', () => {
+  it('finds nothing wrong with a complete row in either decimal style', () => {
+    expect(rowProblems(row({ label: 'S1', comparative: '5.2', candidate: '5,3' }), 0, layout, noNegative)).toEqual([]);
+  });
+
+  it('names the row (counted from 1) and the field of a result that is not a number', () => {
+    const problems = rowProblems(row({ comparative: '5.1', candidate: '5,x' }), 13, layout, noNegative);
+    expect(problems).toEqual([
+      { rowIndex: 13, field: 'candidate', message: 'row 14: candidate result is not a number', text: 'Candidate result is not a number' },
+    ]);
+  });
+
+  it('flags a negative result only where the analyte cannot be negative', () => {
+    const r = row({ comparative: '-0.2', candidate: '0.1' });
+    expect(rowProblems(r, 2, layout, noNegative).map((p) => p.message)).toEqual([
+      'row 3: comparative result is negative, which this analyte cannot be',
+    ]);
+    expect(rowProblems(r, 2, layout, allowNegative)).toEqual([]);
+  });
+
+  it('asks for a reason when a row is excluded', () => {
+    const r = row({ comparative: '4', candidate: '4.4', excluded: true, exclusionReason: '  ' });
+    expect(rowProblems(r, 4, layout, noNegative)).toEqual([
+      expect.objectContaining({ field: 'exclusionReason', message: 'row 5: excluded without a reason; give the reason' }),
+    ]);
+    expect(rowProblems({ ...r, exclusionReason: 'clotted' }, 4, layout, noNegative)).toEqual([]);
+  });
+
+  it('says a result is missing when the row holds something else, and ignores blank rows', () => {
+    expect(rowProblems(row({ label: 'S9', comparative: '6.0' }), 8, layout, noNegative).map((p) => p.message)).toEqual([
+      'row 9: candidate result is missing',
+    ]);
+    expect(rowProblems(row({}), 8, layout, noNegative)).toEqual([]);
+  });
+});
+
+describe('allProblems and cellProblem', () => {
+  it('lists the problems by row and finds the one of a cell', () => {
+    const rows = [row({ comparative: 'x', candidate: '1' }), row({ comparative: '1', candidate: '1' }), row({ comparative: '2', candidate: '' })];
+    const problems = allProblems(rows, layout, noNegative);
+    expect(problems.map((p) => p.message)).toEqual(['row 1: comparative result is not a number', 'row 3: candidate result is missing']);
+    expect(cellProblem(problems, 2, 'candidate')?.text).toBe('Candidate result is missing');
+    expect(cellProblem(problems, 1, 'candidate')).toBeUndefined();
+  });
+});

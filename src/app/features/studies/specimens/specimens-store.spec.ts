@@ -1,0 +1,134 @@
+import { TestBed } from '@angular/core/testing';
+import { Subject, of } from 'rxjs';
+import type { SpecimenRow, SpecimenRows } from '../../../../../shared/schemas';
+import { ApiError } from '../../../core/http/api-error';
+import { PutSpecimens, SpecimensApi } from '../api/specimens-api';
+import { CONFLICT_TEXT } from './save-status';
+import { AUTOSAVE_DEBOUNCE_MS, SpecimensStore } from './specimens-store';
+
+function stored(label: string, x: string, y: string): SpecimenRow {
+  return {
+    position: 1, label, comparative: Number(x), candidate: Number(y), value: null, comparativeText: x, candidateText: y,
+    valueText: null, sex: null, ageBand: null, excluded: false, exclusionReason: null, note: '', uploadId: null,
+  };
+}
+
+describe('SpecimensStore autosave', () => {
+  let puts: { body: PutSpecimens; answer: Subject<SpecimenRows> }[];
+  let store: SpecimensStore;
+
+  beforeEach(() => {
+    jest.useFakeTimers();
+    puts = [];
+    const api: Partial<SpecimensApi> = {
+      get: () => of({ version: 3, rows: [stored('S1', '5.0', '5.2'), stored('S2', '7.0', '7.1')] }),
+      put: (_id: number, body: PutSpecimens) => {
+        const answer = new Subject<SpecimenRows>();
+        puts.push({ body, answer });
+        return answer;
+      },
+    };
+    TestBed.configureTestingModule({ providers: [SpecimensStore, { provide: SpecimensApi, useValue: api }] });
+    store = TestBed.inject(SpecimensStore);
+    store.load(12).subscribe();
+  });
+
+  afterEach(() => jest.useRealTimers());
+
+  const uidOf = (i: number): number => store.rows()[i].uid;
+  const answer = (i: number, version: number): void => {
+    puts[i].answer.next({ version, rows: [] });
+    puts[i].answer.complete();
+  };
+  const fail = (i: number, error: ApiError): void => puts[i].answer.error(error);
+
+  it('waits for a pause in typing, then saves every row once with the version it was edited from', () => {
+    store.setCell(uidOf(0), 'candidate', '5.3');
+    jest.advanceTimersByTime(AUTOSAVE_DEBOUNCE_MS / 2);
+    store.setCell(uidOf(1), 'candidate', '7.2');
+    jest.advanceTimersByTime(AUTOSAVE_DEBOUNCE_MS - 1);
+    expect(puts).toHaveLength(0);
+    expect(store.status()).toBe('pending');
+    jest.advanceTimersByTime(1);
+    expect(puts).toHaveLength(1);
+    expect(puts[0].body.version).toBe(3);
+    expect(puts[0].body.rows.map((r) => r['candidate'])).toEqual(['5.3', '7.2']);
+    expect(store.status()).toBe('saving');
+    answer(0, 4);
+    expect(store.status()).toBe('saved');
+    expect(store.version()).toBe(4);
+  });
+
+  it('on a conflict keeps the rows on screen, says so, and never overwrites the other change', () => {
+    store.setCell(uidOf(0), 'candidate', '9.9');
+    jest.advanceTimersByTime(AUTOSAVE_DEBOUNCE_MS);
+    fail(0, new ApiError(409, 'Someone else changed this study', [{ path: 'version', message: 'You have version 3; the study is at version 4' }]));
+    expect(store.status()).toBe('conflict');
+    expect(store.message()).toBe(CONFLICT_TEXT);
+    expect(store.rows()[0]['candidate']).toBe('9.9');
+    store.setCell(uidOf(1), 'note', 'typed after the conflict');
+    jest.advanceTimersByTime(60_000);
+    store.save();
+    expect(puts).toHaveLength(1);
+    expect(store.rows()[1]['note']).toBe('typed after the conflict');
+  });
+
+  it('on a network failure keeps the rows and retries with growing pauses until the server answers', () => {
+    store.setCell(uidOf(0), 'comparative', '5.5');
+    jest.advanceTimersByTime(AUTOSAVE_DEBOUNCE_MS);
+    fail(0, new ApiError(0, 'The server cannot be reached.'));
+    expect(store.status()).toBe('offline');
+    expect(store.rows()[0]['comparative']).toBe('5.5');
+    jest.advanceTimersByTime(999);
+    expect(puts).toHaveLength(1);
+    jest.advanceTimersByTime(1);
+    expect(puts).toHaveLength(2);
+    fail(1, new ApiError(503, 'Unavailable'));
+    jest.advanceTimersByTime(1999);
+    expect(puts).toHaveLength(2);
+    jest.advanceTimersByTime(1);
+    expect(puts).toHaveLength(3);
+    expect(puts[2].body.rows[0]['comparative']).toBe('5.5');
+    answer(2, 4);
+    expect(store.status()).toBe('saved');
+  });
+
+  it('shows the refused row in grid numbering, keeps the rows, and saves again after the fix', () => {
+    store.insertRow(1);
+    store.setCell(uidOf(2), 'candidate', '7,x');
+    jest.advanceTimersByTime(AUTOSAVE_DEBOUNCE_MS);
+    expect(puts[0].body.rows).toHaveLength(2);
+    fail(0, new ApiError(400, 'Some rows are not valid', [{ path: 'rows.1.candidate', message: 'row 2: candidate result is not a number' }]));
+    expect(store.status()).toBe('invalid');
+    expect(store.message()).toBe('row 3: candidate result is not a number');
+    expect(store.issues()).toEqual([{ rowIndex: 2, field: 'candidate', message: 'row 3: candidate result is not a number' }]);
+    jest.advanceTimersByTime(60_000);
+    expect(puts).toHaveLength(1);
+    store.setCell(uidOf(2), 'candidate', '7.3');
+    jest.advanceTimersByTime(AUTOSAVE_DEBOUNCE_MS);
+    expect(puts).toHaveLength(2);
+    answer(1, 4);
+    expect(store.status()).toBe('saved');
+    expect(store.issues()).toEqual([]);
+  });
+
+  it('saves edits made while a save was on its way right after it returns', () => {
+    store.setCell(uidOf(0), 'note', 'first');
+    jest.advanceTimersByTime(AUTOSAVE_DEBOUNCE_MS);
+    store.setCell(uidOf(0), 'note', 'second');
+    jest.advanceTimersByTime(AUTOSAVE_DEBOUNCE_MS);
+    expect(puts).toHaveLength(1);
+    answer(0, 4);
+    expect(puts).toHaveLength(2);
+    expect(puts[1].body.version).toBe(4);
+    expect(puts[1].body.rows[0]['note']).toBe('second');
+    answer(1, 5);
+    expect(store.status()).toBe('saved');
+  });
+
+  it('excludes a row with its reason and saves at once', () => {
+    store.exclude(1, 'clotted specimen');
+    expect(puts).toHaveLength(1);
+    expect(puts[0].body.rows[1]).toMatchObject({ excluded: true, exclusionReason: 'clotted specimen' });
+  });
+});

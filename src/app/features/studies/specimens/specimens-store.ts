@@ -1,0 +1,214 @@
+import { DestroyRef, Injectable, computed, inject, signal } from '@angular/core';
+import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { Observable, Subject, Subscription, debounceTime, map, tap, timer } from 'rxjs';
+import type { SpecimenRows } from '../../../../../shared/schemas';
+import { ApiError } from '../../../core/http/api-error';
+import { SpecimensApi } from '../api/specimens-api';
+import { StudyStore } from '../study/study-store';
+import { isVersionConflict } from '../version-conflict';
+import { PasteOutcome, PasteTarget, applyPaste } from './apply-paste';
+import { deleteRows, insertRow, moveRow, setCell } from './row-edits';
+import { RowIssue, SentRows, issuesOnGrid, rowsToSend } from './rows-to-send';
+import { CONFLICT_TEXT, SaveStatus, retryDelay } from './save-status';
+import { COMPARISON_LAYOUT, GridRow, SpecimenLayout, blankRow, fromStored } from './specimen-layout';
+
+/** The first issues in words, and how many more there are. */
+function issueSummary(issues: readonly RowIssue[], fallback: string): string {
+  if (issues.length === 0) return fallback;
+  const first = issues.slice(0, 3).map((i) => i.message).join('; ');
+  return issues.length > 3 ? `${first}; and ${issues.length - 3} more` : first;
+}
+
+/** The pause in typing after which changes are saved. */
+export const AUTOSAVE_DEBOUNCE_MS = 800;
+
+interface SpecimensState {
+  studyId: number | null;
+  version: number;
+  rows: GridRow[];
+  loading: boolean;
+  loadError: string | null;
+  status: SaveStatus;
+  message: string | null;
+  issues: RowIssue[];
+  retryAt: number | null;
+}
+
+const INITIAL: SpecimensState = {
+  studyId: null, version: 0, rows: [], loading: false, loadError: null, status: 'saved', message: null, issues: [], retryAt: null,
+};
+
+/**
+ * The specimen rows of one study, kept on screen as typed, and saved by themselves: after a pause in
+ * typing, the whole list goes to PUT /specimens with the version it was edited from. Nothing typed is
+ * lost when a save fails: a refused row waits for the next edit, a network failure retries with growing
+ * pauses, and a conflict (someone else saved first) keeps the rows until the user chooses to reload.
+ */
+@Injectable()
+export class SpecimensStore {
+  private readonly api = inject(SpecimensApi);
+  private readonly study = inject(StudyStore, { optional: true });
+  private readonly state = signal<SpecimensState>(INITIAL);
+  private layoutOf: SpecimenLayout = COMPARISON_LAYOUT;
+  private readonly changes = new Subject<void>();
+  private revision = 0;
+  private savedRevision = 0;
+  private inFlight: Subscription | null = null;
+  private retry: Subscription | null = null;
+  private failures = 0;
+
+  readonly rows = computed(() => this.state().rows);
+  readonly loading = computed(() => this.state().loading);
+  readonly loadError = computed(() => this.state().loadError);
+  readonly status = computed(() => this.state().status);
+  readonly message = computed(() => this.state().message);
+  readonly issues = computed(() => this.state().issues);
+  readonly retryAt = computed(() => this.state().retryAt);
+  readonly version = computed(() => this.state().version);
+  readonly dirty = computed(() => this.state().status !== 'saved');
+
+  constructor() {
+    this.changes.pipe(debounceTime(AUTOSAVE_DEBOUNCE_MS), takeUntilDestroyed()).subscribe(() => this.save());
+    // A Setup save on this page moves the shared version; rows edited from the old one may follow it.
+    this.study?.versionMoves.pipe(takeUntilDestroyed()).subscribe(({ from, to }) =>
+      this.state.update((s) => (s.version === from ? { ...s, version: to } : s)),
+    );
+    inject(DestroyRef).onDestroy(() => {
+      this.retry?.unsubscribe();
+      if (this.revision !== this.savedRevision && this.state().status !== 'conflict') this.save();
+    });
+  }
+
+  get layout(): SpecimenLayout {
+    return this.layoutOf;
+  }
+
+  /** Reads the rows of a study from the server; what is on screen is replaced. */
+  load(studyId: number, layout: SpecimenLayout = COMPARISON_LAYOUT): Observable<void> {
+    this.layoutOf = layout;
+    this.retry?.unsubscribe();
+    this.state.update((s) => ({ ...s, studyId, loading: true, loadError: null }));
+    return this.api.get(studyId).pipe(
+      tap({
+        next: (answer) => this.adopt(answer),
+        error: (err: ApiError) => this.state.update((s) => ({ ...s, loading: false, loadError: err.message })),
+      }),
+      map(() => undefined),
+    );
+  }
+
+  /** Loads the rows unless this study's rows are already here (or on their way), so tabs share them. */
+  ensureLoaded(studyId: number, layout: SpecimenLayout): void {
+    const s = this.state();
+    if (s.studyId === studyId && (s.loading || s.version > 0)) return;
+    this.load(studyId, layout).subscribe({ error: () => undefined });
+  }
+
+  /** Rows imported from a file: the server's answer replaces the grid, and the study follows the new version. */
+  imported(answer: SpecimenRows): void {
+    const from = this.state().version;
+    this.adopt(answer);
+    this.study?.followVersion(from, answer.version);
+  }
+
+  /** Takes rows the server answered (after a load or an import) as the saved state. */
+  adopt(answer: SpecimenRows): void {
+    this.revision = this.savedRevision = this.revision + 1;
+    this.failures = 0;
+    const rows = answer.rows.map((row) => fromStored(row, this.layoutOf));
+    // An empty study shows one blank row, so there is a cell to click and paste into (blank rows are not sent).
+    if (rows.length === 0) rows.push(blankRow(this.layoutOf));
+    this.state.update((s) => ({
+      ...s, version: answer.version, rows,
+      loading: false, status: 'saved', message: null, issues: [], retryAt: null,
+    }));
+  }
+
+  /** Puts back a whole list of rows (Undo after a delete). */
+  replaceRows(rows: GridRow[]): void {
+    this.change([...rows]);
+  }
+
+  setCell(uid: number, field: string, value: string | boolean): void {
+    this.change(setCell(this.rows(), uid, field, value));
+  }
+
+  insertRow(index?: number): void {
+    this.change(insertRow(this.rows(), this.layoutOf, index));
+  }
+
+  deleteRows(uids: ReadonlySet<number>): void {
+    if (uids.size > 0) this.change(deleteRows(this.rows(), uids));
+  }
+
+  moveRow(uid: number, delta: -1 | 1): void {
+    this.change(moveRow(this.rows(), uid, delta));
+  }
+
+  paste(target: PasteTarget, text: string): PasteOutcome {
+    const outcome = applyPaste(this.rows(), this.layoutOf, target, text);
+    if (outcome.written > 0) this.change(outcome.rows);
+    return outcome;
+  }
+
+  /** Marks a row excluded with its reason and saves at once (no pause). */
+  exclude(rowIndex: number, reason: string): void {
+    const row = this.rows()[rowIndex];
+    if (!row) return;
+    this.change(this.rows().map((r) => (r === row ? { ...r, excluded: true, exclusionReason: reason } : r)));
+    this.save();
+  }
+
+  /** Saves now: the Retry button, or leaving the page. */
+  save(): void {
+    const s = this.state();
+    if (s.studyId === null || s.status === 'conflict' || this.inFlight) return;
+    if (this.revision === this.savedRevision) return;
+    this.retry?.unsubscribe();
+    const revision = this.revision;
+    const sent = rowsToSend(s.rows, this.layoutOf);
+    this.state.update((st) => ({ ...st, status: 'saving', retryAt: null }));
+    this.inFlight = this.api.put(s.studyId, { version: s.version, rows: sent.rows }).subscribe({
+      next: (answer) => this.accepted(answer, revision),
+      error: (err: ApiError) => this.refused(err, sent, revision),
+    });
+  }
+
+  private change(rows: GridRow[]): void {
+    this.revision++;
+    this.state.update((s) => ({ ...s, rows, status: s.status === 'conflict' ? 'conflict' : s.status === 'saving' ? 'saving' : 'pending' }));
+    this.changes.next();
+  }
+
+  private accepted(answer: SpecimenRows, revision: number): void {
+    const from = this.state().version;
+    this.inFlight = null;
+    this.failures = 0;
+    this.savedRevision = revision;
+    const more = this.revision !== revision;
+    this.state.update((s) => ({ ...s, version: answer.version, status: more ? 'pending' : 'saved', message: null, issues: [], retryAt: null }));
+    this.study?.followVersion(from, answer.version);
+    if (more) this.save();
+  }
+
+  private refused(err: ApiError, sent: SentRows, revision: number): void {
+    this.inFlight = null;
+    const status = err.status;
+    const editedSince = this.revision !== revision;
+    if (isVersionConflict(err)) {
+      this.state.update((s) => ({ ...s, status: 'conflict', message: CONFLICT_TEXT, issues: [] }));
+    } else if (status === 400) {
+      const issues = issuesOnGrid(err.issues, sent);
+      this.state.update((s) => ({ ...s, status: 'invalid', message: issueSummary(issues, err.message), issues }));
+      if (editedSince) this.save();
+    } else if (status === 0 || status >= 500) {
+      this.failures++;
+      const delay = retryDelay(this.failures);
+      this.state.update((s) => ({ ...s, status: 'offline', message: err.message, retryAt: Date.now() + delay }));
+      this.retry = timer(delay).subscribe(() => this.save());
+    } else {
+      this.state.update((s) => ({ ...s, status: 'failed', message: err.message }));
+      if (editedSince) this.save();
+    }
+  }
+}
