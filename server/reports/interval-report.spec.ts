@@ -1,5 +1,5 @@
 import { renderStudyReport } from './render-report';
-import type { EstablishFindings, VerifyFindings } from './report-model';
+import type { EstablishFindings, StudyReport, VerifyFindings } from './report-model';
 import { comparisonReport, establishReport, verifyReport } from './testing/fixtures';
 import { flat, pdfPages } from './testing/pdf-text';
 
@@ -46,6 +46,17 @@ describe('the reports of reference-interval studies', () => {
   ] as const)('renders a %s study without an analysis, saying there are no findings', async (_kind, report) => {
     const pages = pdfPages(await renderStudyReport({ ...report, results: null, signature: null, draft: true }));
     expect(flat(pages)).toContain('so no findings are shown');
+    expect(flat(pages[pages.length - 1])).toContain('Decision support only.');
+  });
+
+  it.each([
+    ['method-comparison', comparisonReport(12), 'comparison'],
+    ['interval-establish', establishReport(30), 'interval'],
+    ['interval-verify', verifyReport(20), 'verify-interval'],
+  ] as const)('renders a %s study whose stored results lack fields without failing', async (_kind, report, kind) => {
+    const partial = { kind } as unknown as StudyReport['results'];
+    const pages = pdfPages(await renderStudyReport({ ...report, results: partial }));
+    expect(flat(pages[0])).toContain(`Page 1 of ${pages.length}`);
     expect(flat(pages[pages.length - 1])).toContain('Decision support only.');
   });
 });

@@ -74,7 +74,7 @@ export class Layout {
   }
 
   /** A tinted box with a coloured left edge holding one paragraph (the caution, a verdict). */
-  callout(text: string, options: { fill: string; edge: string; bold?: boolean; title?: string } ): void {
+  callout(text: string, options: { fill: string; edge: string; bold?: boolean; title?: string }): void {
     const pad = 7;
     const width = this.width - 2 * pad - 3;
     const title = options.title ? { size: SIZE.body, bold: true, color: options.edge } : null;

@@ -76,4 +76,13 @@ describe('the verification PDF of a method comparison', () => {
     expect(text).toMatch(/[µμ], ±, σ, ≤, ≥, −, λ, ² → all printable/);
     expect(text).toContain('8.1 → 8.4 mmol/L');
   });
+
+  it('prints the Deming error ratio with its convention, and percent differences in %', async () => {
+    const deming = comparisonReport(40, { regression: 'deming', demingRatio: 1.5, differenceType: 'percent-mean' });
+    const text = flat(pdfPages(await renderStudyReport(deming)));
+    expect(text).toContain('Regression Deming');
+    expect(text).toContain('Deming error ratio λ = 1.500, where λ = σ²(x error) / σ²(y error)');
+    expect(text).toContain('Bias and agreement (differences in %)');
+    expect(text).toContain('Difference y − x (%)');
+  });
 });

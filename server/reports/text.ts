@@ -26,7 +26,8 @@ function apply(doc: PDFKit.PDFDocument, style: TextStyle): void {
 const advance = (doc: PDFKit.PDFDocument): number => doc.currentLineHeight(true) + LINE_GAP;
 
 /** Height the text takes in a box of this width. */
-export function measure(doc: PDFKit.PDFDocument, text: string, style: TextStyle, width: number): number {
+export function measure(doc: PDFKit.PDFDocument, raw: string, style: TextStyle, width: number): number {
+  const text = raw ?? ''; // results from an older engine may lack a field
   apply(doc, style);
   if (hasSymbol(text)) return breakLines(doc, text, style.size, width).length * advance(doc);
   return doc.heightOfString(text || ' ', { width, lineGap: LINE_GAP });
@@ -38,7 +39,8 @@ export function textWidth(doc: PDFKit.PDFDocument, text: string, style: TextStyl
 }
 
 /** Draws text with its top-left corner at (x, y); returns the height used. */
-export function drawText(doc: PDFKit.PDFDocument, text: string, x: number, y: number, style: TextStyle, box: TextBox): number {
+export function drawText(doc: PDFKit.PDFDocument, raw: string, x: number, y: number, style: TextStyle, box: TextBox): number {
+  const text = raw ?? '';
   apply(doc, style);
   if (hasSymbol(text)) {
     const lines = breakLines(doc, text, style.size, box.width);

@@ -9,6 +9,7 @@ import { COLOR } from '../theme';
 import { REGRESSION_WORDS } from '../words';
 import { differenceUnit, type Pair } from './comparison-data';
 
+const NONE = { estimate: null, ci: null };
 const label = (name: string, unit: string): string => (unit ? `${name} (${unit})` : name);
 
 /** The four plots, drawn as vector paths: scatter, difference, and the two bootstrap distributions. */
@@ -30,7 +31,7 @@ export function comparisonPlots(layout: Layout, report: StudyReport, results: Co
     });
     differencePlot(layout.doc, right, {
       included: included.map((p) => [p.at, p.difference]), excluded: excluded.map((p) => [p.at, p.difference]),
-      bias: results.bias.mean, lower: results.limitsOfAgreement.lower, upper: results.limitsOfAgreement.upper,
+      bias: results.bias?.mean ?? NONE, lower: results.limitsOfAgreement?.lower ?? NONE, upper: results.limitsOfAgreement?.upper ?? NONE,
       xLabel: label(results.differenceType === 'percent-x' ? 'Comparative x' : 'Mean of the pair', unit),
       yLabel: label('Difference y − x', dUnit),
     });
@@ -51,7 +52,7 @@ export function comparisonPlots(layout: Layout, report: StudyReport, results: Co
     });
   }
   if (boot) {
-    const median = results.bias.median;
+    const median = results.bias?.median ?? NONE;
     histogramPlot(layout.doc, right, {
       title: 'Median bias: bootstrap distribution', xLabel: label('Median bias of resamples', dUnit), bins: boot.bins,
       markers: median.estimate !== null ? [{ value: median.estimate, color: COLOR.ink }] : [],

@@ -1,5 +1,5 @@
 import type { LimitResult } from '../../../shared/stats';
-import { integer, num, percent, range, withUnit } from '../format';
+import { integer, num, orDash, percent, range, withUnit } from '../format';
 import type { Layout } from '../layout';
 import type { EstablishFindings, StudyReport } from '../report-model';
 import { drawTable } from '../table';
@@ -14,23 +14,24 @@ export function establishFindings(layout: Layout, report: StudyReport, results: 
   const unit = report.analyte.unit;
   const level = percent(results.settings?.level ?? report.settings.confidenceLevel);
   layout.heading('Reference interval');
-  const limits = [['Lower limit', results.lower], ['Upper limit', results.upper]] as [string, LimitResult | null][];
+  const limits = ([['Lower limit', results.lower], ['Upper limit', results.upper]] as [string, LimitResult | null | undefined][])
+    .filter((entry): entry is [string, LimitResult] => Boolean(entry[1]));
   drawTable(layout, [
     { header: 'Limit', weight: 1 }, { header: 'Percentile', weight: 0.8, align: 'right' }, { header: `Estimate (${unit || 'units'})`, weight: 1, align: 'right' },
     { header: `${level} CI, bootstrap`, weight: 1.4, align: 'right' }, { header: `${level} CI, rank-based`, weight: 1.4, align: 'right' },
     { header: 'Ranks (coverage)', weight: 1.1, align: 'right' },
-  ], limits.filter(([, l]) => l !== null).map(([name, l]) => [
-    name, `${l!.percentile}th`, num(l!.estimate, d.stat), range(l!.ci, d.stat), range(l!.rankCi, d.stat),
-    l!.ranks ? `${l!.ranks.lowerRank}–${l!.ranks.upperRank} (${percent(l!.ranks.coverage)})` : '—',
+  ], limits.map(([name, l]) => [
+    name, `${l.percentile}th`, num(l.estimate, d.stat), range(l.ci, d.stat), range(l.rankCi, d.stat),
+    l.ranks ? `${l.ranks.lowerRank}–${l.ranks.upperRank} (${percent(l.ranks.coverage)})` : '—',
   ]), { size: 8.5 });
   if (!results.lower && !results.upper) layout.paragraph('No limit could be estimated; see the warnings.', { color: COLOR.bad });
   const method = INTERVAL_METHOD_WORDS[results.method];
   layout.keyValues([
     ['Interval', withUnit(`${num(results.lower?.estimate, d.stat)} to ${num(results.upper?.estimate, d.stat)}`, unit)],
     ['Values', `${integer(results.n)} analysed; ${integer(results.excludedCount)} excluded of ${integer(results.nTotal)}`],
-    ['Method', method?.name ?? results.method],
+    ['Method', method?.name ?? orDash(results.method)],
     ['Why this method', method?.why ?? '—'],
-    ...(results.boxCoxLambda !== null ? [['Box–Cox λ', num(results.boxCoxLambda, 3)] as [string, string]] : []),
+    ...(results.boxCoxLambda != null ? [['Box–Cox λ', num(results.boxCoxLambda, 3)] as [string, string]] : []),
     ['Bootstrap', `${integer(results.settings?.resamples)} resamples, seed ${results.settings?.seed ?? report.settings.seed}; percentile CIs`],
   ]);
   cautionCallout(layout);

@@ -1,4 +1,5 @@
 import { histogram, type HistogramBin } from '../../../shared/stats/histogram';
+import type { LimitResult } from '../../../shared/stats';
 import type { Layout } from '../layout';
 import { histogramPlot } from '../plots/histogram-plot';
 import { plotRow } from '../plots/plot-box';
@@ -35,15 +36,15 @@ export function establishReport(layout: Layout, report: StudyReport, results: Es
 function valuesHistogram(layout: Layout, report: StudyReport, results: EstablishFindings): void {
   const values = Float64Array.from(report.rows.filter((r) => !r.excluded && isNumber(r.value)).map((r) => r.value!));
   if (!values.length) return;
-  const limits = [results.lower, results.upper].filter((l) => l !== null && l.estimate !== null);
+  const limits = [results.lower, results.upper].filter((l): l is LimitResult & { estimate: number } => isNumber(l?.estimate));
   layout.heading('Distribution of the reference values', 200);
   const [box] = plotRow(layout, 1, 200);
   const unit = report.analyte.unit;
   histogramPlot(layout.doc, box, {
     title: `Histogram of ${values.length} values`, xLabel: unit ? `${report.analyte.name} (${unit})` : report.analyte.name,
     bins: valueBins(values),
-    markers: limits.map((l) => ({ value: l!.estimate!, color: COLOR.warm })),
-    bands: limits.filter((l) => l!.ci).map((l) => ({ span: l!.ci!, color: COLOR.warm })),
+    markers: limits.map((l) => ({ value: l.estimate, color: COLOR.warm })),
+    bands: limits.flatMap((l) => (l.ci ? [{ span: l.ci, color: COLOR.warm }] : [])),
     legend: [{ label: 'limits', color: COLOR.warm, kind: 'line' }, { label: 'CI of each limit', color: COLOR.warm, kind: 'band' }],
   }, 'Count');
 }
