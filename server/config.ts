@@ -31,7 +31,8 @@ export type Config = {
 
 /** Reads the environment once; a bad value stops start-up with a message naming the variable. */
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
-  const parsed = Env.safeParse(env);
+  // An empty variable counts as unset.
+  const parsed = Env.safeParse(Object.fromEntries(Object.entries(env).filter(([, v]) => v !== '')));
   if (!parsed.success) {
     const lines = parsed.error.issues.map((i) => `${i.path.join('.')}: ${i.message}`);
     throw new Error(`configuration error: ${lines.join('; ')}`);

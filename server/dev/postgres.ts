@@ -55,7 +55,7 @@ function spawnable(dir: string): boolean {
 const asServerUser = (cmd: string, args: string[]): [string, string[]] =>
   isRoot() ? ['runuser', ['-u', 'postgres', '--', cmd, ...args]] : [cmd, args];
 
-function portFree(port: number): Promise<boolean> {
+export function portFree(port: number): Promise<boolean> {
   return new Promise((resolve) => {
     const s = createServer();
     s.once('error', () => resolve(false));
@@ -63,7 +63,7 @@ function portFree(port: number): Promise<boolean> {
   });
 }
 
-async function choosePort(preferred: number, allowOther: boolean): Promise<number> {
+export async function choosePort(preferred: number, allowOther: boolean): Promise<number> {
   if (await portFree(preferred)) return preferred;
   if (!allowOther) throw new Error(`port ${preferred} on 127.0.0.1 is taken; set PGPORT to a free port`);
   for (let p = preferred + 1; p < preferred + 200; p++) if (await portFree(p)) return p;

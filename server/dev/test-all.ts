@@ -7,6 +7,7 @@ import { startFakeSmtp } from '../mail/fake-smtp';
 import { listen } from '../main';
 import { buildClient } from './client-build';
 import { prepareDatabase } from './database';
+import { choosePort } from './postgres';
 import { ensureChromium } from './chromium';
 import { readJest, readPlaywright, SuiteCount } from './suite-results';
 import { log, runInherit } from './run';
@@ -30,7 +31,9 @@ async function e2e(databaseUrl: string, built: boolean): Promise<SuiteCount> {
   if (!chromium.ok) return { name: 'end-to-end (Chromium)', passed: 0, failed: 1, note: chromium.message };
   const db = openDatabase(databaseUrl, 2);
   const smtp = await startFakeSmtp(db.db);
-  const app = await listen(loadConfig({ ...process.env, DATABASE_URL: databaseUrl, SMTP_URL: smtp.url, PORT: '0', SIGN_IN_RATE_LIMIT: '1000' }));
+  // A real port, so the links the app e-mails (PUBLIC_URL) lead back to it.
+  const port = await choosePort(Number(process.env.PARALLAX_E2E_PORT ?? 3900), true);
+  const app = await listen(loadConfig({ ...process.env, DATABASE_URL: databaseUrl, SMTP_URL: smtp.url, PORT: String(port), PUBLIC_URL: '', SIGN_IN_RATE_LIMIT: '1000' }));
   try {
     log(`Playwright against ${app.url}`);
     await runInherit(bin('playwright'), ['test', '-c', 'e2e/playwright.config.ts'], {
