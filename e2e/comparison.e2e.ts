@@ -101,6 +101,10 @@ test('a technologist compares two chemistry lines: pastes 40 pairs, fixes a bad 
   await expect(page.locator('[role="gridcell"].cell-problem')).toHaveCount(1);
   await expect(page.getByTestId('problems')).toContainText(`row ${badRow}: candidate result is not a number`);
   await expect(page.getByTestId('save-state')).toContainText(`Not saved: row ${badRow}: candidate result`);
+  await bad.hover();
+  await expect(page.locator('.ag-tooltip')).toContainText('Candidate result is not a number');
+  await closeNotice(page);
+  await page.screenshot({ path: path.join(SCREENSHOTS, 'specimens-problem.png') });
 
   // Fix it by typing over it; the mark goes and the rows are saved.
   await bad.click();

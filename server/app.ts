@@ -73,12 +73,12 @@ export function createApp(config: Config, database: Db): CreatedApp {
   return { app, ctx, routes };
 }
 
+/** The built client, if there is one (looked up per request, so a build finishing later is served). */
 function serveClient(app: Express, config: Config): void {
   const dir = config.clientDir ?? path.resolve(__dirname, '../dist/client/browser');
-  if (!existsSync(path.join(dir, 'index.html'))) return;
   app.use(express.static(dir, { index: false, maxAge: '1h' }));
-  app.get('/*splat', (req, res, next) => {
-    if (path.extname(req.path)) return next();
+  app.get(['/', '/*splat'], (req, res, next) => {
+    if (path.extname(req.path) || !existsSync(path.join(dir, 'index.html'))) return next();
     res.setHeader('Cache-Control', 'no-cache');
     res.sendFile(path.join(dir, 'index.html'));
   });

@@ -57,7 +57,7 @@ function filters(me: SignedInUser, q: ArchiveQuery): SQL {
 type Row = Record<string, unknown>;
 const item = (r: Row): ArchiveItem => ({
   id: Number(r.id), kind: r.kind as ArchiveItem['kind'], title: String(r.title), analyte: String(r.analyte_name), instruments: String(r.instrument_names ?? ''),
-  state: r.state as ArchiveItem['state'], verdict: (r.verdict as ArchiveItem['verdict']) ?? null, signerName: (r.signer_name as string) ?? null,
+  state: r.state as ArchiveItem['state'], verdict: (r.verdict as ArchiveItem['verdict']) ?? null, signerId: (r.signer_id as number) ?? null, signerName: (r.signer_name as string) ?? null,
   meaning: (r.meaning as string) ?? null, signedAt: r.sig_at ? new Date(r.sig_at as string).toISOString() : null,
   createdAt: new Date(r.created_at as string).toISOString(), superseded: r.superseded_by_id !== null, supersedesId: (r.supersedes_id as number) ?? null, n: Number(r.n),
 });

@@ -5,7 +5,7 @@ import type { RouteSpec } from '../http/routes';
 import { READERS, studyId } from '../studies/studies.routes';
 import { searchArchive } from './archive.service';
 import { exportArchive, exportStudy } from './export.service';
-import { labHistory, studyHistory } from './history.service';
+import { labHistory, labPeople, studyHistory } from './history.service';
 import { checkIntegrity } from './integrity.service';
 import { reproduceStudy } from './reproduce.service';
 
@@ -20,6 +20,7 @@ export function auditRoutes(ctx: AppContext): RouteSpec[] {
   };
   return [
     { method: 'get', path: '/studies/:id/history', access: READERS, handler: async (req, res) => res.json(await studyHistory(ctx.db, req.user!, studyId(req.params))) },
+    { method: 'get', path: '/people', access: READERS, handler: async (req, res) => res.json(await labPeople(ctx.db, req.user!)) },
     { method: 'get', path: '/audit', access: AUDITORS, handler: async (req, res) => res.json(await labHistory(ctx.db, req.user!, parseRequest(AuditQuery, req.query, 'query'))) },
     { method: 'get', path: '/archive', access: AUDITORS, handler: async (req, res) => res.json(await searchArchive(ctx.db, req.user!, parseRequest(ArchiveQuery, req.query, 'query'))) },
     {

@@ -31,7 +31,7 @@ function newBook(): ExcelJS.Workbook {
 
 /** The archive result list (same filters as the page, every match, not one page). */
 export async function exportArchive(db: Database, me: SignedInUser, q: ArchiveQuery): Promise<Buffer> {
-  const all = await searchArchive(db, me, { ...q, page: 1, pageSize: 500 });
+  const all = await searchArchive(db, me, { ...q, page: 1, pageSize: 100_000 });
   const wb = newBook();
   sheet(wb, 'Studies', [
     ['Study', 'id', 8], ['Kind', 'kind', 20], ['Title', 'title', 44], ['Analyte', 'analyte', 16], ['Instruments', 'instruments', 32], ['n', 'n', 6],

@@ -2,12 +2,12 @@ import { and, asc, desc, eq, gte, like, lte, sql, SQL } from 'drizzle-orm';
 import { describeEvent } from '../../shared/types/audit-words';
 import type { SignedInUser } from '../auth/session-user';
 import type { Database } from '../db/client';
-import { auditEvents } from '../db/schema';
+import { auditEvents, users } from '../db/schema';
 import { findStudy } from '../studies/studies.repository';
-import type { AuditQuery, HistoryEvent, HistoryPage } from '../../shared/schemas';
+import type { AuditQuery, HistoryEvent, HistoryPage, Person } from '../../shared/schemas';
 
 const view = (e: typeof auditEvents.$inferSelect): HistoryEvent => ({
-  id: e.id, at: e.at.toISOString(), userName: e.userName, studyId: e.studyId, action: e.action, entity: e.entity, ...describeEvent(e),
+  id: e.id, at: e.at.toISOString(), userId: e.userId, userName: e.userName, studyId: e.studyId, action: e.action, entity: e.entity, ...describeEvent(e),
 });
 
 export async function studyHistory(db: Database, me: SignedInUser, studyId: number): Promise<HistoryEvent[]> {
@@ -28,4 +28,9 @@ export async function labHistory(db: Database, me: SignedInUser, q: AuditQuery):
   const rows = await db.select().from(auditEvents).where(and(...where)).orderBy(desc(auditEvents.id)).limit(q.pageSize).offset((q.page - 1) * q.pageSize);
   const [{ total }] = await db.select({ total: sql<number>`count(*)::int` }).from(auditEvents).where(and(...where));
   return { items: rows.map(view), total };
+}
+
+/** The laboratory's people by name, for the history and archive filters. */
+export async function labPeople(db: Database, me: SignedInUser): Promise<Person[]> {
+  return db.select({ id: users.id, name: users.name }).from(users).where(eq(users.laboratoryId, me.laboratoryId)).orderBy(asc(users.name));
 }

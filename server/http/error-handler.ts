@@ -28,5 +28,6 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
     return;
   }
   console.error(`[parallax] ${req.method} ${req.path} failed:`, err);
-  res.status(500).json({ error: 'Something went wrong on the server; the change was not saved', issues: [] });
+  const mutating = !['GET', 'HEAD', 'OPTIONS'].includes(req.method);
+  res.status(500).json({ error: `Something went wrong on the server${mutating ? '; the change was not saved' : ''}`, issues: [] });
 };

@@ -4,7 +4,7 @@ import { StudyKind, StudyState } from './study.schema';
 const day = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date like 2026-11-30');
 
 export const HistoryEvent = z.object({
-  id: z.number(), at: z.string(), userName: z.string().nullable(), studyId: z.number().nullable(),
+  id: z.number(), at: z.string(), userId: z.number().nullable(), userName: z.string().nullable(), studyId: z.number().nullable(),
   action: z.string(), entity: z.string(), headline: z.string(), details: z.array(z.string()),
 });
 export type HistoryEvent = z.infer<typeof HistoryEvent>;
@@ -47,7 +47,7 @@ export type ArchiveQuery = z.infer<typeof ArchiveQuery>;
 
 export const ArchiveItem = z.object({
   id: z.number(), kind: StudyKind, title: z.string(), analyte: z.string(), instruments: z.string(), state: StudyState,
-  verdict: OverallVerdict.nullable(), signerName: z.string().nullable(), meaning: z.string().nullable(), signedAt: z.string().nullable(),
+  verdict: OverallVerdict.nullable(), signerId: z.number().nullable(), signerName: z.string().nullable(), meaning: z.string().nullable(), signedAt: z.string().nullable(),
   createdAt: z.string(), superseded: z.boolean(), supersedesId: z.number().nullable(), n: z.number(),
 });
 export type ArchiveItem = z.infer<typeof ArchiveItem>;
@@ -65,3 +65,7 @@ export const ReproduceReport = z.object({
   sameEngine: z.boolean(), fieldsCompared: z.number(), differences: z.array(FieldDifference), summary: z.string(),
 });
 export type ReproduceReport = z.infer<typeof ReproduceReport>;
+
+/** GET /api/v1/people: the laboratory's users by name, for filters (no e-mail, roles or state). */
+export const Person = z.object({ id: z.number(), name: z.string() });
+export type Person = z.infer<typeof Person>;

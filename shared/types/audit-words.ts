@@ -66,6 +66,9 @@ const HEADLINES: Record<string, (a: Obj, b: Obj) => string> = {
   'analysis.done': (a) => `Analysis finished in ${show(a.durationMs)} ms`,
   'analysis.failed': (a) => `Analysis failed: ${a.error ?? 'unknown error'}`,
   'signature.self-sign-allowed': () => 'The director signed rows they entered, as the laboratory setting allows',
+  'integrity.checked': (a) => `Integrity re-checked: ${a.passed ? 'every check passed' : `failed (${show(a.failed)})`}`,
+  'reproduce.checked': (a) => `Results re-run: ${a.identical ? 'identical' : `${a.differences} fields differ`} (engine ${a.engine})`,
+  'laboratory.updated': () => 'Laboratory settings changed',
   'sign-in': () => 'Signed in',
   'sign-out': () => 'Signed out',
   'user.locked': () => 'Account locked after five wrong passwords',
@@ -81,7 +84,7 @@ export function describeEvent(e: AuditEventLike): { headline: string; details: s
   const headline = HEADLINES[e.action]?.(a, b) ?? `${e.entity} ${e.action.split('.').slice(1).join(' ') || e.action}`;
   let details: string[];
   if (e.action.startsWith('specimens.')) details = rowLines(a);
-  else if (['study.updated', 'study.plan-amended', 'user.updated', 'analyte.updated', 'instrument.updated'].includes(e.action)) details = changesOf(b, a).filter((l) => !l.startsWith('after data'));
+  else if (['study.updated', 'study.plan-amended', 'user.updated', 'analyte.updated', 'instrument.updated', 'laboratory.updated'].includes(e.action)) details = changesOf(b, a).filter((l) => !l.startsWith('after data'));
   else if (['study.signed', 'study.submitted', 'study.returned'].includes(e.action)) details = a.contentHash ? [`content hash ${a.contentHash}`, ...(a.comment ? [`comment: ${a.comment}`] : [])] : [];
   else details = [];
   if (e.reason) details.push(`reason: ${e.reason}`);

@@ -2,9 +2,9 @@ import type { FindingsStatus, StudySettings, StudySummary } from '../../../../sh
 import { STUDY_KIND_LABELS, STUDY_STATE_LABELS } from '../../../../shared/schemas';
 
 export const DIFFERENCE_LABELS: Record<StudySettings['differenceType'], string> = {
-  absolute: 'Absolute: candidate − comparative',
+  absolute: 'Absolute: y − x',
   'percent-mean': 'Percent of the pair mean',
-  'percent-x': 'Percent of the comparative result',
+  'percent-x': 'Percent of x (comparative)',
 };
 
 export const REGRESSION_LABELS: Record<StudySettings['regression'], string> = {

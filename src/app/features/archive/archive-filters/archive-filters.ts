@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, inject, input, output } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input, output } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { FormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -15,6 +15,17 @@ import { syncForm } from '../form-sync';
 import { VERDICT_CHOICES } from '../verdict-view';
 
 const BLANK = { q: '', kind: '', analyteId: '', instrumentId: '', state: '', verdict: '', signedFrom: '', signedTo: '', createdFrom: '', createdTo: '' };
+type Field = keyof typeof BLANK;
+
+interface Choice { value: string; label: string; icon?: string }
+/** One chooser of the form: its field, its label, the words for "not searched", and its choices. */
+interface Chooser { key: Field; id: string; label: string; any: string; choices: Choice[] }
+
+const pairs = (labels: Record<string, string>): Choice[] => Object.entries(labels).map(([value, label]) => ({ value, label }));
+const RANGES = [
+  { from: 'signedFrom', to: 'signedTo', id: 'signed', legend: 'Signed between (UTC days)' },
+  { from: 'createdFrom', to: 'createdTo', id: 'created', legend: 'Created between (UTC days)' },
+] as const;
 
 /** The archive's search form: typing and choosing search at once (after a short pause); the address keeps the search. */
 @Component({
@@ -33,19 +44,30 @@ export class ArchiveFilters {
   private readonly api = inject(ArchiveApi);
   protected readonly analytes = toSignal(this.api.analytes().pipe(catchError(() => of([]))), { initialValue: [] });
   protected readonly instruments = toSignal(this.api.instruments().pipe(catchError(() => of([]))), { initialValue: [] });
-  protected readonly kinds = Object.entries(STUDY_KIND_LABELS);
-  protected readonly states = Object.entries(STUDY_STATE_LABELS);
-  protected readonly verdicts = VERDICT_CHOICES;
+  protected readonly choosers = computed<Chooser[]>(() => [
+    { key: 'kind', id: 'kind', label: 'Kind', any: 'Any kind', choices: pairs(STUDY_KIND_LABELS) },
+    {
+      key: 'analyteId', id: 'analyte', label: 'Analyte', any: 'Any analyte',
+      choices: this.analytes().map((a) => ({ value: String(a.id), label: `${a.name} (${a.unit})` })),
+    },
+    {
+      key: 'instrumentId', id: 'instrument', label: 'Instrument', any: 'Any instrument',
+      choices: this.instruments().map((i) => ({ value: String(i.id), label: i.name })),
+    },
+    { key: 'state', id: 'state', label: 'State', any: 'Any state', choices: pairs(STUDY_STATE_LABELS) },
+    { key: 'verdict', id: 'verdict', label: 'Verdict', any: 'Any verdict', choices: VERDICT_CHOICES.map((v) => ({ value: v.key, label: v.word, icon: v.icon })) },
+  ]);
+  protected readonly ranges = RANGES;
   protected readonly orderError = DATE_ORDER_ERROR;
   protected readonly form = inject(FormBuilder).nonNullable.group(BLANK, {
-    validators: [datesInOrder('signedFrom', 'signedTo'), datesInOrder('createdFrom', 'createdTo')],
+    validators: RANGES.map((r) => datesInOrder(r.from, r.to)),
   });
 
   constructor() {
     syncForm(this.form, BLANK, () => this.filter(), (search: ArchiveFilter) => this.changed.emit(search), ['analyteId', 'instrumentId']);
   }
 
-  protected backwards(fromKey: 'signedFrom' | 'createdFrom'): boolean {
+  protected backwards(fromKey: Field): boolean {
     return rangeBackwards(this.form, fromKey);
   }
 

@@ -1,13 +1,11 @@
 import { ChangeDetectionStrategy, Component, computed, effect, inject, signal, untracked } from '@angular/core';
-import { toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatPaginatorModule, PageEvent } from '@angular/material/paginator';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSortModule, Sort } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
-import { ActivatedRoute, Router, RouterLink } from '@angular/router';
-import { map } from 'rxjs';
+import { Router, RouterLink } from '@angular/router';
 import { ArchiveQuery, STUDY_KIND_LABELS, STUDY_STATE_LABELS, type ArchiveItem } from '../../../../../shared/schemas';
 import { ApiError } from '../../../core/http/api-error';
 import { ErrorBanner } from '../../../ui/error-banner';
@@ -17,7 +15,8 @@ import { ArchiveFilters } from '../archive-filters/archive-filters';
 import { DecisionCaution } from '../decision-caution';
 import { FileDownload } from '../file-download';
 import { ZonedPipe, labZone } from '../lab-time';
-import { routerParams, withChange } from '../query-params';
+import { withChange } from '../query-params';
+import { routeQuery } from '../route-query';
 import { VerdictBadge } from '../verdict-badge';
 import { meaningWords } from '../verdict-view';
 
@@ -36,13 +35,11 @@ import { meaningWords } from '../verdict-view';
 export class ArchivePage {
   protected readonly store = inject(ArchiveStore);
   private readonly router = inject(Router);
-  private readonly route = inject(ActivatedRoute);
   private readonly downloads = inject(FileDownload);
+  private readonly address = routeQuery<ArchiveQuery, (typeof ARCHIVE_KEYS)[number]>(archiveFilterFrom, ARCHIVE_KEYS);
   protected readonly zone = labZone();
-  protected readonly filter = toSignal(this.route.queryParamMap.pipe(map((p) => archiveFilterFrom(Object.fromEntries(p.keys.map((k) => [k, p.get(k) ?? undefined]))))), {
-    initialValue: {} as ArchiveFilter,
-  });
-  protected readonly columns = ['title', 'kind', 'analyte', 'n', 'state', 'verdict', 'signed', 'createdAt'];
+  protected readonly filter = this.address.query;
+  protected readonly columns = ['title', 'kind', 'n', 'state', 'verdict', 'signed', 'createdAt'];
   protected readonly kindLabel = (item: ArchiveItem): string => STUDY_KIND_LABELS[item.kind];
   protected readonly stateLabel = (item: ArchiveItem): string => STUDY_STATE_LABELS[item.state];
   protected readonly meaning = meaningWords;
@@ -91,6 +88,6 @@ export class ArchivePage {
   }
 
   private go(filter: ArchiveFilter): void {
-    void this.router.navigate([], { relativeTo: this.route, queryParams: routerParams(filter, ARCHIVE_KEYS) });
+    this.address.go(filter);
   }
 }

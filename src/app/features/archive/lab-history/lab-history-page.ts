@@ -1,5 +1,4 @@
 import { ChangeDetectionStrategy, Component, computed, effect, inject, untracked } from '@angular/core';
-import { toSignal } from '@angular/core/rxjs-interop';
 import { FormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -8,8 +7,6 @@ import { MatInputModule } from '@angular/material/input';
 import { MatPaginatorModule, PageEvent } from '@angular/material/paginator';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
-import { ActivatedRoute, Router } from '@angular/router';
-import { map } from 'rxjs';
 import type { AuditQuery } from '../../../../../shared/schemas';
 import { ErrorBanner } from '../../../ui/error-banner';
 import { DATE_ORDER_ERROR, datesInOrder, rangeBackwards } from '../date-range';
@@ -17,7 +14,8 @@ import { syncForm } from '../form-sync';
 import { ACTION_CHOICES } from '../history-actions';
 import type { HistoryFilter } from '../history-api';
 import { HistoryTimeline } from '../history-timeline/history-timeline';
-import { routerParams, withChange } from '../query-params';
+import { withChange } from '../query-params';
+import { routeQuery } from '../route-query';
 import { HISTORY_KEYS, HISTORY_PAGE_SIZE, historyFilterFrom } from './history-query';
 import { LabHistoryStore } from './lab-history-store';
 
@@ -37,11 +35,8 @@ const BLANK = { action: '', studyId: '', from: '', to: '' };
 })
 export class LabHistoryPage {
   protected readonly store = inject(LabHistoryStore);
-  private readonly router = inject(Router);
-  private readonly route = inject(ActivatedRoute);
-  protected readonly filter = toSignal(this.route.queryParamMap.pipe(map((p) => historyFilterFrom(Object.fromEntries(p.keys.map((k) => [k, p.get(k) ?? undefined]))))), {
-    initialValue: {} as HistoryFilter,
-  });
+  private readonly address = routeQuery<AuditQuery, (typeof HISTORY_KEYS)[number]>(historyFilterFrom, HISTORY_KEYS);
+  protected readonly filter = this.address.query;
   protected readonly choices = ACTION_CHOICES;
   protected readonly orderError = DATE_ORDER_ERROR;
   protected readonly form = inject(FormBuilder).nonNullable.group(BLANK, { validators: [datesInOrder('from', 'to')] });
@@ -73,6 +68,6 @@ export class LabHistoryPage {
   }
 
   private go(filter: HistoryFilter): void {
-    void this.router.navigate([], { relativeTo: this.route, queryParams: routerParams(filter, HISTORY_KEYS) });
+    this.address.go(filter);
   }
 }

@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, inject, input, output } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input, output } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
@@ -7,6 +7,7 @@ import { ErrorBanner } from '../../../ui/error-banner';
 import { ArchiveApi } from '../archive-api';
 import { ZonedPipe, labZone } from '../lab-time';
 import { engineLine, integrityOutcome, reproduceOutcome, showValue } from '../recheck-words';
+import { RecheckOutcome } from './recheck-outcome';
 import { RecheckRun } from './recheck-run';
 
 /**
@@ -18,7 +19,7 @@ import { RecheckRun } from './recheck-run';
   templateUrl: './recheck-panel.html',
   styleUrl: './recheck-panel.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [MatButtonModule, MatIconModule, MatProgressBarModule, MatTableModule, ErrorBanner, ZonedPipe],
+  imports: [MatButtonModule, MatIconModule, MatProgressBarModule, MatTableModule, ErrorBanner, ZonedPipe, RecheckOutcome],
 })
 export class RecheckPanel {
   readonly studyId = input.required<number>();
@@ -31,8 +32,14 @@ export class RecheckPanel {
   protected readonly zone = labZone();
   protected readonly integrity = new RecheckRun(() => this.api.checkIntegrity(this.studyId()), () => this.checked.emit());
   protected readonly reproduce = new RecheckRun(() => this.api.reproduce(this.studyId()), () => this.checked.emit());
-  protected readonly integrityOutcome = integrityOutcome;
-  protected readonly reproduceOutcome = reproduceOutcome;
+  protected readonly integrityOutcome = computed(() => {
+    const report = this.integrity.report();
+    return report && integrityOutcome(report);
+  });
+  protected readonly reproduceOutcome = computed(() => {
+    const report = this.reproduce.report();
+    return report && reproduceOutcome(report);
+  });
   protected readonly engineLine = engineLine;
   protected readonly show = showValue;
   protected readonly differenceColumns = ['path', 'stored', 'recomputed'];

@@ -2,7 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, effect, inject, input, ou
 import { toSignal } from '@angular/core/rxjs-interop';
 import { ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
-import { MatFormFieldModule } from '@angular/material/form-field';
+import { MAT_FORM_FIELD_DEFAULT_OPTIONS, MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
@@ -16,6 +16,7 @@ import { Notices } from '../../../core/notify/notices';
 import { ErrorBanner } from '../../../ui/error-banner';
 import { FieldErrorPipe } from '../../../ui/field-error';
 import { schemaIssues } from '../../../ui/schema-rule';
+import { ActionBanner } from '../action-banner';
 import { StudiesApi } from '../api/studies-api';
 import { StudyCatalog, StudyCatalogApi } from '../api/catalog-api';
 import { SUPPORTED_KINDS, kindView } from '../study-kinds';
@@ -33,9 +34,11 @@ import { createBody, randomSeed, settingsFromAnalyte, setupValues, updateBody } 
   templateUrl: './setup-form.html',
   styleUrl: './setup-form.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
+  // Hints of two lines (the Deming convention, the bias source) get the room they need.
+  providers: [{ provide: MAT_FORM_FIELD_DEFAULT_OPTIONS, useValue: { subscriptSizing: 'dynamic' } }],
   imports: [
     ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule, MatIconModule,
-    NgComponentOutlet, ErrorBanner, FieldErrorPipe,
+    NgComponentOutlet, ErrorBanner, FieldErrorPipe, ActionBanner,
   ],
 })
 export class SetupForm {

@@ -30,6 +30,11 @@ describe('specimenColumns', () => {
     expect(column(cols, 'comparative')).toMatchObject({ cellDataType: 'text', cellEditor: 'agTextCellEditor', cellClass: 'cell-result' });
   });
 
+  it('lets the free-text columns take the room left over', () => {
+    expect(column(cols, 'note')).toMatchObject({ flex: 1, minWidth: 200 });
+    expect(column(cols, 'candidate')).toMatchObject({ width: 175 });
+  });
+
   it('makes nothing editable on a study that no longer changes', () => {
     expect(specimenColumns(COMPARISON_LAYOUT, false).every((c) => !c.editable)).toBe(true);
   });

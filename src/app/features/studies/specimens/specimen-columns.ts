@@ -32,7 +32,7 @@ export function specimenColumns(layout: SpecimenLayout, editable: boolean): ColD
   const fields = layout.fields.map<ColDef<GridRow>>((f) => ({
     field: f.field,
     headerName: f.header,
-    width: f.width,
+    ...(f.grow ? { flex: 1, minWidth: f.width } : { width: f.width }),
     editable,
     sortable: false,
     suppressMovable: true,

@@ -13,6 +13,8 @@ export interface SpecimenField {
   /** What an empty text cell is sent as. */
   blankAs?: '' | null;
   width?: number;
+  /** Takes a share of the room left over (free-text columns). */
+  grow?: boolean;
 }
 
 /** One grid row: a local id for the grid, then one value per field (text as typed, flags as booleans). */
@@ -29,11 +31,11 @@ export interface SpecimenLayout {
 export const COMPARISON_LAYOUT: SpecimenLayout = {
   fields: [
     { field: 'label', header: 'Specimen label', kind: 'text', words: 'specimen label', width: 150 },
-    { field: 'comparative', header: 'Comparative result', kind: 'result', words: 'comparative result', width: 150 },
-    { field: 'candidate', header: 'Candidate result', kind: 'result', words: 'candidate result', width: 150 },
+    { field: 'comparative', header: 'Comparative result', kind: 'result', words: 'comparative result', width: 175 },
+    { field: 'candidate', header: 'Candidate result', kind: 'result', words: 'candidate result', width: 175 },
     { field: 'excluded', header: 'Excluded', kind: 'flag', words: 'excluded', width: 100 },
-    { field: 'exclusionReason', header: 'Exclusion reason', kind: 'text', words: 'exclusion reason', blankAs: null, width: 200 },
-    { field: 'note', header: 'Note', kind: 'text', words: 'note', width: 200 },
+    { field: 'exclusionReason', header: 'Exclusion reason', kind: 'text', words: 'exclusion reason', blankAs: null, width: 200, grow: true },
+    { field: 'note', header: 'Note', kind: 'text', words: 'note', width: 200, grow: true },
   ],
 };
 

@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
+import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, input, viewChild } from '@angular/core';
 import type { ChartData, ChartOptions, ChartType } from 'chart.js';
 import { BaseChartDirective, provideCharts } from 'ng2-charts';
 import { CHART_SETUP } from './chart-setup';
@@ -23,6 +23,10 @@ import { Markers, labelPadding, markerRange } from './markers-plugin';
     .plot { margin: 0; padding: 12px; border: 1px solid var(--mat-sys-outline-variant); border-radius: 12px; background: var(--mat-sys-surface); break-inside: avoid; }
     figcaption { display: flex; flex-direction: column; gap: 2px; margin-bottom: 8px; font: var(--mat-sys-body-medium); }
     .canvas { position: relative; height: 300px; }
+    @media print {
+      .canvas { height: auto; }
+      canvas { max-width: 100% !important; height: auto !important; }
+    }
   `,
 })
 export class FindingsChart {
@@ -36,6 +40,18 @@ export class FindingsChart {
   /** Bars that touch, as a histogram's do. */
   readonly histogram = input(false);
   readonly testId = input('plot');
+  private readonly chart = viewChild(BaseChartDirective);
+
+  constructor() {
+    // The printed page is narrower than the screen: redraw the canvas to the paper's width and back.
+    const fit = (): void => this.chart()?.chart?.resize();
+    window.addEventListener('beforeprint', fit);
+    window.addEventListener('afterprint', fit);
+    inject(DestroyRef).onDestroy(() => {
+      window.removeEventListener('beforeprint', fit);
+      window.removeEventListener('afterprint', fit);
+    });
+  }
 
   /** The scale reaches every marker (a limit of agreement may lie beyond every point). */
   private range(axis: 'x' | 'y'): { suggestedMin?: number; suggestedMax?: number } {

@@ -41,7 +41,9 @@ export class ComparisonFindings {
   protected readonly result = computed(() => asComparison(this.results()));
   protected readonly units = computed(() => (this.result() ? unitsOf(this.study(), this.result()!) : null));
   /** The analysed rows are the saved rows while the findings are current and nothing on screen is unsaved. */
-  protected readonly current = computed(() => this.analysis().current && this.specimens.status() === 'saved' && !this.specimens.loading());
+  protected readonly current = computed(
+    () => this.analysis().current && this.study().findings !== 'out-of-date' && this.specimens.status() === 'saved' && !this.specimens.loading(),
+  );
   protected readonly points = computed(() =>
     this.current() && this.result() ? plotPoints(this.specimens.rows(), this.result()!.differenceType) : null,
   );

@@ -5,6 +5,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { CAUTION } from '../../../../../../shared/stats/comparison-types';
 import { ErrorBanner } from '../../../../ui/error-banner';
+import { ActionBanner } from '../../action-banner';
 import { SpecimensStore } from '../../specimens/specimens-store';
 import { kindView } from '../../study-kinds';
 import { StudyStore } from '../../study/study-store';
@@ -20,13 +21,15 @@ import { failureText, runStateText } from './run-state';
   templateUrl: './findings-tab.html',
   styleUrl: './findings-tab.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [NgComponentOutlet, DecimalPipe, MatButtonModule, MatIconModule, MatProgressBarModule, ErrorBanner],
+  imports: [NgComponentOutlet, DecimalPipe, MatButtonModule, MatIconModule, MatProgressBarModule, ErrorBanner, ActionBanner],
 })
 export class FindingsTab {
   protected readonly study = inject(StudyStore);
   protected readonly analyses = inject(AnalysisStore);
   private readonly specimens = inject(SpecimensStore);
   protected readonly caution = CAUTION;
+  protected readonly staleText =
+    'The rows or settings changed after these findings were made; they describe the earlier data. Run the analysis again to bring them up to date.';
   protected readonly panel = signal<Type<unknown> | null>(null);
   private readonly now = signal(Date.now());
 

@@ -1,6 +1,6 @@
-import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
+import { ChangeDetectionStrategy, Component, DestroyRef, computed, effect, inject, input, untracked } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
-import { ReactiveFormsModule } from '@angular/forms';
+import { ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
@@ -32,6 +32,23 @@ export class ComparisonSetupFields {
   );
   protected readonly showRatio = computed(() => usesDemingRatio(this.regression() ?? 'passing-bablok'));
   protected readonly settings = computed(() => this.form().controls.settings.controls);
+
+  constructor() {
+    // A comparison needs both instruments; the requirement leaves with these fields.
+    effect(() => {
+      const form = this.form();
+      untracked(() => this.require(form, true));
+    });
+    inject(DestroyRef).onDestroy(() => this.require(this.form(), false));
+  }
+
+  private require(form: SetupGroup, on: boolean): void {
+    for (const control of [form.controls.comparativeInstrumentId, form.controls.candidateInstrumentId]) {
+      if (on) control.addValidators(Validators.required);
+      else control.removeValidators(Validators.required);
+      control.updateValueAndValidity({ emitEvent: false });
+    }
+  }
 
   private isChosen(id: number): boolean {
     const v = this.form().getRawValue();

@@ -18,21 +18,19 @@ export interface ExcludeData {
   imports: [ReactiveFormsModule, MatDialogModule, MatButtonModule, MatFormFieldModule, MatInputModule, FieldErrorPipe],
   template: `
     <h2 mat-dialog-title>Exclude {{ data.row }}</h2>
-    <form (ngSubmit)="exclude()" novalidate>
-      <mat-dialog-content>
-        <p>An excluded row stays in the study and its report, with this reason; the findings are shown with and without it.</p>
-        <mat-form-field class="full-width">
-          <mat-label>Reason for the exclusion</mat-label>
-          <textarea matInput rows="3" [formControl]="reason" data-testid="exclude-reason"></textarea>
-          <mat-hint>For example a clotted specimen, a mix-up found on review, or a result outside the measuring range.</mat-hint>
-          <mat-error>{{ reason.errors | fieldError: 'A reason' }}</mat-error>
-        </mat-form-field>
-      </mat-dialog-content>
-      <mat-dialog-actions align="end">
-        <button mat-button type="button" mat-dialog-close>Cancel</button>
-        <button mat-flat-button type="submit" data-testid="exclude-confirm">Exclude the row</button>
-      </mat-dialog-actions>
-    </form>
+    <mat-dialog-content>
+      <p>An excluded row stays in the study and its report, with this reason; the findings are shown with and without it.</p>
+      <mat-form-field class="full-width">
+        <mat-label>Reason for the exclusion</mat-label>
+        <textarea matInput rows="3" [formControl]="reason" data-testid="exclude-reason"></textarea>
+        <mat-hint>For example a clotted specimen, a mix-up found on review, or a result outside the measuring range.</mat-hint>
+        <mat-error>{{ reason.errors | fieldError: 'A reason' }}</mat-error>
+      </mat-form-field>
+    </mat-dialog-content>
+    <mat-dialog-actions align="end">
+      <button mat-button type="button" mat-dialog-close>Cancel</button>
+      <button mat-flat-button type="button" (click)="exclude()" data-testid="exclude-confirm">Exclude the row</button>
+    </mat-dialog-actions>
   `,
 })
 export class ExcludeDialog {

@@ -11,7 +11,7 @@ import { sensitivityRows } from '../summary-rows';
     <section class="panel" aria-labelledby="sensitivity-heading" data-testid="sensitivity-panel">
       <h2 id="sensitivity-heading">With and without the excluded rows</h2>
       @if (rows(); as rows) {
-        <p class="muted">{{ excluded() }} excluded, each with its reason on the Specimens tab. The findings above leave them out; here they are shown both ways.</p>
+        <p class="muted">{{ excluded() }} The findings above leave {{ result().excluded.count === 1 ? 'it' : 'them' }} out; here the main estimates are shown both ways.</p>
         <div class="table-scroll">
           <table>
             <thead><tr><th scope="col">Estimate (CI)</th><th scope="col" class="num">Without the excluded rows</th><th scope="col" class="num">With every row</th></tr></thead>
@@ -38,6 +38,6 @@ export class SensitivityPanel {
   });
   protected readonly excluded = computed(() => {
     const count = this.result().excluded.count;
-    return count === 1 ? 'One row is' : `${count} rows are`;
+    return count === 1 ? 'One row is excluded; its reason is on the Specimens tab.' : `${count} rows are excluded; their reasons are on the Specimens tab.`;
   });
 }
