@@ -2,7 +2,7 @@ import { forEachResample } from '../shared/stats/bootstrap';
 import { percentileInterval } from '../shared/stats/confidence-interval';
 import { medianFromCounts } from '../shared/stats/counts-stats';
 import { meanFromCounts } from '../shared/stats/difference-bias';
-import { streamFor, Xor4096 } from '../shared/stats/rng';
+import { streamFor, Xor128 } from '../shared/stats/rng';
 import { shiftedNullTest } from '../shared/stats/shifted-null-test';
 
 // Calibration by seeded simulation (our own check; the tolerances come from the simulation size):
@@ -17,7 +17,7 @@ import { shiftedNullTest } from '../shared/stats/shifted-null-test';
 const M = 400;
 const B = 999;
 
-function normalSample(stream: Xor4096, n: number): Float64Array {
+function normalSample(stream: Xor128, n: number): Float64Array {
   const out = new Float64Array(n);
   for (let i = 0; i < n; i += 2) {
     const u = 1 - stream.nextUniform();

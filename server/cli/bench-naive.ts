@@ -1,6 +1,6 @@
 /**
  * Sort-per-resample versions of the benchmarked workloads, for `npm run bench` only: each draws the same
- * resamples from the same streams as the engine (Xor4096.nextIndex, same seeds and parts) but materialises
+ * resamples from the same streams as the engine (Xor128.nextIndex, same seeds and parts) but materialises
  * every resample, sorts it and reads the statistic off the sorted copy. Two styles:
  * - 'plain': the straightforward JavaScript, a new array per resample sorted with (a, b) => a - b;
  * - 'typed': one reused Float64Array sorted with the native numeric typed-array sort (a strong baseline).
@@ -12,11 +12,11 @@ export function useStyle(s: SortStyle): void {
 }
 import { percentileInterval } from '../../shared/stats/confidence-interval';
 import { medianSorted, quantileSorted, sortedCopy } from '../../shared/stats/quantile';
-import { streamFor, type Xor4096 } from '../../shared/stats/rng';
+import { streamFor, type Xor128 } from '../../shared/stats/rng';
 import { slopeTable } from '../../shared/stats/slope-table';
 import { median } from '../../shared/stats';
 
-function eachSortedResample(data: Float64Array, B: number, stream: Xor4096, visit: (sorted: Float64Array, b: number) => void): void {
+function eachSortedResample(data: Float64Array, B: number, stream: Xor128, visit: (sorted: Float64Array, b: number) => void): void {
   const n = data.length;
   const buffer = new Float64Array(n);
   for (let b = 0; b < B; b++) {

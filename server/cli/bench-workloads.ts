@@ -6,7 +6,7 @@ import { medianFromCounts } from '../../shared/stats/counts-stats';
 import { resolveIntervalOptions } from '../../shared/stats/interval-options';
 import { sortedCopy } from '../../shared/stats/quantile';
 import { referenceInterval } from '../../shared/stats/reference-interval';
-import { streamFor, Xor4096 } from '../../shared/stats/rng';
+import { streamFor, Xor128 } from '../../shared/stats/rng';
 import { shiftedNullTest } from '../../shared/stats/shifted-null-test';
 import { PASSING_BABLOK_MAX_PAIRS } from '../../shared/stats/comparison-core';
 import { naiveDifferenceParts, naiveIntervalCi, naiveMedianCi, naiveMedianTest, naivePassingBablokBootstrap } from './bench-naive';
@@ -27,7 +27,7 @@ export interface Workload {
 
 /** Invented data (seeded): results to 1 decimal, x from 2 to 50, y = 1.02x + 0.3 + noise. */
 export function benchData(n: number): { values: Float64Array; x: Float64Array; y: Float64Array } {
-  const s = new Xor4096(`bench-data-${n}`);
+  const s = new Xor128(`bench-data-${n}`);
   const noise = (): number => (s.nextUniform() + s.nextUniform() + s.nextUniform() - 1.5) * 0.8;
   const x = Float64Array.from({ length: n }, () => Math.round((2 + 48 * s.nextUniform()) * 10) / 10);
   const y = x.map((v) => Math.round((1.02 * v + 0.3 + noise()) * 10) / 10);

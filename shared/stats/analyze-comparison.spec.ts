@@ -1,10 +1,10 @@
 import { analyzeComparison } from './analyze-comparison';
 import { CAUTION } from './comparison-types';
 import { OptionError } from './options';
-import { Xor4096 } from './rng';
+import { Xor128 } from './rng';
 
 function rows(n: number, seed = 'cmp'): { x: number; y: number }[] {
-  const s = new Xor4096(seed);
+  const s = new Xor128(seed);
   return Array.from({ length: n }, () => {
     const x = Math.round((3 + 40 * s.nextUniform()) * 10) / 10;
     return { x, y: Math.round((1.03 * x + 0.2 + (s.nextUniform() - 0.5)) * 10) / 10 };
@@ -27,7 +27,7 @@ describe('analyzeComparison', () => {
     expect(JSON.stringify(data)).toBe(copy);
     expect(JSON.parse(JSON.stringify(result))).toEqual(result);
     expect(result.caution).toBe(CAUTION);
-    expect(result.engine).toMatchObject({ version: 'parallax-stats 1.0.0 (xor4096)', resamples: 1000 });
+    expect(result.engine).toMatchObject({ version: 'parallax-stats 1.1.0 (xor128)', resamples: 1000 });
   });
 
   it('leaves excluded rows out, counts them, and shows the estimates with them in sensitivity', () => {

@@ -1,9 +1,9 @@
 import { analyzeInterval } from './analyze-interval';
 import { verifyInterval } from './verify-interval';
-import { Xor4096 } from './rng';
+import { Xor128 } from './rng';
 
 function values(n: number, centre: number, seed: string): number[] {
-  const s = new Xor4096(seed);
+  const s = new Xor128(seed);
   return Array.from({ length: n }, () => Math.round((centre + (s.nextUniform() + s.nextUniform() + s.nextUniform() - 1.5)) * 100) / 100);
 }
 

@@ -1,4 +1,4 @@
-import type { Xor4096 } from './rng';
+import type { Xor128 } from './rng';
 
 /** Limits on the number of resamples (the contract: default 10,000, allowed 1,000 to 200,000). */
 export const DEFAULT_RESAMPLES = 10_000;
@@ -10,7 +10,7 @@ export type ProgressFn = (fraction: number) => void;
 
 export interface ResampleSettings {
   resamples: number;
-  stream: Xor4096;
+  stream: Xor128;
   onProgress?: ProgressFn;
 }
 

@@ -1,6 +1,6 @@
 import { medianFromCounts, momentsFromCounts, orderStatisticFromCounts, quantileFromCounts } from './counts-stats';
 import { medianSorted, quantileSorted } from './quantile';
-import { Xor4096 } from './rng';
+import { Xor128 } from './rng';
 import { sampleSd } from './summation';
 
 function expand(sorted: Float64Array, counts: Int32Array): Float64Array {
@@ -10,7 +10,7 @@ function expand(sorted: Float64Array, counts: Int32Array): Float64Array {
 }
 
 describe('statistics read off resample counts', () => {
-  const stream = new Xor4096('counts-spec');
+  const stream = new Xor128('counts-spec');
   it.each([7, 8, 40, 41])('equal the same statistics of the expanded, sorted resample (n = %i)', (n) => {
     const sorted = Float64Array.from({ length: n }, (_, i) => i * 0.5 + (i % 3) * 0.1).sort();
     const counts = new Int32Array(n);

@@ -1,9 +1,9 @@
 /**
  * The engine's identity, stamped on every result so an archived analysis can be reproduced.
- * The generator named here is seedrandom's xor4096 (R. P. Brent's 4096-bit xorgens); see rng.ts.
+ * The generator named here is seedrandom's xor128 (Marsaglia's xorshift128); see rng.ts.
  */
-export const GENERATOR = 'seedrandom xor4096';
-export const ENGINE_VERSION = 'parallax-stats 1.0.0 (xor4096)';
+export const GENERATOR = 'seedrandom xor128';
+export const ENGINE_VERSION = 'parallax-stats 1.1.0 (xor128)';
 
 export interface EngineInfo {
   version: string;

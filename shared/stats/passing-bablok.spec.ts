@@ -1,6 +1,6 @@
 import { passingBablok } from './passing-bablok';
 import { weightedPassingBablok } from './passing-bablok-weighted';
-import { Xor4096 } from './rng';
+import { Xor128 } from './rng';
 import { slopeTable } from './slope-table';
 import { cusumLinearity } from './cusum-linearity';
 
@@ -31,7 +31,7 @@ describe('passingBablok', () => {
 
   it('reads the same slope off the sorted table as from the resample recomputed (weighted walk)', () => {
     const table = slopeTable(x, y);
-    const stream = new Xor4096('pb');
+    const stream = new Xor128('pb');
     const counts = new Int32Array(x.length);
     const scratch = new Float64Array(x.length);
     for (let rep = 0; rep < 30; rep++) {

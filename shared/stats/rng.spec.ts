@@ -1,22 +1,22 @@
 import seedrandom from 'seedrandom';
-import { Xor4096, streamFor } from './rng';
+import { Xor128, streamFor } from './rng';
 
-describe('Xor4096', () => {
-  it('gives the same 32-bit outputs as seedrandom.xor4096 for the same seed', () => {
-    const reference = seedrandom.xor4096('parallax');
-    const stream = new Xor4096('parallax');
+describe('Xor128', () => {
+  it('gives the same 32-bit outputs as seedrandom.xor128 for the same seed', () => {
+    const reference = seedrandom.xor128('parallax');
+    const stream = new Xor128('parallax');
     for (let k = 0; k < 5000; k++) expect(stream.nextInt32()).toBe(reference.int32());
   });
 
-  it('draws indices as Math.floor(seedrandom.xor4096(seed)() * n)', () => {
-    const reference = seedrandom.xor4096('seed-7');
-    const stream = new Xor4096('seed-7');
+  it('draws indices as Math.floor(seedrandom.xor128(seed)() * n)', () => {
+    const reference = seedrandom.xor128('seed-7');
+    const stream = new Xor128('seed-7');
     for (let k = 0; k < 2000; k++) expect(stream.nextIndex(37)).toBe(Math.floor(reference() * 37));
   });
 
   it('fills counts with the same draws as single index calls', () => {
-    const a = new Xor4096('s');
-    const b = new Xor4096('s');
+    const a = new Xor128('s');
+    const b = new Xor128('s');
     const counts = new Int32Array(25);
     for (let rep = 0; rep < 3; rep++) {
       a.fillCounts(counts, 25);

@@ -44,7 +44,7 @@ const base = (kind: StudyReport['study']['kind'], settings: StudySettings, rows:
     candidate: { name: 'Satellite chemistry 2', model: 'Harborline C-350', serial: 'HL3-10988' },
     instrument: { name: 'Core chemistry 1', model: 'Harborline C-700', serial: 'HL7-00231' },
   },
-  settings, engineVersion: 'parallax-stats 1.0.0 (xor4096)', rows,
+  settings, engineVersion: 'parallax-stats 1.1.0 (xor128)', rows,
   amendments: [{
     at: new Date('2026-11-20T14:05:00Z'), by: 'Dr. Imani Okafor', field: 'Allowable bias',
     from: '0.25 mmol/L', to: '0.3 mmol/L or 5%', reason: 'Goal source updated to the 2024 proficiency-testing limits (laboratory policy QP-12 rev 4)',
