@@ -28,6 +28,12 @@ export const routes: Routes = [
         loadComponent: () => import('./features/worklist/worklist-page/worklist-page').then((m) => m.WorklistPage),
       },
       {
+        path: 'studies/:id/review',
+        title: 'Review · Parallax',
+        canActivate: [roleGuard('director', 'technologist', 'quality')],
+        loadComponent: () => import('./features/review/review-page/review-page').then((m) => m.ReviewPage),
+      },
+      {
         path: 'studies',
         canActivate: [roleGuard('technologist', 'director', 'quality')],
         loadChildren: () => import('./features/studies/studies.routes').then((m) => m.STUDIES_ROUTES),

@@ -13,7 +13,7 @@ import { MatIconModule } from '@angular/material/icon';
     <div class="banner" role="status">
       <mat-icon aria-hidden="true">{{ icon() }}</mat-icon>
       <span>{{ text() }}</span>
-      <ng-content />
+      <span class="action"><ng-content /></span>
     </div>
   `,
   styles: `
@@ -23,7 +23,7 @@ import { MatIconModule } from '@angular/material/icon';
       background: var(--mat-sys-tertiary-container); color: var(--mat-sys-on-tertiary-container);
     }
     span { flex: 1 1 auto; }
-    ::ng-deep app-action-banner button { white-space: nowrap; }
+    .action { flex: 0 0 auto; white-space: nowrap; }
   `,
 })
 export class ActionBanner {

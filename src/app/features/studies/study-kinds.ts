@@ -2,6 +2,9 @@ import { Type } from '@angular/core';
 import type { StudyKind } from '../../../../shared/schemas';
 import { ComparisonSetupFields } from './setup/comparison-setup-fields/comparison-setup-fields';
 import { COMPARISON_LAYOUT, SpecimenLayout } from './specimens/specimen-layout';
+import { INTERVAL_LAYOUT } from './intervals/interval-layout';
+import { EstablishSetupFields } from './intervals/setup/establish-setup-fields';
+import { VerifySetupFields } from './intervals/setup/verify-setup-fields';
 
 /**
  * What a kind of study plugs into the study page: its own Setup fields (a component with a `form` input,
@@ -20,6 +23,16 @@ const VIEWS: Partial<Record<StudyKind, StudyKindView>> = {
     setupFields: ComparisonSetupFields,
     layout: COMPARISON_LAYOUT,
     findings: () => import('./findings/comparison/comparison-findings').then((m) => m.ComparisonFindings),
+  },
+  'interval-establish': {
+    setupFields: EstablishSetupFields,
+    layout: INTERVAL_LAYOUT,
+    findings: () => import('./intervals/findings/establish-findings').then((m) => m.EstablishFindings),
+  },
+  'interval-verify': {
+    setupFields: VerifySetupFields,
+    layout: INTERVAL_LAYOUT,
+    findings: () => import('./intervals/findings/verify-findings').then((m) => m.VerifyFindings),
   },
 };
 

@@ -126,6 +126,15 @@ describe('SpecimensStore autosave', () => {
     expect(store.status()).toBe('saved');
   });
 
+  it('keeps a result typed with a decimal comma with a point, and leaves a typing error as typed', () => {
+    store.setCell(uidOf(0), 'candidate', '5,35');
+    store.setCell(uidOf(1), 'candidate', '7,x');
+    store.setCell(uidOf(1), 'note', 'a,b');
+    expect(store.rows()[0]['candidate']).toBe('5.35');
+    expect(store.rows()[1]['candidate']).toBe('7,x');
+    expect(store.rows()[1]['note']).toBe('a,b');
+  });
+
   it('excludes a row with its reason and saves at once', () => {
     store.exclude(1, 'clotted specimen');
     expect(puts).toHaveLength(1);

@@ -5,19 +5,13 @@ import type { SpecimenRows } from '../../../../../shared/schemas';
 import { ApiError } from '../../../core/http/api-error';
 import { SpecimensApi } from '../api/specimens-api';
 import { StudyStore } from '../study/study-store';
-import { isVersionConflict } from '../version-conflict';
 import { PasteOutcome, PasteTarget, applyPaste } from './apply-paste';
+import { normaliseDecimal } from './result-number';
 import { deleteRows, insertRow, moveRow, setCell } from './row-edits';
-import { RowIssue, SentRows, issuesOnGrid, rowsToSend } from './rows-to-send';
-import { CONFLICT_TEXT, SaveStatus, retryDelay } from './save-status';
+import { RowIssue, SentRows, rowsToSend } from './rows-to-send';
+import { refusalOf } from './save-refusal';
+import { SaveStatus, retryDelay } from './save-status';
 import { COMPARISON_LAYOUT, GridRow, SpecimenLayout, blankRow, fromStored } from './specimen-layout';
-
-/** The first issues in words, and how many more there are. */
-function issueSummary(issues: readonly RowIssue[], fallback: string): string {
-  if (issues.length === 0) return fallback;
-  const first = issues.slice(0, 3).map((i) => i.message).join('; ');
-  return issues.length > 3 ? `${first}; and ${issues.length - 3} more` : first;
-}
 
 /** The pause in typing after which changes are saved. */
 export const AUTOSAVE_DEBOUNCE_MS = 800;
@@ -129,8 +123,10 @@ export class SpecimensStore {
     this.change([...rows]);
   }
 
+  /** One edited cell; a result typed with a decimal comma is kept with a point, as a paste would be. */
   setCell(uid: number, field: string, value: string | boolean): void {
-    this.change(setCell(this.rows(), uid, field, value));
+    const kind = this.layoutOf.fields.find((f) => f.field === field)?.kind;
+    this.change(setCell(this.rows(), uid, field, kind === 'result' && typeof value === 'string' ? normaliseDecimal(value) : value));
   }
 
   insertRow(index?: number): void {
@@ -191,24 +187,15 @@ export class SpecimensStore {
     if (more) this.save();
   }
 
+  /** Keeps the rows whatever happened; saves again after a pause when offline, or at once if edited meanwhile. */
   private refused(err: ApiError, sent: SentRows, revision: number): void {
     this.inFlight = null;
-    const status = err.status;
-    const editedSince = this.revision !== revision;
-    if (isVersionConflict(err)) {
-      this.state.update((s) => ({ ...s, status: 'conflict', message: CONFLICT_TEXT, issues: [] }));
-    } else if (status === 400) {
-      const issues = issuesOnGrid(err.issues, sent);
-      this.state.update((s) => ({ ...s, status: 'invalid', message: issueSummary(issues, err.message), issues }));
-      if (editedSince) this.save();
-    } else if (status === 0 || status >= 500) {
-      this.failures++;
-      const delay = retryDelay(this.failures);
-      this.state.update((s) => ({ ...s, status: 'offline', message: err.message, retryAt: Date.now() + delay }));
-      this.retry = timer(delay).subscribe(() => this.save());
-    } else {
-      this.state.update((s) => ({ ...s, status: 'failed', message: err.message }));
-      if (editedSince) this.save();
-    }
+    const refusal = refusalOf(err, sent);
+    const delay = refusal.retryLater ? retryDelay(++this.failures) : null;
+    this.state.update((s) => ({
+      ...s, status: refusal.status, message: refusal.message, issues: refusal.issues, retryAt: delay === null ? null : Date.now() + delay,
+    }));
+    if (delay !== null) this.retry = timer(delay).subscribe(() => this.save());
+    else if (refusal.status !== 'conflict' && this.revision !== revision) this.save();
   }
 }

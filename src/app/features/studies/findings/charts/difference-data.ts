@@ -3,19 +3,11 @@ import type { ComparisonCore } from '../comparison/engine-types';
 import type { Markers } from './markers-plugin';
 import { PALETTE } from './palette';
 import type { PlotPoint } from './plot-points';
-import type { XY } from './scatter-data';
+import { type XY, pairDatasets } from './scatter-data';
 
 /** The difference plot's pairs: each difference against its pair mean, included and excluded apart. */
 export function differenceDatasets(points: readonly PlotPoint[]): ChartDataset<'scatter', XY[]>[] {
-  const pairs = (excluded: boolean): XY[] => points.filter((p) => p.excluded === excluded).map((p) => ({ x: p.mean, y: p.difference }));
-  const datasets: ChartDataset<'scatter', XY[]>[] = [
-    { label: 'Pairs', data: pairs(false), backgroundColor: PALETTE.point, borderColor: PALETTE.pointBorder, pointRadius: 4 },
-  ];
-  const excluded = pairs(true);
-  if (excluded.length > 0) {
-    datasets.push({ label: 'Excluded pairs', data: excluded, pointStyle: 'crossRot', borderColor: PALETTE.excluded, borderWidth: 2, pointRadius: 6 });
-  }
-  return datasets;
+  return pairDatasets(points, (p) => ({ x: p.mean, y: p.difference }));
 }
 
 /**

@@ -19,13 +19,9 @@ export function extent(points: readonly PlotPoint[]): [number, number] | null {
   return [lo, hi];
 }
 
-/**
- * The comparison scatter: candidate (y) against comparative (x), included and excluded pairs apart,
- * the identity line y = x and the regression line y = a + b·x across the measured range.
- */
-export function scatterDatasets(points: readonly PlotPoint[], regression: ComparisonRegression | null): ChartDataset<'scatter', XY[]>[] {
-  const range = extent(points);
-  const pairs = (excluded: boolean): XY[] => points.filter((p) => p.excluded === excluded).map((p) => ({ x: p.x, y: p.y }));
+/** Included and excluded pairs as two point datasets (the excluded ones crossed), placed by `at`. */
+export function pairDatasets(points: readonly PlotPoint[], at: (p: PlotPoint) => XY): ChartDataset<'scatter', XY[]>[] {
+  const pairs = (excluded: boolean): XY[] => points.filter((p) => p.excluded === excluded).map(at);
   const datasets: ChartDataset<'scatter', XY[]>[] = [
     { label: 'Pairs', data: pairs(false), backgroundColor: PALETTE.point, borderColor: PALETTE.pointBorder, pointRadius: 4 },
   ];
@@ -33,6 +29,16 @@ export function scatterDatasets(points: readonly PlotPoint[], regression: Compar
   if (excluded.length > 0) {
     datasets.push({ label: 'Excluded pairs', data: excluded, pointStyle: 'crossRot', borderColor: PALETTE.excluded, borderWidth: 2, pointRadius: 6 });
   }
+  return datasets;
+}
+
+/**
+ * The comparison scatter: candidate (y) against comparative (x), included and excluded pairs apart,
+ * the identity line y = x and the regression line y = a + b·x across the measured range.
+ */
+export function scatterDatasets(points: readonly PlotPoint[], regression: ComparisonRegression | null): ChartDataset<'scatter', XY[]>[] {
+  const range = extent(points);
+  const datasets = pairDatasets(points, (p) => ({ x: p.x, y: p.y }));
   if (!range) return datasets;
   const [lo, hi] = range;
   datasets.push({

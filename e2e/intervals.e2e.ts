@@ -1,0 +1,204 @@
+import { expect, test, type Locator, type Page } from '@playwright/test';
+import { mkdirSync } from 'node:fs';
+import path from 'node:path';
+
+const SCREENSHOTS = path.resolve(__dirname, '../.test-output/screenshots');
+
+/** A small seeded generator (an LCG) so the invented values are the same on every run. */
+function seeded(seed: number): () => number {
+  let state = seed >>> 0;
+  return () => {
+    state = (Math.imul(state, 1664525) + 1013904223) >>> 0;
+    return (state + 0.5) / 2 ** 32;
+  };
+}
+
+/**
+ * 120 invented creatinine values (µmol/L), log-normal: women around a median of 68, men around 72, both with
+ * a geometric SD of about 1.15, alternating F and M. Whole numbers, as the analyser reports them.
+ */
+function inventedReferenceValues(): string {
+  const random = seeded(20261202);
+  const lines = ['Individual\tValue\tSex'];
+  for (let i = 0; i < 120; i++) {
+    const sex = i % 2 === 0 ? 'F' : 'M';
+    const normal = Math.sqrt(-2 * Math.log(random())) * Math.cos(2 * Math.PI * random());
+    const value = Math.round(Math.exp(Math.log(sex === 'F' ? 68 : 72) + 0.14 * normal));
+    lines.push(`RI-${String(i + 1).padStart(3, '0')}\t${value}\t${sex}`);
+  }
+  return `${lines.join('\r\n')}\r\n`;
+}
+
+/** 20 invented potassium values (mmol/L) spread over 3.6–5.0, and row 13 at 5.4: one outside a stated 3.5–5.1. */
+function inventedVerificationValues(): string {
+  const values = Array.from({ length: 20 }, (_, i) => (i === 12 ? 5.4 : 3.6 + ((i * 7) % 20) * 0.07));
+  return `${values.map((v, i) => `RV-${String(i + 1).padStart(2, '0')}\t${v.toFixed(1)}`).join('\n')}\n`;
+}
+
+async function signIn(page: Page): Promise<void> {
+  await page.goto('/sign-in');
+  await page.getByTestId('email').fill('tech@valeharbor.example');
+  await page.getByTestId('password').fill('parallax-demo');
+  await page.getByTestId('sign-in').click();
+  await expect(page.getByTestId('welcome')).toBeVisible();
+}
+
+async function choose(page: Page, select: Locator, option: string | RegExp): Promise<void> {
+  await select.click();
+  await page.getByRole('option', { name: option }).first().click();
+}
+
+async function closeNotice(page: Page): Promise<void> {
+  const notice = page.locator('mat-snack-bar-container');
+  if (await notice.count()) await notice.getByRole('button').click();
+  await expect(notice).toHaveCount(0);
+}
+
+/** The whole page in one picture (the shell scrolls inside its content pane), then back to 1366×768. */
+async function fullShot(page: Page, file: string): Promise<void> {
+  const height = await page.evaluate(() => {
+    const pane = document.querySelector('mat-sidenav-content');
+    return Math.ceil((pane?.scrollHeight ?? document.body.scrollHeight) + (pane?.getBoundingClientRect().top ?? 0));
+  });
+  await page.setViewportSize({ width: 1366, height: Math.max(768, height) });
+  await page.waitForTimeout(400);
+  await page.screenshot({ path: path.join(SCREENSHOTS, file) });
+  await page.setViewportSize({ width: 1366, height: 768 });
+}
+
+const cell = (page: Page, row: number, column: string): Locator =>
+  page.locator(`[role="row"][row-index="${row}"] [role="gridcell"][col-id="${column}"]`);
+
+/** New study → kind → title and analyte; the kind's own fields are filled by the caller. */
+async function startStudy(page: Page, kind: RegExp, title: string, analyte: RegExp): Promise<void> {
+  await page.getByTestId('nav-studies').click();
+  await page.getByTestId('study-new').click();
+  await page.getByTestId('setup-title').fill(title);
+  await choose(page, page.getByTestId('setup-kind'), kind);
+  await choose(page, page.getByTestId('setup-analyte'), analyte);
+}
+
+/** Pastes a block with a real Ctrl+V at the first cell and waits until it is saved. */
+async function pasteRows(page: Page, block: string, count: number): Promise<void> {
+  await page.evaluate((text) => navigator.clipboard.writeText(text), block);
+  await cell(page, 0, 'label').click();
+  await page.keyboard.press('Control+V');
+  await expect(page.getByTestId('row-count')).toHaveText(`${count} rows`);
+  await expect(page.getByTestId('save-state')).toHaveText('Saved', { timeout: 20_000 });
+  await expect(page.getByTestId('study-n')).toHaveText(`n = ${count}`);
+}
+
+async function runAnalysis(page: Page): Promise<void> {
+  await closeNotice(page);
+  await page.getByTestId('tab-findings').click();
+  await expect(page.getByTestId('caution').locator('span')).toHaveText(
+    "Decision support only: final acceptance follows local accreditation rules and the laboratory director's professional judgement.",
+  );
+  await page.getByTestId('run-analysis').click();
+}
+
+async function expectPainted(canvas: Locator): Promise<void> {
+  await expect(canvas).toBeVisible();
+  const inked = await canvas.evaluate((c: HTMLCanvasElement) => {
+    const data = c.getContext('2d')!.getImageData(0, 0, c.width, c.height).data;
+    let n = 0;
+    for (let i = 3; i < data.length; i += 4) if (data[i] > 0) n++;
+    return n;
+  });
+  expect(inked).toBeGreaterThan(1000);
+}
+
+test.beforeEach(async ({ context, baseURL }) => {
+  mkdirSync(SCREENSHOTS, { recursive: true });
+  await context.grantPermissions(['clipboard-read', 'clipboard-write'], { origin: baseURL });
+});
+
+test('a technologist establishes a creatinine reference interval from 120 individuals, tested for a partition by sex', async ({ page }) => {
+  test.setTimeout(180_000);
+  await signIn(page);
+  const title = `Creatinine reference interval, adults (${Date.now()})`;
+  await startStudy(page, /Reference interval: establish/, title, /^Creatinine/);
+  await expect(page.getByTestId('setup-level')).toContainText('90 %');
+  await expect(page.getByTestId('setup-percentiles')).toContainText('2.5th and 97.5th');
+  await expect(page.getByTestId('setup-method-text')).toContainText('at least 120');
+  await expect(page.getByTestId('setup-acceptance')).toHaveValue(/^At least 120 reference individuals per partition/);
+  await expect(page.getByTestId('setup-planned')).toHaveValue('120');
+  await choose(page, page.getByTestId('setup-instrument'), 'Chemistry line 2');
+  await page.getByTestId('setup-reagent-lot').fill('CRE-0912');
+
+  // The population description is required: saving without it is refused in words.
+  await page.getByTestId('setup-save').click();
+  await expect(page.getByText('Check the marked fields.')).toBeVisible();
+  await page.getByTestId('setup-population').fill('Healthy adult blood donors aged 18–65, fasting; excluded: known kidney disease, pregnancy, nephrotoxic drugs.');
+  await page.getByTestId('setup-partition-sex').locator('input').check();
+  await fullShot(page, 'interval-establish-setup.png');
+  await page.getByTestId('setup-save').click();
+  await expect(page).toHaveURL(/\/studies\/\d+\/specimens$/);
+  await expect(page.getByTestId('study-title')).toHaveText(title);
+
+  await pasteRows(page, inventedReferenceValues(), 120);
+  await expect(cell(page, 0, 'sex')).toHaveText('F');
+  await expect(cell(page, 1, 'sex')).toHaveText('M');
+  await closeNotice(page);
+  await page.screenshot({ path: path.join(SCREENSHOTS, 'interval-establish-specimens.png') });
+
+  await runAnalysis(page);
+  await expect(page.getByTestId('interval-limits')).toBeVisible({ timeout: 120_000 });
+  await expect(page.getByTestId('interval-counts')).toHaveText('n = 120 analysed of 120 entered; 0 excluded with a reason.');
+  await expect(page.getByTestId('limits-lower')).toContainText('2.5th');
+  await expect(page.getByTestId('limits-upper')).toContainText('97.5th');
+  // Both limits are numbers within the invented range, each with a rank-based and a bootstrap CI.
+  for (const id of ['limits-lower', 'limits-upper']) {
+    const cells = await page.getByTestId(id).locator('td').allTextContents();
+    expect(Number(cells[1])).toBeGreaterThan(40);
+    expect(Number(cells[1])).toBeLessThan(110);
+    expect(cells[2]).toMatch(/^\d+\.\d to \d+\.\d$/);
+    expect(cells[3]).toMatch(/^\d+\.\d to \d+\.\d$/);
+  }
+  await expect(page.getByTestId('interval-method')).toContainText('Nonparametric');
+  await expect(page.getByTestId('partition-sex')).toHaveText(/^By sex: (separate intervals recommended|one common interval is enough) \(z = /);
+  await expect(page.getByTestId('outliers')).toBeVisible();
+  await expectPainted(page.getByTestId('plot-values').locator('canvas'));
+  await fullShot(page, 'interval-establish.png');
+
+  // One click on a flagged value asks for the reason, excludes the row, and a new run analyses 119.
+  const flagged = page.locator('[data-testid^="exclude-"]').first();
+  const position = Number((await flagged.getAttribute('data-testid'))!.replace('exclude-', ''));
+  await flagged.click();
+  await page.getByTestId('exclude-confirm').click();
+  await expect(page.locator('mat-dialog-container mat-error')).toContainText('reason');
+  await page.getByTestId('exclude-reason').fill('Donor reported strenuous exercise the day before sampling');
+  await page.getByTestId('exclude-confirm').click();
+  await expect(page.getByTestId(`outlier-${position}`)).toContainText('Excluded; run again to update');
+  await expect(page.getByTestId('study-n')).toHaveText('n = 119', { timeout: 20_000 });
+  await page.getByTestId('rerun').click();
+  await expect(page.getByTestId('interval-counts')).toHaveText('n = 119 analysed of 120 entered; 1 excluded with a reason.', { timeout: 120_000 });
+});
+
+test('a technologist verifies a stated potassium interval with 20 individuals, one outside', async ({ page }) => {
+  test.setTimeout(120_000);
+  await signIn(page);
+  const title = `Potassium: transference of the stated interval (${Date.now()})`;
+  await startStudy(page, /Reference interval: verify/, title, /^Potassium/);
+  await expect(page.getByTestId('setup-acceptance')).toHaveValue(/at most 2 of 20/);
+  await expect(page.getByTestId('setup-level')).toContainText('90 %');
+  await choose(page, page.getByTestId('setup-instrument'), 'Chemistry line 2');
+  await page.getByTestId('setup-stated-lower').fill('3.5');
+  await page.getByTestId('setup-stated-upper').fill('5.1');
+  await page.getByTestId('setup-save').click();
+  await expect(page.getByText('Check the marked fields.')).toBeVisible();
+  await page.getByTestId('setup-stated-source').fill("Manufacturer's insert for the potassium reagent, edition 2026-03");
+  await page.getByTestId('setup-save').click();
+  await expect(page).toHaveURL(/\/studies\/\d+\/specimens$/);
+
+  await pasteRows(page, inventedVerificationValues(), 20);
+  await expect(cell(page, 12, 'value')).toHaveText('5.4');
+
+  await runAnalysis(page);
+  await expect(page.getByTestId('verify-acceptance')).toHaveText('Accepted: 1 of 20 outside; at most 2 allowed.', { timeout: 60_000 });
+  await expect(page.getByTestId('verify-outside')).toHaveText('0 below and 1 above the stated interval 3.5 to 5.1.');
+  await expect(page.getByTestId('verify-power')).toContainText('of the time');
+  await expect(page.getByTestId('verify-advice')).toHaveCount(0);
+  await expectPainted(page.getByTestId('plot-strip').locator('canvas'));
+  await fullShot(page, 'interval-verify.png');
+});
