@@ -25,7 +25,11 @@ export async function bumpVersion(db: Executor, study: StudyRow, expected: numbe
     .set({ ...values, version: study.version + 1, updatedAt: new Date() })
     .where(and(eq(studies.id, study.id), eq(studies.version, expected)))
     .returning();
-  if (!row) throw new AppError('conflict', 'Someone else changed this study at the same moment; reload and try again');
+  if (!row) {
+    throw new AppError('conflict', 'Someone else changed this study at the same moment; reload to see their change', [
+      { path: 'version', message: `You have version ${expected}; the study has moved on` },
+    ]);
+  }
   return row;
 }
 

@@ -39,6 +39,11 @@ export const STUDIES_ROUTES: Routes = [
         title: 'Findings · Parallax',
         loadComponent: () => import('./findings/findings-tab/findings-tab').then((m) => m.FindingsTab),
       },
+      {
+        path: 'history',
+        title: 'History · Parallax',
+        loadComponent: () => import('../review/history-tab').then((m) => m.HistoryTab),
+      },
     ],
   },
 ];

@@ -4,6 +4,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatTabsModule } from '@angular/material/tabs';
 import { RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
 import { ErrorBanner } from '../../../ui/error-banner';
+import { SignoffBar } from '../../review/signoff-bar/signoff-bar';
 import { PrintLayout } from '../print-layout';
 import { AnalysisStore } from '../findings/analysis-store';
 import { SpecimensStore } from '../specimens/specimens-store';
@@ -18,7 +19,7 @@ import { StudyStore } from './study-store';
   styleUrl: './study-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
   providers: [StudyStore, SpecimensStore, AnalysisStore],
-  imports: [MatTabsModule, MatIconModule, MatProgressBarModule, RouterLink, RouterLinkActive, RouterOutlet, ErrorBanner, PrintLayout],
+  imports: [MatTabsModule, MatIconModule, MatProgressBarModule, RouterLink, RouterLinkActive, RouterOutlet, ErrorBanner, PrintLayout, SignoffBar],
 })
 export class StudyPage {
   /** The :id of the route. */
@@ -30,6 +31,7 @@ export class StudyPage {
     { path: 'setup', label: 'Setup', icon: 'tune' },
     { path: 'specimens', label: 'Specimens', icon: 'table_rows' },
     { path: 'findings', label: 'Findings', icon: 'insights' },
+    { path: 'history', label: 'History', icon: 'history' },
   ];
   protected readonly supported = computed(() => {
     const s = this.study();

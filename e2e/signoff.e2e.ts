@@ -1,0 +1,280 @@
+import { expect, request, test, type APIRequestContext, type Browser, type Page } from '@playwright/test';
+import { execFileSync } from 'node:child_process';
+import { createHash } from 'node:crypto';
+import { mkdirSync, readdirSync, readFileSync, rmSync, statSync } from 'node:fs';
+import path from 'node:path';
+
+const OUT = path.resolve(__dirname, '../.test-output');
+const SCREENSHOTS = path.join(OUT, 'screenshots');
+const PASSWORD = 'parallax-demo';
+const TECH = 'tech@valeharbor.example';
+const DIRECTOR = 'director@valeharbor.example';
+const CAUTION =
+  'Decision support only. These findings do not by themselves make a verification compliant: final acceptance follows local ' +
+  'accreditation rules and the laboratory director’s professional judgement. They hold only for the specimen types, measuring ' +
+  'range, population and lots studied.';
+
+/** One demo user's API session: the session GET hands out the XSRF-TOKEN cookie, every write sends it back. */
+class ApiUser {
+  private constructor(private readonly api: APIRequestContext) {}
+
+  static async signIn(baseURL: string, email: string): Promise<ApiUser> {
+    const user = new ApiUser(await request.newContext({ baseURL, storageState: { cookies: [], origins: [] } }));
+    await user.api.get('/api/v1/session');
+    await user.write('post', '/api/v1/session', { email, password: PASSWORD });
+    return user;
+  }
+
+  async read<T>(url: string): Promise<T> {
+    const response = await this.api.get(url);
+    expect(response.ok(), `GET ${url} answered ${response.status()}`).toBe(true);
+    return (await response.json()) as T;
+  }
+
+  async write<T>(method: 'post' | 'put' | 'patch', url: string, data: unknown): Promise<T> {
+    const token = (await this.api.storageState()).cookies.find((c) => c.name === 'XSRF-TOKEN')?.value ?? '';
+    const response = await this.api[method](url, { data, headers: { 'X-XSRF-TOKEN': token } });
+    expect(response.ok(), `${method.toUpperCase()} ${url} answered ${response.status()}: ${await response.text()}`).toBe(true);
+    return (await response.json()) as T;
+  }
+
+  dispose(): Promise<void> {
+    return this.api.dispose();
+  }
+}
+
+interface StudyAnswer { id: number; version: number; state: string; timeZone?: string }
+
+/** A glucose comparison of 40 invented pairs across 3–20 mmol/L (row 7 excluded with a reason), analysed; submitted when asked. */
+async function preparedStudy(baseURL: string, title: string, submit: boolean): Promise<number> {
+  const tech = await ApiUser.signIn(baseURL, TECH);
+  const analytes = await tech.read<{ id: number; name: string; unit: string }[]>('/api/v1/analytes');
+  const instruments = await tech.read<{ id: number }[]>('/api/v1/instruments');
+  const glucose = analytes.find((a) => a.name === 'Glucose' && a.unit === 'mmol/L') ?? analytes.find((a) => a.name === 'Glucose');
+  expect(glucose, 'the demo catalog has Glucose').toBeTruthy();
+  expect(instruments.length).toBeGreaterThanOrEqual(2);
+  const study = await tech.write<StudyAnswer>('post', '/api/v1/studies', {
+    kind: 'method-comparison', title, analyteId: glucose!.id,
+    comparativeInstrumentId: instruments[0].id, candidateInstrumentId: instruments[1].id,
+    settings: { resamples: 1000, regressionResamples: 1000 },
+  });
+  const wobble = [0.1, -0.1, 0, 0.05, -0.05, 0.1, 0, -0.1];
+  const rows = Array.from({ length: 40 }, (_, i) => {
+    const comparative = Math.round((3 + (17 * i) / 39) * 10) / 10;
+    const excluded = i === 6;
+    return {
+      label: `SO-${String(i + 1).padStart(3, '0')}`, comparative, candidate: Math.round((comparative * 1.01 + wobble[i % 8]) * 10) / 10,
+      excluded, exclusionReason: excluded ? 'Haemolysed on the candidate run' : null,
+    };
+  });
+  await tech.write('put', `/api/v1/studies/${study.id}/specimens`, { version: study.version, rows });
+  const { id: analysisId } = await tech.write<{ id: number }>('post', `/api/v1/studies/${study.id}/analyses`, {});
+  await expect
+    .poll(async () => (await tech.read<{ state: string }>(`/api/v1/analyses/${analysisId}`)).state, { timeout: 120_000, intervals: [500, 1000] })
+    .toBe('done');
+  if (submit) await tech.write('post', `/api/v1/studies/${study.id}/submit`, {});
+  await tech.dispose();
+  return study.id;
+}
+
+/** A page of its own (own cookies) for one user, signed in through the sign-in page. */
+async function pageOf(browser: Browser, baseURL: string, email: string): Promise<Page> {
+  const context = await browser.newContext({ baseURL, storageState: { cookies: [], origins: [] } });
+  const page = await context.newPage();
+  await page.goto('/sign-in');
+  await page.getByTestId('email').fill(email);
+  await page.getByTestId('password').fill(PASSWORD);
+  await page.getByTestId('sign-in').click();
+  await expect(page.getByTestId('welcome')).toBeVisible();
+  return page;
+}
+
+/** A screenshot once fonts and animations are done; `whole` grows the window to the shell's scrolling content. */
+async function shot(page: Page, name: string, whole = false): Promise<void> {
+  await expect(page.locator('mat-progress-bar')).toHaveCount(0);
+  await page.evaluate(async () => {
+    await document.fonts.ready;
+    await Promise.all(document.getAnimations().map((a) => a.finished));
+  });
+  if (whole) {
+    const height = await page.evaluate(() => (document.querySelector('mat-sidenav-content')?.scrollHeight ?? document.body.scrollHeight) + 64);
+    await page.setViewportSize({ width: 1366, height: Math.max(768, height) });
+    await page.waitForTimeout(300);
+  }
+  await page.screenshot({ path: path.join(SCREENSHOTS, `${name}.png`) });
+  await page.setViewportSize({ width: 1366, height: 768 });
+}
+
+test.beforeAll(() => mkdirSync(SCREENSHOTS, { recursive: true }));
+
+test('the technologist submits a study; the director refuses a wrong password, then signs, and the signed PDF is the one the signature names', async ({
+  browser, baseURL,
+}) => {
+  test.setTimeout(240_000);
+  const title = `Sign-off: glucose line 2 against line 1 (${Date.now()})`;
+  const id = await preparedStudy(baseURL!, title, false);
+
+  // The technologist submits from the study page's sign-off bar.
+  const tech = await pageOf(browser, baseURL!, TECH);
+  await tech.goto(`/studies/${id}`);
+  const bar = tech.getByTestId('signoff-bar');
+  await expect(bar.getByTestId('signoff-state')).toHaveText('Draft');
+  await expect(bar.getByTestId('step-approve-plan')).toHaveCount(0);
+  await shot(tech, 'signoff-bar-draft');
+  await bar.getByTestId('step-submit').click();
+  await expect(bar.getByTestId('signoff-state')).toHaveText('Awaiting the director’s signature');
+  await expect(tech.getByTestId('study-state')).toHaveText('Awaiting sign-off');
+  await expect(bar.locator('button')).toHaveCount(0);
+  await tech.context().close();
+
+  // The director finds it under "Awaiting my signature" and opens the review from the study page.
+  const director = await pageOf(browser, baseURL!, DIRECTOR);
+  const waiting = director.getByTestId('wl-awaitingSignature').getByTestId(`wl-study-${id}`);
+  await expect(waiting).toContainText(title);
+  await waiting.getByRole('link', { name: title }).click();
+  await director.getByTestId('signoff-bar').getByTestId('step-open-review').click();
+  await expect(director).toHaveURL(new RegExp(`/studies/${id}/review$`));
+  await expect(director.getByTestId('review-title')).toHaveText(title);
+  await expect(director.getByTestId('verdict-panel')).toBeVisible();
+  await expect(director.getByTestId('review-caution')).toContainText(CAUTION);
+  await expect(director.getByTestId('plan-Source of the allowable bias')).not.toContainText('Not given');
+  await expect(director.getByTestId('plan-approval')).toContainText('No plan approval');
+  await expect(director.getByTestId('excluded-7')).toContainText('Haemolysed on the candidate run');
+  await expect(director.getByTestId('study-history')).toContainText('Submitted');
+  await expect(director.getByTestId('no-signatures')).toBeVisible();
+  await expect(director.getByTestId('preview-pdf')).toHaveText(/Preview PDF \(draft\)/);
+  await shot(director, 'review-awaiting');
+
+  // A wrong password is refused on the password field, and nothing is signed.
+  await director.getByTestId('open-sign').click();
+  const dialog = director.getByRole('dialog');
+  await expect(dialog.getByTestId('sign-binding')).toContainText('binds your name, the meaning you choose and the time of signing to this exact record');
+  await dialog.getByTestId('sign-confirm').click();
+  await expect(dialog.getByTestId('meaning-error')).toHaveText('Choose accepted or not accepted.');
+  await dialog.getByTestId('meaning-accepted').click();
+  await dialog.getByTestId('sign-comment').fill('Bias within the goal at every decision level; one exclusion explained.');
+  await dialog.getByTestId('sign-password').fill('not-the-password');
+  await dialog.getByTestId('sign-confirm').click();
+  await expect(dialog.getByTestId('password-error')).toHaveText('The password is wrong');
+  await expect(dialog.getByTestId('banner')).toContainText('The password is wrong; the signature was not made');
+  await shot(director, 'sign-dialog-wrong-password');
+  await expect(director.getByTestId('review-state')).toContainText('Awaiting sign-off');
+
+  // The right password signs: the signature block names the signer, the meaning, the time in the lab's zone, the hashes.
+  await dialog.getByTestId('sign-password').fill(PASSWORD);
+  await dialog.getByTestId('sign-confirm').click();
+  await expect(dialog).toHaveCount(0);
+  const block = director.getByTestId('signature-block');
+  await expect(block).toContainText('Accepted for patient testing');
+  await expect(block).toContainText('Dr. Imani Okafor');
+  await expect(block).toContainText('one exclusion explained');
+  const session = (await (await director.request.get('/api/v1/session')).json()) as { laboratory: { timeZone: string } };
+  await expect(block).toContainText(`(${session.laboratory.timeZone}, GMT`);
+  await expect(block.getByTestId('content-hash')).toHaveText(/^[0-9a-f]{64}$/);
+  await expect(block.getByTestId('verification-code')).not.toBeEmpty();
+  await expect(director.getByTestId('review-state')).toContainText('Signed');
+  await expect(director.getByTestId('open-sign')).toHaveCount(0);
+  await expect(director.getByTestId('study-history')).toContainText('Signed');
+
+  // The PDF downloads; its bytes are a PDF whose SHA-256 is the one the signature reports.
+  const [download] = await Promise.all([director.waitForEvent('download'), block.getByTestId('download-signed-pdf').click()]);
+  mkdirSync(path.join(OUT, 'downloads'), { recursive: true });
+  const file = path.join(OUT, 'downloads', `signoff-${id}.pdf`);
+  await download.saveAs(file);
+  const bytes = readFileSync(file);
+  expect(bytes.subarray(0, 5).toString()).toBe('%PDF-');
+  const signatures = (await (await director.request.get(`/api/v1/studies/${id}/signatures`)).json()) as { meaning: string; pdfSha256: string; contentHash: string }[];
+  const signed = signatures.find((s) => s.meaning === 'accepted');
+  expect(signed?.pdfSha256).toBe(createHash('sha256').update(bytes).digest('hex'));
+  await expect(block.getByTestId('content-hash')).toHaveText(signed!.contentHash);
+  await expect(block.getByTestId('open-signed-pdf')).toHaveAttribute('href', `/api/v1/studies/${id}/report.pdf`);
+  await shot(director, 'review', true);
+
+  // The first page of the PDF, rendered by Debian's pdftoppm.
+  for (const old of readdirSync(SCREENSHOTS).filter((f) => f.startsWith('report-page'))) rmSync(path.join(SCREENSHOTS, old));
+  execFileSync('pdftoppm', ['-png', '-r', '70', '-f', '1', '-l', '1', file, path.join(SCREENSHOTS, 'report-page')]);
+  const rendered = readdirSync(SCREENSHOTS).filter((f) => /^report-page-0*1\.png$/.test(f));
+  expect(rendered).toHaveLength(1);
+  expect(statSync(path.join(SCREENSHOTS, rendered[0])).size).toBeGreaterThan(5000);
+
+  // Printed, the review keeps the verdict, caution and signature and drops buttons and navigation.
+  await director.emulateMedia({ media: 'print' });
+  await expect(director.locator('mat-sidenav')).toBeHidden();
+  await expect(block.getByTestId('download-signed-pdf')).toBeHidden();
+  await expect(director.getByTestId('review-caution')).toBeVisible();
+  await director.emulateMedia({ media: 'screen' });
+
+  // Back on the study page the bar sums up the signature and offers the amendment (opened, then cancelled).
+  await director.getByTestId('back-to-study').click();
+  const signedBar = director.getByTestId('signoff-bar');
+  await expect(signedBar.getByTestId('signoff-state')).toHaveText('Signed');
+  await expect(signedBar.getByTestId('signature-summary')).toContainText('Accepted for patient testing — signed by Dr. Imani Okafor');
+  await shot(director, 'signoff-bar-signed');
+  await signedBar.getByTestId('step-amend').click();
+  await director.getByTestId('reason-confirm').click();
+  await expect(director.getByTestId('reason-error')).toHaveText('Reason for the amendment is required.');
+  await shot(director, 'amend-dialog');
+  await director.getByRole('button', { name: 'Cancel' }).click();
+  await expect(director.getByRole('dialog')).toHaveCount(0);
+  await director.context().close();
+});
+
+test('the director returns a study with a comment, the technologist reads it, and criteria moved after plan approval stand out', async ({
+  browser, baseURL,
+}) => {
+  test.setTimeout(240_000);
+  const title = `Returned: glucose line 2 against line 1 (${Date.now()})`;
+  const id = await preparedStudy(baseURL!, title, true);
+  const comment = 'Add five specimens above 20 mmol/L so the range covers the highest decision level.';
+
+  const director = await pageOf(browser, baseURL!, DIRECTOR);
+  await director.goto(`/studies/${id}/review`);
+  await director.getByTestId('open-return').click();
+  await director.getByTestId('reason-confirm').click();
+  await expect(director.getByTestId('reason-error')).toHaveText('Comment for the technologist is required.');
+  await director.getByTestId('reason-text').fill(comment);
+  await shot(director, 'return-dialog');
+  await director.getByTestId('reason-confirm').click();
+  await expect(director.getByRole('dialog')).toHaveCount(0);
+  await expect(director.getByTestId('review-state')).toContainText('Draft');
+  await expect(director.getByTestId('open-sign')).toHaveCount(0);
+
+  // The technologist sees the comment on the study, prominently, in the sign-off bar.
+  const tech = await pageOf(browser, baseURL!, TECH);
+  await tech.goto(`/studies/${id}`);
+  const bar = tech.getByTestId('signoff-bar');
+  await expect(bar.getByTestId('signoff-state')).toHaveText('Draft, returned by the director');
+  await expect(bar.getByTestId('return-comment')).toContainText(comment);
+  await expect(bar.getByTestId('step-submit')).toBeEnabled();
+  await shot(tech, 'signoff-bar-returned');
+
+  // The director approves the plan on the draft (an electronic signature with the password again).
+  await director.goto(`/studies/${id}`);
+  await director.getByTestId('signoff-bar').getByTestId('step-approve-plan').click();
+  const approve = director.getByRole('dialog');
+  await expect(approve.getByTestId('sign-meaning')).toHaveCount(0);
+  await approve.getByTestId('sign-password').fill(PASSWORD);
+  await shot(director, 'plan-approval-dialog');
+  await approve.getByTestId('sign-confirm').click();
+  await expect(approve).toHaveCount(0);
+  await expect(director.getByTestId('signoff-bar').getByTestId('plan-approved')).toContainText('Plan approved by Dr. Imani Okafor');
+  await expect(director.getByTestId('signoff-bar').getByTestId('step-approve-plan')).toHaveCount(0);
+
+  // The technologist moves a criterion after the approval (with the reason the server asks for); the review shows it.
+  const api = await ApiUser.signIn(baseURL!, TECH);
+  const study = await api.read<StudyAnswer>(`/api/v1/studies/${id}`);
+  await api.write('patch', `/api/v1/studies/${id}`, {
+    version: study.version, settings: { allowableBiasSource: 'Biological variation, desirable bias (EFLM database, 2026)' },
+    reason: 'The laboratory adopted the biological-variation goal',
+  });
+  await api.dispose();
+  await director.goto(`/studies/${id}/review`);
+  const moved = director.getByTestId('moved-criteria');
+  await expect(moved).toContainText('Criteria changed after the plan was approved (1)');
+  await expect(moved).toContainText('after data were entered');
+  await expect(moved).toContainText('The laboratory adopted the biological-variation goal');
+  await expect(director.getByTestId('plan-approval')).toContainText('Plan approved by Dr. Imani Okafor');
+  await shot(director, 'review-moved-criteria');
+  await tech.context().close();
+  await director.context().close();
+});
