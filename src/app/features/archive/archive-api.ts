@@ -2,7 +2,7 @@ import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable } from 'rxjs';
 import type {
-  Analyte, ArchivePage, Instrument, IntegrityReport, ReproduceReport, Signature, Study,
+  Analyte, ArchivePage, Instrument, IntegrityReport, ReproduceReport, Signature, Study, Person,
 } from '../../../../shared/schemas';
 import { ARCHIVE_URL, ArchiveFilter } from './archive-query';
 import { httpParams } from './query-params';
@@ -25,6 +25,11 @@ export class ArchiveApi {
 
   instruments(): Observable<Instrument[]> {
     return this.http.get<Instrument[]>('/api/v1/instruments');
+  }
+
+  /** The laboratory's people by name, for the signer and user filters. */
+  people(): Observable<Person[]> {
+    return this.http.get<Person[]>('/api/v1/people');
   }
 
   study(id: number): Observable<Study> {

@@ -7,7 +7,7 @@ describe('archiveFilterFrom', () => {
         kind: 'method-comparison', analyteId: '3', verdict: 'exceeds', signedFrom: '2026-01-01', signedTo: 'soon', q: 'glucose',
         sort: 'signedAt', order: 'asc', page: '2', pageSize: '50', signerId: '9',
       }),
-    ).toEqual({ kind: 'method-comparison', analyteId: 3, verdict: 'exceeds', signedFrom: '2026-01-01', q: 'glucose', sort: 'signedAt', order: 'asc', page: 2, pageSize: 50 });
+    ).toEqual({ kind: 'method-comparison', analyteId: 3, verdict: 'exceeds', signerId: 9, signedFrom: '2026-01-01', q: 'glucose', sort: 'signedAt', order: 'asc', page: 2, pageSize: 50 });
   });
 
   it('refuses an unknown verdict, state or sort column', () => {

@@ -4,12 +4,9 @@ import { RawParams, httpParams, readQuery } from './query-params';
 /** The archive search as a page holds it: every field optional, empty ones left out of the address. */
 export type ArchiveFilter = Partial<ArchiveQuery>;
 
-/**
- * The archive's keys in the address bar. The API also takes signerId, but nothing a quality
- * officer may read lists signers with their ids, so the page does not offer it.
- */
+/** The archive's keys in the address bar (signers are chosen from GET /api/v1/people). */
 export const ARCHIVE_KEYS = [
-  'kind', 'analyteId', 'instrumentId', 'state', 'verdict', 'signedFrom', 'signedTo', 'createdFrom', 'createdTo', 'q',
+  'kind', 'analyteId', 'instrumentId', 'state', 'verdict', 'signerId', 'signedFrom', 'signedTo', 'createdFrom', 'createdTo', 'q',
   'sort', 'order', 'page', 'pageSize',
 ] as const satisfies readonly (keyof ArchiveQuery)[];
 

@@ -13,6 +13,7 @@ async function setUp(filter: ArchiveFilter) {
   fixture.componentInstance.changed.subscribe((f) => emitted.push(f));
   httpController().expectOne('/api/v1/analytes').flush([{ id: 3, name: 'Glucose', unit: 'mmol/L' }]);
   httpController().expectOne('/api/v1/instruments').flush([{ id: 5, name: 'Chemistry line 2' }]);
+  httpController().expectOne('/api/v1/people').flush([{ id: 2, name: 'Dr. Imani Okafor' }]);
   await fixture.whenStable();
   const el = fixture.nativeElement as HTMLElement;
   const input = (id: string) => el.querySelector(`[data-testid="${id}"]`) as HTMLInputElement;

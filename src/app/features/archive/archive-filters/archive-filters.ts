@@ -14,7 +14,7 @@ import { DATE_ORDER_ERROR, datesInOrder, rangeBackwards } from '../date-range';
 import { syncForm } from '../form-sync';
 import { VERDICT_CHOICES } from '../verdict-view';
 
-const BLANK = { q: '', kind: '', analyteId: '', instrumentId: '', state: '', verdict: '', signedFrom: '', signedTo: '', createdFrom: '', createdTo: '' };
+const BLANK = { q: '', kind: '', analyteId: '', instrumentId: '', state: '', verdict: '', signerId: '', signedFrom: '', signedTo: '', createdFrom: '', createdTo: '' };
 type Field = keyof typeof BLANK;
 
 interface Choice { value: string; label: string; icon?: string }
@@ -44,6 +44,7 @@ export class ArchiveFilters {
   private readonly api = inject(ArchiveApi);
   protected readonly analytes = toSignal(this.api.analytes().pipe(catchError(() => of([]))), { initialValue: [] });
   protected readonly instruments = toSignal(this.api.instruments().pipe(catchError(() => of([]))), { initialValue: [] });
+  protected readonly people = toSignal(this.api.people().pipe(catchError(() => of([]))), { initialValue: [] });
   protected readonly choosers = computed<Chooser[]>(() => [
     { key: 'kind', id: 'kind', label: 'Kind', any: 'Any kind', choices: pairs(STUDY_KIND_LABELS) },
     {
@@ -56,6 +57,7 @@ export class ArchiveFilters {
     },
     { key: 'state', id: 'state', label: 'State', any: 'Any state', choices: pairs(STUDY_STATE_LABELS) },
     { key: 'verdict', id: 'verdict', label: 'Verdict', any: 'Any verdict', choices: VERDICT_CHOICES.map((v) => ({ value: v.key, label: v.word, icon: v.icon })) },
+    { key: 'signerId', id: 'signer', label: 'Signed by', any: 'Anyone', choices: this.people().map((p) => ({ value: String(p.id), label: p.name })) },
   ]);
   protected readonly ranges = RANGES;
   protected readonly orderError = DATE_ORDER_ERROR;
@@ -64,7 +66,7 @@ export class ArchiveFilters {
   });
 
   constructor() {
-    syncForm(this.form, BLANK, () => this.filter(), (search: ArchiveFilter) => this.changed.emit(search), ['analyteId', 'instrumentId']);
+    syncForm(this.form, BLANK, () => this.filter(), (search: ArchiveFilter) => this.changed.emit(search), ['analyteId', 'instrumentId', 'signerId']);
   }
 
   protected backwards(fromKey: Field): boolean {

@@ -7,7 +7,11 @@ describe('historyFilterFrom', () => {
     });
   });
 
-  it('drops a study id or page size the API would refuse, and any user id', () => {
-    expect(historyFilterFrom({ studyId: 'abc', pageSize: '5000', from: '1/2/2026', userId: '4' })).toEqual({});
+  it('drops a study id, user id or page size the API would refuse', () => {
+    expect(historyFilterFrom({ studyId: 'abc', pageSize: '5000', from: '1/2/2026', userId: 'x' })).toEqual({});
+  });
+
+  it('keeps the person chosen', () => {
+    expect(historyFilterFrom({ userId: '4' })).toEqual({ userId: 4 });
   });
 });

@@ -1,4 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, effect, inject, untracked } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
+import { catchError, of } from 'rxjs';
+import { ArchiveApi } from '../archive-api';
 import { FormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -19,7 +22,7 @@ import { routeQuery } from '../route-query';
 import { HISTORY_KEYS, HISTORY_PAGE_SIZE, historyFilterFrom } from './history-query';
 import { LabHistoryStore } from './lab-history-store';
 
-const BLANK = { action: '', studyId: '', from: '', to: '' };
+const BLANK = { userId: '', action: '', studyId: '', from: '', to: '' };
 
 /** History: everything recorded in the laboratory, newest first, filtered by what happened, study and dates. */
 @Component({
@@ -38,6 +41,7 @@ export class LabHistoryPage {
   private readonly address = routeQuery<AuditQuery, (typeof HISTORY_KEYS)[number]>(historyFilterFrom, HISTORY_KEYS);
   protected readonly filter = this.address.query;
   protected readonly choices = ACTION_CHOICES;
+  protected readonly people = toSignal(inject(ArchiveApi).people().pipe(catchError(() => of([]))), { initialValue: [] });
   protected readonly orderError = DATE_ORDER_ERROR;
   protected readonly form = inject(FormBuilder).nonNullable.group(BLANK, { validators: [datesInOrder('from', 'to')] });
   protected readonly pageSize = computed(() => this.filter().pageSize ?? HISTORY_PAGE_SIZE);
@@ -48,7 +52,7 @@ export class LabHistoryPage {
       const filter = { pageSize: HISTORY_PAGE_SIZE, ...this.filter() };
       untracked(() => this.store.search(filter));
     });
-    syncForm(this.form, BLANK, () => this.filter(), (search: HistoryFilter) => this.searched(search), ['studyId']);
+    syncForm(this.form, BLANK, () => this.filter(), (search: HistoryFilter) => this.searched(search), ['studyId', 'userId']);
   }
 
   protected backwards(): boolean {
