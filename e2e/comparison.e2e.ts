@@ -1,8 +1,7 @@
 import { expect, test, type Locator, type Page } from '@playwright/test';
+import { cell, choose, closeNotice, fullShot, SCREENSHOTS, signIn } from './fixtures/pages';
 import { mkdirSync } from 'node:fs';
 import path from 'node:path';
-
-const SCREENSHOTS = path.resolve(__dirname, '../.test-output/screenshots');
 
 /**
  * 40 invented glucose pairs (mmol/L) across 3–20: the candidate reads about 1% higher plus 0.05, with a
@@ -23,45 +22,6 @@ function inventedPairs(): { text: string; badRow: number } {
   }
   return { text: `${lines.join('\r\n')}\r\n`, badRow };
 }
-
-async function signIn(page: Page): Promise<void> {
-  await page.goto('/sign-in');
-  await page.getByTestId('email').fill('tech@valeharbor.example');
-  await page.getByTestId('password').fill('parallax-demo');
-  await page.getByTestId('sign-in').click();
-  await expect(page.getByTestId('welcome')).toBeVisible();
-}
-
-async function choose(page: Page, select: Locator, option: string | RegExp): Promise<void> {
-  await select.click();
-  await page.getByRole('option', { name: option }).first().click();
-}
-
-/** Closes the snack bar, if one is open, so it does not cover a screenshot. */
-async function closeNotice(page: Page): Promise<void> {
-  const notice = page.locator('mat-snack-bar-container');
-  if (await notice.count()) await notice.getByRole('button').click();
-  await expect(notice).toHaveCount(0);
-}
-
-/**
- * The whole page in one picture: the shell scrolls inside its content pane, so the viewport is made as
- * tall as that pane's content for the shot, then put back to 1366×768.
- */
-async function fullShot(page: Page, file: string): Promise<void> {
-  const height = await page.evaluate(() => {
-    const pane = document.querySelector('mat-sidenav-content');
-    return Math.ceil((pane?.scrollHeight ?? document.body.scrollHeight) + (pane?.getBoundingClientRect().top ?? 0));
-  });
-  await page.setViewportSize({ width: 1366, height: Math.max(768, height) });
-  await page.waitForTimeout(400);
-  await page.screenshot({ path: path.join(SCREENSHOTS, file) });
-  await page.setViewportSize({ width: 1366, height: 768 });
-}
-
-/** A grid cell by row index and column. */
-const cell = (page: Page, row: number, column: string): Locator =>
-  page.locator(`[role="row"][row-index="${row}"] [role="gridcell"][col-id="${column}"]`);
 
 test('a technologist compares two chemistry lines: pastes 40 pairs, fixes a bad cell, runs the analysis and reads the findings', async ({
   page, context, baseURL,

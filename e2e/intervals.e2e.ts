@@ -1,8 +1,7 @@
 import { expect, test, type Locator, type Page } from '@playwright/test';
+import { cell, choose, closeNotice, fullShot, SCREENSHOTS, signIn } from './fixtures/pages';
 import { mkdirSync } from 'node:fs';
 import path from 'node:path';
-
-const SCREENSHOTS = path.resolve(__dirname, '../.test-output/screenshots');
 
 /** A small seeded generator (an LCG) so the invented values are the same on every run. */
 function seeded(seed: number): () => number {
@@ -34,40 +33,6 @@ function inventedVerificationValues(): string {
   const values = Array.from({ length: 20 }, (_, i) => (i === 12 ? 5.4 : 3.6 + ((i * 7) % 20) * 0.07));
   return `${values.map((v, i) => `RV-${String(i + 1).padStart(2, '0')}\t${v.toFixed(1)}`).join('\n')}\n`;
 }
-
-async function signIn(page: Page): Promise<void> {
-  await page.goto('/sign-in');
-  await page.getByTestId('email').fill('tech@valeharbor.example');
-  await page.getByTestId('password').fill('parallax-demo');
-  await page.getByTestId('sign-in').click();
-  await expect(page.getByTestId('welcome')).toBeVisible();
-}
-
-async function choose(page: Page, select: Locator, option: string | RegExp): Promise<void> {
-  await select.click();
-  await page.getByRole('option', { name: option }).first().click();
-}
-
-async function closeNotice(page: Page): Promise<void> {
-  const notice = page.locator('mat-snack-bar-container');
-  if (await notice.count()) await notice.getByRole('button').click();
-  await expect(notice).toHaveCount(0);
-}
-
-/** The whole page in one picture (the shell scrolls inside its content pane), then back to 1366×768. */
-async function fullShot(page: Page, file: string): Promise<void> {
-  const height = await page.evaluate(() => {
-    const pane = document.querySelector('mat-sidenav-content');
-    return Math.ceil((pane?.scrollHeight ?? document.body.scrollHeight) + (pane?.getBoundingClientRect().top ?? 0));
-  });
-  await page.setViewportSize({ width: 1366, height: Math.max(768, height) });
-  await page.waitForTimeout(400);
-  await page.screenshot({ path: path.join(SCREENSHOTS, file) });
-  await page.setViewportSize({ width: 1366, height: 768 });
-}
-
-const cell = (page: Page, row: number, column: string): Locator =>
-  page.locator(`[role="row"][row-index="${row}"] [role="gridcell"][col-id="${column}"]`);
 
 /** New study → kind → title and analyte; the kind's own fields are filled by the caller. */
 async function startStudy(page: Page, kind: RegExp, title: string, analyte: RegExp): Promise<void> {

@@ -247,6 +247,10 @@ test('the director returns a study with a comment, the technologist reads it, an
   await expect(bar.getByTestId('return-comment')).toContainText(comment);
   await expect(bar.getByTestId('step-submit')).toBeEnabled();
   await shot(tech, 'signoff-bar-returned');
+  await tech.getByTestId('tab-history').click();
+  await expect(tech).toHaveURL(new RegExp(`/studies/${id}/history$`));
+  await expect(tech.getByTestId('study-history')).toContainText('Returned to draft by the director');
+  await expect(tech.getByTestId('study-history')).toContainText(comment);
 
   // The director approves the plan on the draft (an electronic signature with the password again).
   await director.goto(`/studies/${id}`);
@@ -269,6 +273,7 @@ test('the director returns a study with a comment, the technologist reads it, an
   });
   await api.dispose();
   await director.goto(`/studies/${id}/review`);
+  await expect(director.getByTestId('moved-alert')).toContainText('One criterion change after the plan was approved.');
   const moved = director.getByTestId('moved-criteria');
   await expect(moved).toContainText('Criteria changed after the plan was approved (1)');
   await expect(moved).toContainText('after data were entered');
