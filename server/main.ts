@@ -19,7 +19,7 @@ export async function listen(config: Config): Promise<RunningApp> {
   return {
     url: `http://${config.host}:${port}`,
     close: async () => {
-      ctx.mail.stop();
+      await ctx.mail.stop();
       await ctx.jobs.stop();
       const closed = new Promise<void>((r) => server.close(() => r()));
       server.closeAllConnections();

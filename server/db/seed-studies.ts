@@ -87,6 +87,12 @@ const INTERVALS: DemoInterval[] = [
   },
 ];
 
+const COMMENTS: Record<string, string> = {
+  'method-comparison': 'Meets the laboratory goal at every decision level; released for patient testing.',
+  'interval-verify': 'One of 20 local values outside the stated interval; the stated interval is adopted.',
+  'interval-establish': 'Interval adopted for the population described.',
+};
+
 /** The demo laboratory's analysed studies (skipped when a study of that title exists). */
 export async function seedDemoStudies(db: Database, labId: number, publicUrl: string): Promise<void> {
   const [tech] = await db.select().from(users).where(eq(users.email, 'tech@valeharbor.example'));
@@ -101,7 +107,8 @@ export async function seedDemoStudies(db: Database, labId: number, publicUrl: st
     if (how === 'draft') return;
     await submitStudy(ctx, me, id);
     if (how === 'signed') {
-      await signStudy(ctx, toSignedIn(director), id, { meaning: 'accepted', comment: 'Meets the laboratory goal at every decision level; released for patient testing.', password: DEMO_PASSWORD }, 'demo seed');
+      const comment = COMMENTS[(await db.select({ kind: studies.kind }).from(studies).where(eq(studies.id, id)))[0].kind];
+      await signStudy(ctx, toSignedIn(director), id, { meaning: 'accepted', comment, password: DEMO_PASSWORD }, 'demo seed');
     }
   };
   for (const demo of COMPARISONS) {

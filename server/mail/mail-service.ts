@@ -7,6 +7,7 @@ export class MailService {
   private readonly transport: Transporter | null;
   private timer: NodeJS.Timeout | null = null;
   private running: Promise<number> | null = null;
+  private stopped = false;
 
   constructor(private readonly db: Database, smtpUrl: string | undefined, private readonly from: string) {
     this.transport = smtpUrl ? smtpTransport(smtpUrl) : null;
@@ -20,7 +21,7 @@ export class MailService {
 
   /** Sends what is due; resolves with how many went out. */
   flush(): Promise<number> {
-    if (!this.transport) return Promise.resolve(0);
+    if (!this.transport || this.stopped) return Promise.resolve(0);
     if (!this.running) {
       this.running = deliverOutbox(this.db, this.transport, this.from)
         .catch((err) => {
@@ -36,9 +37,12 @@ export class MailService {
     void this.flush();
   }
 
-  stop(): void {
+  /** Stops delivering; a send already under way finishes first (await it through the returned promise). */
+  stop(): Promise<number> {
+    this.stopped = true;
     if (this.timer) clearInterval(this.timer);
     this.timer = null;
-    this.transport?.close();
+    const last = this.running ?? Promise.resolve(0);
+    return last.finally(() => this.transport?.close());
   }
 }

@@ -24,7 +24,8 @@ export function amendStudy(ctx: AppContext, me: SignedInUser, id: number, reason
     const [row] = await tx.insert(studies).values({ ...copy, title: `${old.title} (amendment)`, state: 'draft', version: 1, supersedesId: id, createdBy: me.id }).returning();
     const rows = await loadRows(tx, id);
     if (rows.length) {
-      await tx.insert(specimens).values(rows.map(({ id: _rid, studyId: _sid, ...r }) => ({ ...r, studyId: row.id, enteredBy: me.id })));
+      // The rows keep who entered them: copying is not entering, so segregation of duties still sees the author.
+      await tx.insert(specimens).values(rows.map(({ id: _rid, studyId: _sid, ...r }) => ({ ...r, studyId: row.id })));
     }
     await recordAudit(tx, actorOf(me), { action: 'study.amended', entity: 'study', entityId: row.id, studyId: row.id, reason, after: { supersedes: id, rows: rows.length } });
     await recordAudit(tx, actorOf(me), { action: 'study.amendment-started', entity: 'study', entityId: id, studyId: id, reason, after: { amendment: row.id } });

@@ -1,7 +1,7 @@
 import { eq } from 'drizzle-orm';
 import type { Study } from '../../shared/schemas';
 import { recordAudit } from '../audit/audit';
-import { findUserById } from '../auth/auth.repository';
+import { findUserById, updateUser } from '../auth/auth.repository';
 import { registerFailure } from '../auth/auth.service';
 import { isLocked } from '../auth/lockout';
 import { checkPassword } from '../auth/passwords';
@@ -61,7 +61,10 @@ export async function confirmPassword(ctx: AppContext, me: SignedInUser, passwor
   const outcome = await ctx.db.transaction(async (tx) => {
     const user = await findUserById(tx, me.id);
     if (isLocked(user.lockedUntil)) return 'locked';
-    if (await checkPassword(password, user.passwordHash)) return 'ok';
+    if (await checkPassword(password, user.passwordHash)) {
+      if (user.failedSignIns > 0) await updateUser(tx, user.id, { failedSignIns: 0 });
+      return 'ok';
+    }
     await registerFailure(tx, user, address, where);
     return 'wrong';
   });

@@ -19,8 +19,15 @@ export const analysedFields = (r: StoredRow) => ({
 
 export interface AnalysisInput { kind: string; settings: unknown; rows: ReturnType<typeof analysedFields>[] }
 
+/** Settings that are words for people, not inputs of the engine: changing them leaves the findings current. */
+const RECORD_ONLY = ['allowableBiasSource', 'comparativeLot', 'candidateLot', 'reagentLot', 'runsFrom', 'runsTo', 'plannedSpecimens',
+  'outlierRule', 'acceptanceRule', 'populationDescription', 'statedSource'];
+
+export const analysedSettings = (settings: unknown): Record<string, unknown> =>
+  Object.fromEntries(Object.entries((settings ?? {}) as Record<string, unknown>).filter(([k]) => !RECORD_ONLY.includes(k)));
+
 export async function analysisInput(db: Executor, study: StudyRow): Promise<AnalysisInput> {
-  return { kind: study.kind, settings: study.settings, rows: (await loadRows(db, study.id)).map(analysedFields) };
+  return { kind: study.kind, settings: analysedSettings(study.settings), rows: (await loadRows(db, study.id)).map(analysedFields) };
 }
 
 /** SHA-256 of canonical JSON of rows and settings: findings are current when their hash equals this. */

@@ -6,6 +6,7 @@ import type { Database, Tx } from '../db/client';
 import { specimens, studies } from '../db/schema';
 import { invalid } from '../http/app-error';
 import { bumpVersion, findLabAnalyte, findLabInstrument, findStudy } from './studies.repository';
+import { fieldWords } from '../../shared/types/audit-words';
 import { assertEditable } from './study-rules';
 import { initialSettings, PLAN_FIELDS } from './study-settings';
 import { studyView, summarise } from './study-view';
@@ -48,7 +49,7 @@ export async function updateStudy(db: Database, me: SignedInUser, id: number, bo
     const merged = settings ? StudySettings.parse({ ...(study.settings as object), ...settings }) : undefined;
     const moved = planChanges(study, merged);
     if (moved.length && !reason?.trim()) {
-      throw invalid('reason', `The plan was approved; give a reason for changing ${moved.map((m) => m.field).join(', ')}`);
+      throw invalid('reason', `The plan was approved; give a reason for changing the ${moved.map((m) => fieldWords(m.field)).join(', the ')}`);
     }
     const updated = await bumpVersion(tx, study, version, { ...fields, ...(merged ? { settings: merged } : {}) });
     const changed = (Object.keys(fields) as (keyof typeof fields)[]).filter((k) => fields[k] !== undefined);

@@ -24,7 +24,7 @@ export async function startHarness(env: Record<string, string> = {}, options: { 
     database,
     smtpUrl: smtp.url,
     close: async () => {
-      created.ctx.mail.stop();
+      await created.ctx.mail.stop();
       await created.ctx.jobs.stop();
       await smtp.close();
       await database.close();

@@ -16,7 +16,9 @@ const FIELD: Record<string, string> = {
   demingRatio: 'Deming error ratio', analyteId: 'analyte', comparativeInstrumentId: 'comparative instrument', candidateInstrumentId: 'candidate instrument',
   instrumentId: 'instrument', outlierRule: 'outlier rule', acceptanceRule: 'acceptance rule', intervalMethod: 'interval method', partitionFields: 'partition fields',
 };
-const name = (f: string) => FIELD[f] ?? f.replace(/([A-Z])/g, ' $1').toLowerCase();
+/** A field's name in words: allowableBiasSource → "source of the allowable bias". */
+export const fieldWords = (f: string): string => FIELD[f] ?? f.replace(/([A-Z])/g, ' $1').toLowerCase();
+const name = fieldWords;
 
 export function show(v: unknown): string {
   if (v === null || v === undefined || v === '') return '(empty)';

@@ -47,7 +47,8 @@ describe('planRows', () => {
 
   it('lists an establishment’s population, percentiles and partitions', () => {
     const rows = planRows(study('interval-establish', { populationDescription: 'Healthy blood donors', partitionFields: ['sex', 'ageBand'] }, 240));
-    expect(value(rows, 'Percentiles')?.value).toBe('2.5 and 97.5');
+    expect(value(rows, 'Percentiles')?.value).toBe('2.5th–97.5th percentiles');
+    expect(value(rows, 'Method')?.value).toMatch(/^Nonparametric: /);
     expect(value(rows, 'Partitions tested')?.value).toBe('sex, age band');
   });
 });

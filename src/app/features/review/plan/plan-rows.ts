@@ -1,5 +1,7 @@
 import type { Study, StudySettings } from '../../../../../shared/schemas';
 import { formatNumber, levelLabel } from '../../studies/findings/comparison/number-format';
+import { METHOD_WORDS } from '../../studies/intervals/findings/interval-wording';
+import { percentileWords } from '../../studies/intervals/setup/percentile-choices';
 import { DIFFERENCE_LABELS, INTERVAL_LABELS, REGRESSION_LABELS, usesDemingRatio } from '../../studies/study-text';
 
 /** One line of the plan: what was fixed before the data, in words; `missing` marks what sign-off needs but is not set. */
@@ -63,8 +65,8 @@ function establishRows(study: PlanStudy): PlanRow[] {
   const partitions = s.partitionFields.map((f) => (f === 'sex' ? 'sex' : 'age band')).join(', ');
   return [
     { label: 'Reference population', value: orNone(s.populationDescription), missing: s.populationDescription.trim() === '' },
-    { label: 'Percentiles', value: s.percentiles.join(' and ') },
-    { label: 'Method', value: s.intervalMethod },
+    { label: 'Percentiles', value: percentileWords(s.percentiles) },
+    { label: 'Method', value: METHOD_WORDS[s.intervalMethod] ?? s.intervalMethod },
     { label: 'Partitions tested', value: partitions || 'None' },
     { label: 'Acceptance rule', value: orNone(s.acceptanceRule) },
     specimensRow(study),

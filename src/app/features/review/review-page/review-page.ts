@@ -32,6 +32,7 @@ import { ReviewCaution } from '../review-caution';
 import { SignatureBlock } from '../signature-block/signature-block';
 import { reportUrl } from '../signoff-api';
 import { comparisonView } from './comparison-view';
+import { ReadOnlyStudyStore } from './read-only-study-store';
 import { ReviewStore } from './review-store';
 
 /**
@@ -43,7 +44,7 @@ import { ReviewStore } from './review-store';
   templateUrl: './review-page.html',
   styleUrl: './review-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  providers: [StudyStore, SpecimensStore, ReviewStore],
+  providers: [{ provide: StudyStore, useClass: ReadOnlyStudyStore }, SpecimensStore, ReviewStore],
   imports: [
     NgComponentOutlet, DecimalPipe, MatButtonModule, MatIconModule, MatProgressBarModule, RouterLink, ErrorBanner, PrintLayout, ReviewCaution,
     VerdictPanel, SensitivityPanel, EstimateTables, OutlierList, FindingsPlots, PlanCriteria, ExclusionsTable, SignatureBlock,
@@ -107,6 +108,12 @@ export class ReviewPage {
       .afterClosed()
       .pipe(filter((s): s is Study => !!s))
       .subscribe((returned) => this.moved(returned, 'Returned to draft. The technologist sees your comment on the study and by e-mail.'));
+  }
+
+  /** In-page link: the shell scrolls inside its content pane, so the heading is brought into view directly. */
+  protected jumpToPlan(event: Event): void {
+    event.preventDefault();
+    document.getElementById('plan-title')?.scrollIntoView({ behavior: 'smooth', block: 'start' });
   }
 
   private moved(study: Study, notice: string): void {
