@@ -2,9 +2,8 @@ import { ChangeDetectionStrategy, Component, computed, inject, input, output } f
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
-import { filter } from 'rxjs';
 import { formatNumber } from '../../findings/comparison/number-format';
-import { ExcludeData, ExcludeDialog } from '../../findings/comparison/outlier-list/exclude-dialog';
+import { askExclusionReason } from '../../findings/comparison/outlier-list/exclude-dialog';
 import type { Exclusion } from '../../findings/comparison/outlier-list/outlier-list';
 import type { GridRow } from '../../specimens/specimen-layout';
 import type { EstablishResult } from './interval-result';
@@ -77,11 +76,6 @@ export class IntervalOutliers {
   });
 
   protected ask(position: number, label: string): void {
-    const data: ExcludeData = { row: `row ${position}${label !== '—' ? ` (${label})` : ''}` };
-    this.dialogs
-      .open<ExcludeDialog, ExcludeData, string>(ExcludeDialog, { data, width: '520px', maxWidth: '95vw' })
-      .afterClosed()
-      .pipe(filter((reason): reason is string => !!reason))
-      .subscribe((reason) => this.excluded.emit({ position, reason }));
+    askExclusionReason(this.dialogs, position, label).subscribe((reason) => this.excluded.emit({ position, reason }));
   }
 }

@@ -1,9 +1,10 @@
 import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { FormControl, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
-import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
+import { MAT_DIALOG_DATA, MatDialog, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
+import { filter, Observable } from 'rxjs';
 import { FieldErrorPipe } from '../../../../../ui/field-error';
 
 export interface ExcludeData {
@@ -47,4 +48,13 @@ export class ExcludeDialog {
     }
     this.dialog.close(text);
   }
+}
+
+/** Asks for the reason to exclude one row; emits the reason once given (nothing when cancelled). */
+export function askExclusionReason(dialogs: MatDialog, position: number, label: string): Observable<string> {
+  const data: ExcludeData = { row: `row ${position}${label !== '—' ? ` (${label})` : ''}` };
+  return dialogs
+    .open<ExcludeDialog, ExcludeData, string>(ExcludeDialog, { data, width: '520px', maxWidth: '95vw' })
+    .afterClosed()
+    .pipe(filter((reason): reason is string => !!reason));
 }

@@ -2,11 +2,10 @@ import { ChangeDetectionStrategy, Component, computed, inject, input, output } f
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
-import { filter } from 'rxjs';
 import type { GridRow } from '../../../specimens/specimen-layout';
 import { ComparisonFindingsResult } from '../comparison-result';
 import { formatP } from '../number-format';
-import { ExcludeData, ExcludeDialog } from './exclude-dialog';
+import { askExclusionReason } from './exclude-dialog';
 
 /** A row to exclude, by its grid position (1-based), with the reason the user gave. */
 export interface Exclusion {
@@ -49,11 +48,6 @@ export class OutlierList {
   });
 
   protected ask(position: number, label: string): void {
-    const data: ExcludeData = { row: `row ${position}${label !== '—' ? ` (${label})` : ''}` };
-    this.dialogs
-      .open<ExcludeDialog, ExcludeData, string>(ExcludeDialog, { data, width: '520px', maxWidth: '95vw' })
-      .afterClosed()
-      .pipe(filter((reason): reason is string => !!reason))
-      .subscribe((reason) => this.excluded.emit({ position, reason }));
+    askExclusionReason(this.dialogs, position, label).subscribe((reason) => this.excluded.emit({ position, reason }));
   }
 }
