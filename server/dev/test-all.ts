@@ -25,9 +25,8 @@ async function jestGroup(group: 'unit' | 'api', env: NodeJS.ProcessEnv): Promise
   return readJest(group === 'unit' ? 'unit, statistics and reference checks' : 'API (supertest, PostgreSQL)', file);
 }
 
-async function e2e(databaseUrl: string, built: boolean): Promise<SuiteCount> {
+async function e2e(databaseUrl: string, built: boolean, chromium: { ok: boolean; message: string }): Promise<SuiteCount> {
   if (!built) return { name: 'end-to-end (Chromium)', passed: 0, failed: 1, note: 'the client did not build' };
-  const chromium = ensureChromium();
   if (!chromium.ok) return { name: 'end-to-end (Chromium)', passed: 0, failed: 1, note: chromium.message };
   const db = openDatabase(databaseUrl, 2);
   const smtp = await startFakeSmtp(db.db);
@@ -67,12 +66,14 @@ export async function main(): Promise<void> {
     await seedDemo(seed.db);
     await seed.close();
     const env = { ...process.env, DATABASE_URL: database.url, TZ: 'UTC' };
+    // Before any suite: the API suites render PDF pages with poppler's pdftoppm, installed with Chromium.
+    const chromium = ensureChromium();
     const built = existsSync(path.join(root, 'angular.json')) ? await buildClient() : false;
     counts.push({ name: 'client production build', passed: built ? 1 : 0, failed: built ? 0 : 1 });
     counts.push(await typeCheck());
     counts.push(await jestGroup('unit', env));
     counts.push(await jestGroup('api', env));
-    counts.push(await e2e(database.url, built));
+    counts.push(await e2e(database.url, built, chromium));
   } catch (err) {
     log(`the test run stopped: ${(err as Error).message}`);
     counts.push({ name: 'test preparation', passed: 0, failed: 1, note: (err as Error).message });
