@@ -1,6 +1,6 @@
 import { sql } from 'drizzle-orm';
 import {
-  bigserial, boolean, customType, doublePrecision, index, integer, json, jsonb, pgTable, serial, text, timestamp, uniqueIndex, varchar,
+  bigint, bigserial, boolean, check, customType, doublePrecision, index, integer, json, jsonb, pgTable, serial, text, timestamp, uniqueIndex, varchar,
 } from 'drizzle-orm/pg-core';
 
 const bytea = customType<{ data: Buffer; driverData: Buffer }>({ dataType: () => 'bytea' });
@@ -30,7 +30,12 @@ export const users = pgTable('users', {
   failedSignIns: integer('failed_sign_ins').notNull().default(0),
   lockedUntil: stamp('locked_until'),
   createdAt: created(),
-}, (t) => [uniqueIndex('users_email_key').on(t.email)]);
+}, (t) => [
+  // One account per e-mail among accounts with a password; an invitation not yet taken up may repeat an
+  // e-mail that has an account in another laboratory, so inviting it reveals nothing about that laboratory.
+  uniqueIndex('users_email_key').on(t.email).where(sql`password_hash IS NOT NULL`),
+  uniqueIndex('users_lab_email_key').on(t.laboratoryId, t.email),
+]);
 
 /** One-time set-password links (invitations and resets); only the SHA-256 of the token is stored. */
 export const passwordLinks = pgTable('password_links', {
@@ -128,7 +133,12 @@ export const specimens = pgTable('specimens', {
   note: text('note').notNull().default(''),
   uploadId: integer('upload_id').references(() => uploads.id),
   enteredBy: integer('entered_by').notNull().references(() => users.id),
-}, (t) => [index('specimens_study_idx').on(t.studyId, t.position)]);
+}, (t) => [
+  index('specimens_study_idx').on(t.studyId, t.position),
+  // Results are finite numbers or empty: Infinity and NaN never reach an analysis.
+  ...(['comparative', 'candidate', 'value'] as const).map((c) =>
+    check(`specimens_${c}_finite`, sql`${t[c]} IS NULL OR (${t[c]} <> 'Infinity'::float8 AND ${t[c]} <> '-Infinity'::float8 AND ${t[c]} <> 'NaN'::float8)`)),
+]);
 
 export const analyses = pgTable('analyses', {
   id: serial('id').primaryKey(),
@@ -147,7 +157,11 @@ export const analyses = pgTable('analyses', {
   startedAt: stamp('started_at'),
   finishedAt: stamp('finished_at'),
   durationMs: integer('duration_ms'),
-}, (t) => [index('analyses_study_idx').on(t.studyId)]);
+  /** 1 for the first run; a run whose process died is queued again once as attempt 2. */
+  attempt: integer('attempt').notNull().default(1),
+  /** Written every few seconds by the process running it; a stale heartbeat means that process died. */
+  heartbeatAt: stamp('heartbeat_at'),
+}, (t) => [index('analyses_study_idx').on(t.studyId), index('analyses_state_idx').on(t.state)]);
 
 export const signatures = pgTable('signatures', {
   id: serial('id').primaryKey(),
@@ -163,6 +177,9 @@ export const signatures = pgTable('signatures', {
   verificationCode: text('verification_code').notNull(),
   pdf: bytea('pdf'),
   pdfSha256: text('pdf_sha256'),
+  /** The laboratory's history chain as it stood when the signature was made: its length and newest event's hash. */
+  chainLength: bigint('chain_length', { mode: 'number' }),
+  chainHeadHash: text('chain_head_hash'),
 });
 
 /** Append-only, hash-chained per laboratory; triggers refuse UPDATE and DELETE. */
@@ -181,7 +198,46 @@ export const auditEvents = pgTable('audit_events', {
   reason: text('reason'),
   previousHash: text('previous_hash').notNull(),
   hash: text('hash').notNull(),
+  /** Fingerprint of the server key the hash was made with (HMAC-SHA-256); null for events hashed before the chain was keyed. */
+  keyId: text('key_id'),
 }, (t) => [index('audit_lab_idx').on(t.laboratoryId, t.id), index('audit_study_idx').on(t.studyId, t.id)]);
+
+/**
+ * The newest event of each history chain (a laboratory's, or the one of events with no laboratory), signed
+ * with the server key and updated in the transaction of every event: removing the newest events, or
+ * rewriting any, no longer matches it unless the key is known.
+ */
+export const auditChainHeads = pgTable('audit_chain_heads', {
+  chain: text('chain').primaryKey(),
+  laboratoryId: integer('laboratory_id'),
+  length: bigint('length', { mode: 'number' }).notNull(),
+  headId: bigint('head_id', { mode: 'number' }).notNull(),
+  headHash: text('head_hash').notNull(),
+  keyId: text('key_id').notNull(),
+  mac: text('mac').notNull(),
+  updatedAt: stamp('updated_at').notNull().defaultNow(),
+});
+
+/** Signed, append-only marks of a chain's length and head at a moment (each signing, and daily); mirrored in the key folder. */
+export const auditCheckpoints = pgTable('audit_checkpoints', {
+  id: bigserial('id', { mode: 'number' }).primaryKey(),
+  chain: text('chain').notNull(),
+  laboratoryId: integer('laboratory_id'),
+  length: bigint('length', { mode: 'number' }).notNull(),
+  headId: bigint('head_id', { mode: 'number' }).notNull(),
+  headHash: text('head_hash').notNull(),
+  at: stamp('at').notNull(),
+  reason: text('reason').notNull(),
+  keyId: text('key_id').notNull(),
+  mac: text('mac').notNull(),
+}, (t) => [index('audit_checkpoints_chain_idx').on(t.chain, t.id)]);
+
+/** Failed sign-ins counted per account and per address (rate-limiter-flexible's table, owned by the migrations). */
+export const signInLimits = pgTable('sign_in_limits', {
+  key: varchar('key', { length: 255 }).primaryKey(),
+  points: integer('points').notNull().default(0),
+  expire: bigint('expire', { mode: 'number' }),
+});
 
 /** Outgoing e-mail; a message stays queued until SMTP accepts it, and is retried. */
 export const mailOutbox = pgTable('mail_outbox', {
