@@ -3,7 +3,7 @@ import { existsSync } from 'node:fs';
 import express, { Express, Router } from 'express';
 import helmet from 'helmet';
 import { adminRoutes } from './admin/admin.routes';
-import { AnalysisJobs } from './analyses/analysis-jobs';
+import { AnalysisJobs, jobTiming } from './analyses/analysis-jobs';
 import { auditRoutes } from './audit/audit.routes';
 import { analysesRoutes } from './analyses/analyses.routes';
 import { authRoutes } from './auth/auth.routes';
@@ -12,6 +12,7 @@ import { sessionMiddleware } from './auth/session';
 import type { Config } from './config';
 import type { AppContext } from './context';
 import type { Db } from './db/client';
+import { healthRoutes } from './health/health.routes';
 import { errorHandler, notFoundHandler } from './http/error-handler';
 import { routerFrom, RouteSpec } from './http/routes';
 import { xsrfProtection } from './http/xsrf';
@@ -26,7 +27,7 @@ export interface CreatedApp { app: Express; ctx: AppContext; routes: RouteSpec[]
 /** Every API route of Parallax, with the roles each allows (the role-matrix test walks this list). */
 export function apiRoutes(ctx: AppContext, passport: ReturnType<typeof configurePassport>): RouteSpec[] {
   return [
-    ...authRoutes(ctx, passport), ...adminRoutes(ctx), ...studiesRoutes(ctx), ...specimensRoutes(ctx), ...uploadsRoutes(ctx), ...analysesRoutes(ctx),
+    ...healthRoutes(ctx), ...authRoutes(ctx, passport), ...adminRoutes(ctx), ...studiesRoutes(ctx), ...specimensRoutes(ctx), ...uploadsRoutes(ctx), ...analysesRoutes(ctx),
     ...signoffRoutes(ctx), ...auditRoutes(ctx),
   ];
 }
@@ -51,7 +52,7 @@ const CSP = {
 /** Builds the Express app (no listen; supertest uses it as it is). */
 export function createApp(config: Config, database: Db): CreatedApp {
   const mail = new MailService(database.db, config.smtpUrl, config.mailFrom);
-  const ctx: AppContext = { db: database.db, config, mail, jobs: new AnalysisJobs(database.db, config.databaseUrl) };
+  const ctx: AppContext = { db: database.db, config, mail, jobs: new AnalysisJobs(database.db, config.databaseUrl, jobTiming(config.analysisStaleSeconds)) };
   const passport = configurePassport(database.db);
   const app = express();
   app.set('trust proxy', 'loopback');
@@ -59,11 +60,14 @@ export function createApp(config: Config, database: Db): CreatedApp {
   app.use(helmet({ contentSecurityPolicy: CSP, crossOriginEmbedderPolicy: false }));
   app.use(express.json({ limit: '2mb' }));
   const api = Router();
+  // No API answer (findings, rows, history) may be kept by a browser or proxy cache.
+  api.use((_req, res, next) => { res.setHeader('Cache-Control', 'no-store'); next(); });
   api.use(xsrfProtection(config.sessionSecret, config.cookieSecure));
+  const routes = apiRoutes(ctx, passport);
+  api.use(routerFrom(routes.filter((r) => r.sessionless)));
   api.use(sessionMiddleware(database.pool, config));
   api.use(passport.session());
-  const routes = apiRoutes(ctx, passport);
-  api.use(routerFrom(routes));
+  api.use(routerFrom(routes.filter((r) => !r.sessionless)));
   api.use(notFoundHandler);
   app.use('/api/v1', api);
   app.use('/api', notFoundHandler);

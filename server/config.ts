@@ -13,6 +13,7 @@ const Env = z.object({
   COOKIE_SECURE: z.enum(['0', '1']).default('0'),
   SIGN_IN_RATE_LIMIT: z.coerce.number().int().positive().default(30),
   CLIENT_DIR: z.string().optional(),
+  ANALYSIS_STALE_SECONDS: z.coerce.number().int().min(2).max(3600).default(30),
 });
 
 export type Config = {
@@ -27,6 +28,8 @@ export type Config = {
   cookieSecure: boolean;
   signInRateLimit: number;
   clientDir: string | undefined;
+  /** A running analysis without a heartbeat for this long lost its process and is re-queued (once). */
+  analysisStaleSeconds: number;
 };
 
 /** Reads the environment once; a bad value stops start-up with a message naming the variable. */
@@ -50,5 +53,6 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     cookieSecure: e.COOKIE_SECURE === '1',
     signInRateLimit: e.SIGN_IN_RATE_LIMIT,
     clientDir: e.CLIENT_DIR,
+    analysisStaleSeconds: e.ANALYSIS_STALE_SECONDS,
   };
 }

@@ -2,6 +2,7 @@ import type { Server } from 'node:http';
 import { createApp } from './app';
 import { loadConfig, type Config } from './config';
 import { openDatabase } from './db/client';
+import { logFailure } from './log';
 
 export interface RunningApp { url: string; close: () => Promise<void> }
 
@@ -29,7 +30,16 @@ export async function listen(config: Config): Promise<RunningApp> {
   };
 }
 
+/**
+ * A promise nobody waited for (a library's background step while the database was away) is logged,
+ * not allowed to end the process: the app keeps serving and answers 503 until the database is back.
+ */
+export function keepRunningOnStrayRejections(): void {
+  process.on('unhandledRejection', (reason) => logFailure('a background step', reason));
+}
+
 if (require.main === module) {
+  keepRunningOnStrayRejections();
   const config = loadConfig();
   listen(config).then((running) => {
     console.log(`[parallax] serving ${running.url}`);

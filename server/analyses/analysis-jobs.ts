@@ -1,88 +1,179 @@
-import { and, eq, lt, sql } from 'drizzle-orm';
+import { and, eq, isNull, lt, or, sql } from 'drizzle-orm';
 import PgBoss from 'pg-boss';
 import { recordAudit } from '../audit/audit';
-import type { Database } from '../db/client';
+import type { Database, Tx } from '../db/client';
 import { analyses, studies } from '../db/schema';
+import { logFailure } from '../log';
 import type { AnalysisInput } from '../specimens/input-hash';
 import { runAnalysis } from './run-analysis';
 import { AnalysisPool } from './worker-pool';
 
 export const QUEUE = 'analysis';
+/** A run whose process died is queued once more; a second death fails it in words. */
+export const MAX_ATTEMPTS = 2;
+
+export interface JobTiming {
+  /** How often a running analysis writes its progress and heartbeat. */
+  heartbeatMs: number;
+  /** A running analysis whose heartbeat is older than this lost its process. */
+  staleMs: number;
+  /** How often the sweeper looks for lost runs and lost jobs. */
+  sweepMs: number;
+}
+/** The timing for a given stale limit: a heartbeat every second, a sweep twice per limit. */
+export const jobTiming = (staleSeconds = 30): JobTiming =>
+  ({ heartbeatMs: 1000, staleMs: staleSeconds * 1000, sweepMs: Math.max(1000, (staleSeconds * 1000) / 2) });
 
 /**
  * The analysis queue lives in PostgreSQL (pg-boss), so any process with `work` on can take a job:
- * the API process by default, and extra `npm run worker` processes on other machines.
+ * the API process by default, and extra `npm run worker` processes on other machines. A process runs
+ * as many analyses at once as its worker pool has threads. While an analysis runs, its process writes
+ * the progress and a heartbeat every second; a sweeper in every working process re-queues a run whose
+ * heartbeat stopped (its process died) once, then fails it with the reason, and re-sends a queued
+ * analysis whose job was lost. The database going away stops none of this for good: the queue and the
+ * pool reconnect by themselves, and each failed step is retried at the next beat or sweep.
  */
 export class AnalysisJobs {
   private boss: PgBoss | null = null;
   private pool: AnalysisPool | null = null;
   private sweeper: NodeJS.Timeout | null = null;
+  private sweeping: Promise<void> | null = null;
 
-  constructor(private readonly db: Database, private readonly url: string) {}
+  constructor(private readonly db: Database, private readonly url: string, private readonly timing: JobTiming = jobTiming()) {}
 
   async start(options: { work: boolean } = { work: true }): Promise<void> {
     if (this.boss) return;
-    const boss = new PgBoss({ connectionString: this.url, max: 4, schema: 'pgboss' });
-    boss.on('error', (err) => console.error('[parallax] job queue:', err.message));
+    const boss = new PgBoss({ connectionString: this.url, max: 4, schema: 'pgboss', application_name: 'parallax-queue', connectionTimeoutMillis: 2000 } as never);
+    boss.on('error', (err) => logFailure('the job queue', err));
     await boss.start();
     await boss.createQueue(QUEUE);
     this.boss = boss;
     if (options.work) {
       this.pool = new AnalysisPool();
-      await boss.work<{ analysisId: number }>(QUEUE, { batchSize: 1, pollingIntervalSeconds: 0.5 }, async ([job]) => this.execute(job.data.analysisId));
-      this.sweeper = setInterval(() => void this.requeueStale(), 60_000);
+      for (let i = 0; i < this.pool.threads; i++) {
+        await boss.work<{ analysisId: number }>(QUEUE, { batchSize: 1, pollingIntervalSeconds: 0.5 }, async ([job]) => this.execute(job.data.analysisId));
+      }
+      this.sweeper = setInterval(() => void this.sweep(), this.timing.sweepMs);
       this.sweeper.unref();
-      await this.requeueStale();
+      await this.sweep();
     }
+  }
+
+  /** How many analyses this process runs at once (0 when it only sends jobs). */
+  get concurrency(): number {
+    return this.pool?.threads ?? 0;
   }
 
   /** Called after the transaction that inserted the queued analysis has committed. */
   async enqueue(analysisId: number): Promise<void> {
     if (!this.boss) throw new Error('the job queue is not started');
-    await this.boss.send(QUEUE, { analysisId }, { singletonKey: String(analysisId), retryLimit: 0, expireInMinutes: 30 });
+    await this.boss.send(QUEUE, { analysisId }, { retryLimit: 0, expireInMinutes: 30 });
+  }
+
+  /** True when the queue's tables answer (for the health check). */
+  async healthy(): Promise<boolean> {
+    if (!this.boss) return false;
+    await this.boss.getQueue(QUEUE);
+    return true;
   }
 
   /** Runs one analysis: queued → running → done (results) or failed (the error in words). */
   async execute(analysisId: number, options: { inThread?: boolean } = {}): Promise<void> {
-    const [claimed] = await this.db.update(analyses).set({ state: 'running', startedAt: new Date(), progress: 0 })
+    const [claimed] = await this.db.update(analyses).set({ state: 'running', startedAt: new Date(), heartbeatAt: new Date(), progress: 0 })
       .where(and(eq(analyses.id, analysisId), eq(analyses.state, 'queued'))).returning();
     if (!claimed) return;
     const started = Date.now();
+    const thisRun = and(eq(analyses.id, analysisId), eq(analyses.state, 'running'), eq(analyses.attempt, claimed.attempt));
+    let progress = 0;
+    const beat = setInterval(() => {
+      this.db.update(analyses).set({ progress, heartbeatAt: new Date() }).where(thisRun)
+        .catch((err) => logFailure('writing an analysis heartbeat', err));
+    }, this.timing.heartbeatMs);
     try {
-      const progress = (f: number) => {
-        void this.db.update(analyses).set({ progress: f }).where(and(eq(analyses.id, analysisId), eq(analyses.state, 'running')));
-      };
       const input = claimed.input as AnalysisInput;
-      const results = options.inThread ? runAnalysis(input) : await this.pool!.run(input, progress);
-      await this.finish(claimed.studyId, analysisId, { state: 'done', results, progress: 1, durationMs: Date.now() - started });
+      const results = options.inThread ? runAnalysis(input) : await this.pool!.run(input, (f) => { progress = f; });
+      clearInterval(beat);
+      await this.finish(claimed.studyId, analysisId, claimed.attempt, { state: 'done', results, progress: 1, durationMs: Date.now() - started });
     } catch (err) {
-      await this.finish(claimed.studyId, analysisId, { state: 'failed', error: (err as Error).message, durationMs: Date.now() - started });
+      clearInterval(beat);
+      await this.finish(claimed.studyId, analysisId, claimed.attempt, { state: 'failed', error: (err as Error).message, durationMs: Date.now() - started });
     }
   }
 
-  private async finish(studyId: number, analysisId: number, values: Partial<typeof analyses.$inferInsert>): Promise<void> {
+  /** Ends this run; a run that was meanwhile re-queued (its heartbeat went stale) is left alone. */
+  private async finish(studyId: number, analysisId: number, attempt: number, values: Partial<typeof analyses.$inferInsert>): Promise<void> {
     await this.db.transaction(async (tx) => {
-      await tx.update(analyses).set({ ...values, finishedAt: new Date() }).where(eq(analyses.id, analysisId));
-      const [study] = await tx.select({ lab: studies.laboratoryId }).from(studies).where(eq(studies.id, studyId));
-      await recordAudit(tx, { id: null, name: 'analysis worker', laboratoryId: study.lab }, {
+      const updated = await tx.update(analyses).set({ ...values, finishedAt: new Date() })
+        .where(and(eq(analyses.id, analysisId), eq(analyses.state, 'running'), eq(analyses.attempt, attempt))).returning({ id: analyses.id });
+      if (!updated.length) return;
+      await recordAudit(tx, await workerActor(tx, studyId), {
         action: `analysis.${values.state}`, entity: 'analysis', entityId: analysisId, studyId,
         after: { durationMs: values.durationMs, error: values.error ?? undefined },
       });
     });
   }
 
-  /** A queued analysis whose job was lost (a crash between commit and send) is sent again. */
-  private async requeueStale(): Promise<void> {
-    const stale = await this.db.select({ id: analyses.id }).from(analyses)
-      .where(and(eq(analyses.state, 'queued'), lt(analyses.queuedAt, sql`now() - interval '30 seconds'`)));
-    for (const s of stale) await this.enqueue(s.id).catch(() => undefined);
+  /** One sweep at a time per process; errors (the database away) are logged and the next sweep tries again. */
+  sweep(): Promise<void> {
+    this.sweeping ??= this.sweepOnce().catch((err) => logFailure('the analysis sweeper', err)).finally(() => (this.sweeping = null));
+    return this.sweeping;
+  }
+
+  private async sweepOnce(): Promise<void> {
+    const staleSeconds = Math.round(this.timing.staleMs / 1000);
+    const lost = await this.db.select().from(analyses).where(and(eq(analyses.state, 'running'), or(
+      lt(analyses.heartbeatAt, sql`now() - make_interval(secs => ${staleSeconds})`),
+      and(isNull(analyses.heartbeatAt), lt(analyses.startedAt, sql`now() - make_interval(secs => ${staleSeconds})`)),
+    )));
+    for (const run of lost) {
+      const requeued = await this.db.transaction(async (tx) => {
+        const again = run.attempt < MAX_ATTEMPTS;
+        const reason = `the process running it stopped (no sign of life for ${staleSeconds} s)`;
+        const [changed] = await tx.update(analyses).set(again
+          ? { state: 'queued', attempt: run.attempt + 1, progress: 0, startedAt: null, heartbeatAt: null }
+          : { state: 'failed', finishedAt: new Date(), error: `The analysis stopped twice because ${reason}; run it again, and tell the administrator if it keeps happening` })
+          .where(and(eq(analyses.id, run.id), eq(analyses.state, 'running'), eq(analyses.attempt, run.attempt))).returning();
+        if (!changed) return false;
+        await recordAudit(tx, await workerActor(tx, run.studyId), again
+          ? { action: 'analysis.requeued', entity: 'analysis', entityId: run.id, studyId: run.studyId, after: { attempt: run.attempt + 1, reason } }
+          : { action: 'analysis.failed', entity: 'analysis', entityId: run.id, studyId: run.studyId, after: { error: changed.error } });
+        return again;
+      });
+      if (requeued) await this.enqueue(run.id);
+    }
+    await this.resendLostJobs();
+  }
+
+  /**
+   * A queued analysis with no live job (a crash between commit and send, a job that failed before it
+   * could claim its analysis) is sent again. One process at a time does this (an advisory lock), so no
+   * analysis gets two jobs.
+   */
+  private async resendLostJobs(): Promise<void> {
+    await this.db.transaction(async (tx) => {
+      const { rows: [lock] } = await tx.execute<{ got: boolean }>(sql`SELECT pg_try_advisory_xact_lock(7002, 1) AS got`);
+      if (!lock.got) return;
+      const { rows } = await tx.execute<{ id: number }>(sql`
+        SELECT a.id FROM analyses a
+        WHERE a.state = 'queued' AND a.queued_at < now() - interval '30 seconds'
+          AND NOT EXISTS (SELECT 1 FROM pgboss.job j WHERE j.name = ${QUEUE} AND j.state IN ('created', 'retry', 'active')
+                          AND (j.data->>'analysisId')::int = a.id)`);
+      for (const r of rows) await this.enqueue(r.id);
+    });
   }
 
   async stop(): Promise<void> {
     if (this.sweeper) clearInterval(this.sweeper);
+    await this.sweeping;
     await this.boss?.stop({ graceful: true, wait: true, timeout: 10_000 });
     await this.pool?.close();
     this.boss = null;
     this.pool = null;
   }
+}
+
+/** Events written by the queue name no person; they belong to the study's laboratory. */
+async function workerActor(tx: Tx, studyId: number) {
+  const [study] = await tx.select({ lab: studies.laboratoryId }).from(studies).where(eq(studies.id, studyId));
+  return { id: null, name: 'analysis worker', laboratoryId: study.lab };
 }

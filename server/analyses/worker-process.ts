@@ -1,12 +1,14 @@
 import { loadConfig } from '../config';
 import { openDatabase } from '../db/client';
-import { AnalysisJobs } from './analysis-jobs';
+import { keepRunningOnStrayRejections } from '../main';
+import { AnalysisJobs, jobTiming } from './analysis-jobs';
 
 /** `npm run worker`: a process that only takes analysis jobs from the shared PostgreSQL queue. */
 export async function runWorkers(): Promise<void> {
+  keepRunningOnStrayRejections();
   const config = loadConfig();
-  const database = openDatabase(config.databaseUrl, 4);
-  const jobs = new AnalysisJobs(database.db, config.databaseUrl);
+  const database = openDatabase(config.databaseUrl, 4, 'parallax-worker');
+  const jobs = new AnalysisJobs(database.db, config.databaseUrl, jobTiming(config.analysisStaleSeconds));
   await jobs.start({ work: true });
   console.log('[parallax] analysis worker is taking jobs; Ctrl-C stops it');
   const stop = async () => {

@@ -1,6 +1,7 @@
 import { createHash } from 'node:crypto';
 import { existsSync, mkdirSync, readdirSync, readFileSync } from 'node:fs';
 import { createServer } from 'node:net';
+import os from 'node:os';
 import path from 'node:path';
 import { Client } from 'pg';
 import { isRoot, log, runSync } from './run';
@@ -138,4 +139,35 @@ export async function dropDatabase(adminUrl: string, name: string): Promise<void
   } finally {
     await c.end();
   }
+}
+
+export interface PrivateCluster { port: number; url: (db: string) => string; start: () => void; stop: () => void; remove: () => void }
+
+/**
+ * A throwaway PostgreSQL cluster of its own, for the tests that stop and start the database under a
+ * running app (they must not stop the cluster the other suites use). fsync is off: nothing in it is kept.
+ */
+export async function createPrivateCluster(name: string): Promise<PrivateCluster> {
+  const bin = binDir();
+  const base = path.join(isRoot() ? '/var/tmp' : os.tmpdir(), `parallax-${name}-${process.pid}`);
+  const dataDir = path.join(base, 'data');
+  mkdirSync(dataDir, { recursive: true });
+  if (isRoot()) runSync('chown', ['-R', 'postgres:postgres', base]);
+  runSync('chmod', ['700', dataDir]);
+  runSync(...asServerUser(path.join(bin, 'initdb'), ['-D', dataDir, '-U', 'postgres', '--auth=trust', '--encoding=UTF8', '--locale=C.UTF-8', '--no-sync']));
+  const port = await choosePort(55400 + (process.pid % 500), true);
+  const opts = `-p ${port} -k ${base} -c listen_addresses=127.0.0.1 -c fsync=off -c full_page_writes=off`;
+  const pgCtl = (...args: string[]) => runSync(...asServerUser(path.join(bin, 'pg_ctl'), ['-D', dataDir, ...args]));
+  const cluster: PrivateCluster = {
+    port,
+    url: (db) => `postgres://postgres@127.0.0.1:${port}/${db}`,
+    start: () => { pgCtl('-l', path.join(base, 'server.log'), '-w', '-t', '60', '-o', opts, 'start'); },
+    stop: () => { pgCtl('-m', 'fast', '-w', 'stop'); },
+    remove: () => {
+      try { cluster.stop(); } catch { /* already stopped */ }
+      runSync('rm', ['-rf', base]);
+    },
+  };
+  cluster.start();
+  return cluster;
 }

@@ -3,13 +3,14 @@ import { migrateDatabase, openDatabase } from '../db/client';
 import { demoSignIns, seedDemo } from '../db/seed';
 import { DEMO_PASSWORD } from '../db/seed-data';
 import { startFakeSmtp } from '../mail/fake-smtp';
-import { listen } from '../main';
+import { keepRunningOnStrayRejections, listen } from '../main';
 import { buildClient } from './client-build';
 import { prepareDatabase } from './database';
 import { log } from './run';
 
 /** `npm start`: database, migrations, demo data, client build, local mail, then the app. */
 export async function main(): Promise<void> {
+  keepRunningOnStrayRejections();
   const database = await prepareDatabase('parallax', false);
   const cleanups: (() => Promise<void> | void)[] = [database.stopServer];
   const shutdown = async (code: number) => {

@@ -1,5 +1,7 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { AppError, STATUS } from './app-error';
+import { logFailure } from '../log';
+import { isDatabaseUnavailable, RETRY_AFTER_SECONDS } from './database-errors';
 
 export const notFoundHandler: RequestHandler = (req, res) => {
   res.status(404).json({ error: `No such route: ${req.method} ${req.path}`, issues: [] });
@@ -27,7 +29,17 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
     res.status(413).json({ error: 'The request is too large', issues: [] });
     return;
   }
-  console.error(`[parallax] ${req.method} ${req.path} failed:`, err);
-  const mutating = !['GET', 'HEAD', 'OPTIONS'].includes(req.method);
-  res.status(500).json({ error: `Something went wrong on the server${mutating ? '; the change was not saved' : ''}`, issues: [] });
+  if (isDatabaseUnavailable(err)) {
+    res.setHeader('Retry-After', String(RETRY_AFTER_SECONDS));
+    res.status(503).json({
+      error: `The database is not answering at the moment${mutating(req.method) ? ', so nothing was saved' : ''}; try again in a few seconds`,
+      issues: [],
+    });
+    return;
+  }
+  // Never the error object itself: drizzle's message carries the SQL parameters, i.e. row data.
+  logFailure(`${req.method} ${req.path}`, err, 0);
+  res.status(500).json({ error: `Something went wrong on the server${mutating(req.method) ? '; the change was not saved' : ''}`, issues: [] });
 };
+
+const mutating = (method: string) => !['GET', 'HEAD', 'OPTIONS'].includes(method);

@@ -12,6 +12,8 @@ export interface RouteSpec {
   before?: RequestHandler[];
   /** A POST that only reads and re-computes (a re-check); it changes no record. */
   readOnly?: boolean;
+  /** Served before the session is read (health checks: they must answer without the session store). */
+  sessionless?: boolean;
   handler: (req: Request, res: Response) => unknown;
 }
 

@@ -1,5 +1,6 @@
 import type { Transporter } from 'nodemailer';
 import type { Database } from '../db/client';
+import { logFailure } from '../log';
 import { deliverOutbox, smtpTransport } from './outbox';
 
 /** Delivers the outbox now and then, and at once when asked (after a commit that queued mail). */
@@ -25,7 +26,7 @@ export class MailService {
     if (!this.running) {
       this.running = deliverOutbox(this.db, this.transport, this.from)
         .catch((err) => {
-          console.error('[parallax] mail delivery failed:', (err as Error).message);
+          logFailure('mail delivery', err);
           return 0;
         })
         .finally(() => (this.running = null));

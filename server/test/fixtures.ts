@@ -1,8 +1,11 @@
+import type { Database } from '../db/client';
 import { analytes, instruments } from '../db/schema';
-import type { Harness } from './harness';
+
+/** What the fixtures need of a harness: its database (a child-process app's test passes its own). */
+type WithDb = { database: { db: Database } };
 
 /** The demo glucose analyte and two instruments of the Vale Harbor laboratory. */
-export async function catalogIds(h: Harness) {
+export async function catalogIds(h: WithDb) {
   const a = await h.database.db.select().from(analytes);
   const i = await h.database.db.select().from(instruments);
   const glucose = a.find((x) => x.name === 'Glucose' && x.unit === 'mmol/L')!;
@@ -12,7 +15,7 @@ export async function catalogIds(h: Harness) {
 
 type Agent = { agent: import('supertest').Agent; xsrf: string };
 
-export async function createComparison(h: Harness, s: Agent, title = `Comparison ${Date.now()}`, settings: object = {}) {
+export async function createComparison(h: WithDb, s: Agent, title = `Comparison ${Date.now()}`, settings: object = {}) {
   const res = await s.agent.post('/api/v1/studies').set('X-XSRF-TOKEN', s.xsrf)
     .send({ kind: 'method-comparison', title, ...(await catalogIds(h)), settings: { resamples: 1000, regressionResamples: 1000, seed: 'fixture', ...settings } });
   if (res.status !== 201) throw new Error(`create study answered ${res.status}: ${JSON.stringify(res.body)}`);
@@ -39,7 +42,7 @@ export async function waitForAnalysis(s: Agent, id: number) {
 }
 
 /** A comparison with 40 rows entered by `s` and current findings (the harness must run jobs). */
-export async function analysedComparison(h: Harness, s: Agent, title?: string) {
+export async function analysedComparison(h: WithDb, s: Agent, title?: string) {
   const study = await createComparison(h, s, title);
   await s.agent.put(`/api/v1/studies/${study.id}/specimens`).set('X-XSRF-TOKEN', s.xsrf).send({ version: study.version, rows: inventedPairs(40) });
   const queued = await s.agent.post(`/api/v1/studies/${study.id}/analyses`).set('X-XSRF-TOKEN', s.xsrf);

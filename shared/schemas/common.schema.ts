@@ -17,3 +17,12 @@ export const NewPassword = z
   .max(200, 'Use at most 200 characters')
   .refine((p) => new Set(p).size > 3, 'Use more than three different characters')
   .refine((p) => !COMMON_PASSWORDS.includes(p.toLowerCase()), 'This password is too common; choose another');
+
+/** `GET /api/v1/health`: whether the database and the analysis queue answer. */
+export const HealthReport = z.object({
+  status: z.enum(['ok', 'unavailable']),
+  database: z.enum(['ok', 'not answering']),
+  queue: z.enum(['ok', 'not answering']),
+  checkedAt: z.string(),
+});
+export type HealthReport = z.infer<typeof HealthReport>;
