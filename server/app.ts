@@ -15,6 +15,7 @@ import type { Db } from './db/client';
 import { healthRoutes } from './health/health.routes';
 import { errorHandler, notFoundHandler } from './http/error-handler';
 import { routerFrom, RouteSpec } from './http/routes';
+import { controlCharacters } from './http/control-characters';
 import { xsrfProtection } from './http/xsrf';
 import { MailService } from './mail/mail-service';
 import { signoffRoutes } from './signoff/signoff.routes';
@@ -52,7 +53,7 @@ const CSP = {
 /** Builds the Express app (no listen; supertest uses it as it is). */
 export function createApp(config: Config, database: Db): CreatedApp {
   const mail = new MailService(database.db, config.smtpUrl, config.mailFrom);
-  const ctx: AppContext = { db: database.db, config, mail, jobs: new AnalysisJobs(database.db, config.databaseUrl, jobTiming(config.analysisStaleSeconds)) };
+  const ctx: AppContext = { db: database.db, config, mail, jobs: new AnalysisJobs(database.db, config.databaseUrl, jobTiming(config.analysisStaleSeconds, config.analysisThreads)) };
   const passport = configurePassport(database.db);
   const app = express();
   app.set('trust proxy', 'loopback');
@@ -63,6 +64,7 @@ export function createApp(config: Config, database: Db): CreatedApp {
   // No API answer (findings, rows, history) may be kept by a browser or proxy cache.
   api.use((_req, res, next) => { res.setHeader('Cache-Control', 'no-store'); next(); });
   api.use(xsrfProtection(config.sessionSecret, config.cookieSecure));
+  api.use(controlCharacters);
   const routes = apiRoutes(ctx, passport);
   api.use(routerFrom(routes.filter((r) => r.sessionless)));
   api.use(sessionMiddleware(database.pool, config));

@@ -14,6 +14,7 @@ const Env = z.object({
   SIGN_IN_RATE_LIMIT: z.coerce.number().int().positive().default(30),
   CLIENT_DIR: z.string().optional(),
   ANALYSIS_STALE_SECONDS: z.coerce.number().int().min(2).max(3600).default(30),
+  ANALYSIS_THREADS: z.coerce.number().int().min(1).max(64).optional(),
 });
 
 export type Config = {
@@ -30,6 +31,8 @@ export type Config = {
   clientDir: string | undefined;
   /** A running analysis without a heartbeat for this long lost its process and is re-queued (once). */
   analysisStaleSeconds: number;
+  /** Analyses one process runs at once (worker threads); default one per core but one. */
+  analysisThreads: number | undefined;
 };
 
 /** Reads the environment once; a bad value stops start-up with a message naming the variable. */
@@ -54,5 +57,6 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     signInRateLimit: e.SIGN_IN_RATE_LIMIT,
     clientDir: e.CLIENT_DIR,
     analysisStaleSeconds: e.ANALYSIS_STALE_SECONDS,
+    analysisThreads: e.ANALYSIS_THREADS,
   };
 }

@@ -19,10 +19,12 @@ export interface JobTiming {
   staleMs: number;
   /** How often the sweeper looks for lost runs and lost jobs. */
   sweepMs: number;
+  /** Worker threads, i.e. analyses run at once by this process (default: one per core but one). */
+  threads?: number;
 }
 /** The timing for a given stale limit: a heartbeat every second, a sweep twice per limit. */
-export const jobTiming = (staleSeconds = 30): JobTiming =>
-  ({ heartbeatMs: 1000, staleMs: staleSeconds * 1000, sweepMs: Math.max(1000, (staleSeconds * 1000) / 2) });
+export const jobTiming = (staleSeconds = 30, threads?: number): JobTiming =>
+  ({ heartbeatMs: 1000, staleMs: staleSeconds * 1000, sweepMs: Math.max(1000, (staleSeconds * 1000) / 2), threads });
 
 /**
  * The analysis queue lives in PostgreSQL (pg-boss), so any process with `work` on can take a job:
@@ -49,7 +51,7 @@ export class AnalysisJobs {
     await boss.createQueue(QUEUE);
     this.boss = boss;
     if (options.work) {
-      this.pool = new AnalysisPool();
+      this.pool = new AnalysisPool(this.timing.threads);
       for (let i = 0; i < this.pool.threads; i++) {
         await boss.work<{ analysisId: number }>(QUEUE, { batchSize: 1, pollingIntervalSeconds: 0.5 }, async ([job]) => this.execute(job.data.analysisId));
       }
@@ -153,11 +155,11 @@ export class AnalysisJobs {
     await this.db.transaction(async (tx) => {
       const { rows: [lock] } = await tx.execute<{ got: boolean }>(sql`SELECT pg_try_advisory_xact_lock(7002, 1) AS got`);
       if (!lock.got) return;
-      const { rows } = await tx.execute<{ id: number }>(sql`
-        SELECT a.id FROM analyses a
-        WHERE a.state = 'queued' AND a.queued_at < now() - interval '30 seconds'
-          AND NOT EXISTS (SELECT 1 FROM pgboss.job j WHERE j.name = ${QUEUE} AND j.state IN ('created', 'retry', 'active')
-                          AND (j.data->>'analysisId')::int = a.id)`);
+      const rows = await tx.select({ id: analyses.id }).from(analyses).where(and(
+        eq(analyses.state, 'queued'), lt(analyses.queuedAt, sql`now() - interval '30 seconds'`),
+        sql`NOT EXISTS (SELECT 1 FROM pgboss.job j WHERE j.name = ${QUEUE} AND j.state IN ('created', 'retry', 'active')
+                        AND (j.data->>'analysisId')::int = ${analyses.id})`,
+      ));
       for (const r of rows) await this.enqueue(r.id);
     });
   }

@@ -6,14 +6,11 @@ import type { AnalysisInput } from '../specimens/input-hash';
 
 /** A pool of worker threads that run shared/stats, so the API thread stays responsive. */
 export class AnalysisPool {
-  /** One thread per core but one, at least one and at most four: the API thread keeps a core. */
-  readonly threads = Math.max(1, Math.min(4, os.availableParallelism() - 1));
-  private readonly pool = new Piscina({
-    filename: path.join(__dirname, 'analysis-task.js'),
-    minThreads: 0,
-    maxThreads: this.threads,
-    idleTimeout: 30_000,
-  });
+  private readonly pool: Piscina;
+  /** By default one thread per core but one, at least one and at most four: the API thread keeps a core. */
+  constructor(readonly threads = Math.max(1, Math.min(4, os.availableParallelism() - 1))) {
+    this.pool = new Piscina({ filename: path.join(__dirname, 'analysis-task.js'), minThreads: 0, maxThreads: threads, idleTimeout: 30_000 });
+  }
 
   async run(input: AnalysisInput, onProgress: (f: number) => void): Promise<unknown> {
     const { port1, port2 } = new MessageChannel();

@@ -8,7 +8,7 @@ export async function runWorkers(): Promise<void> {
   keepRunningOnStrayRejections();
   const config = loadConfig();
   const database = openDatabase(config.databaseUrl, 4, 'parallax-worker');
-  const jobs = new AnalysisJobs(database.db, config.databaseUrl, jobTiming(config.analysisStaleSeconds));
+  const jobs = new AnalysisJobs(database.db, config.databaseUrl, jobTiming(config.analysisStaleSeconds, config.analysisThreads));
   await jobs.start({ work: true });
   console.log('[parallax] analysis worker is taking jobs; Ctrl-C stops it');
   const stop = async () => {

@@ -7,7 +7,6 @@ import { DEMO_PASSWORD } from '../db/seed-data';
 import { createDatabase, createPrivateCluster, type PrivateCluster } from '../dev/postgres';
 
 const root = path.resolve(__dirname, '../..');
-const tsx = path.join(root, 'node_modules/.bin/tsx');
 
 export interface ChildApp { url: string; child: ChildProcess; output: () => string; alive: () => boolean; stop: () => Promise<void> }
 
@@ -15,8 +14,10 @@ export interface ChildApp { url: string; child: ChildProcess; output: () => stri
  * Runs a server command (`server/main.ts`, the worker process) as a real child process, so a test can
  * see it survive (or kill it) the way an operator would. Resolves once it printed `ready`.
  */
-export function startChild(script: string, env: NodeJS.ProcessEnv, ready: RegExp): Promise<ChildApp> {
-  const child = spawn(tsx, [path.join(root, script)], { cwd: root, env: { ...process.env, ...env }, stdio: ['ignore', 'pipe', 'pipe'] });
+export function startChild(script: string, env: NodeJS.ProcessEnv, ready: RegExp, args: string[] = []): Promise<ChildApp> {
+  // node itself with tsx's CommonJS hook (not the tsx command, which would run the script in a grandchild
+  // that a kill of the child leaves running).
+  const child = spawn(process.execPath, ['--require', 'tsx/cjs', path.join(root, script), ...args], { cwd: root, env: { ...process.env, ...env }, stdio: ['ignore', 'pipe', 'pipe'] });
   let out = '';
   let exited = false;
   child.on('exit', () => { exited = true; });
@@ -29,7 +30,12 @@ export function startChild(script: string, env: NodeJS.ProcessEnv, ready: RegExp
         clearTimeout(timer);
         resolve({
           url: m[1] ?? '', child, output: () => out, alive: () => !exited,
-          stop: () => new Promise<void>((r) => { if (exited) return r(); child.once('exit', () => r()); child.kill('SIGTERM'); }),
+          stop: () => new Promise<void>((r) => {
+            if (exited) return r();
+            const hard = setTimeout(() => child.kill('SIGKILL'), 10_000);
+            child.once('exit', () => { clearTimeout(hard); r(); });
+            child.kill('SIGTERM');
+          }),
         });
       }
     };

@@ -12,13 +12,13 @@ export interface Harness extends CreatedApp { database: Db; smtpUrl: string; clo
  * The real app on the test database that `npm test` prepared (DATABASE_URL), with its own local
  * mail store. Options override the environment, e.g. a short idle time-out.
  */
-export async function startHarness(env: Record<string, string> = {}, options: { jobs?: boolean } = {}): Promise<Harness> {
+export async function startHarness(env: Record<string, string> = {}, options: { jobs?: boolean | 'send-only' } = {}): Promise<Harness> {
   if (!process.env.DATABASE_URL) throw new Error('API tests need DATABASE_URL (run them through npm test)');
   const database = openDatabase(process.env.DATABASE_URL, 5);
   const smtp = await startFakeSmtp(database.db);
   const config = loadConfig({ ...process.env, SMTP_URL: smtp.url, SIGN_IN_RATE_LIMIT: '1000', PUBLIC_URL: 'http://parallax.test', ...env });
   const created = createApp(config, database);
-  if (options.jobs) await created.ctx.jobs.start();
+  if (options.jobs) await created.ctx.jobs.start({ work: options.jobs === true });
   return {
     ...created,
     database,

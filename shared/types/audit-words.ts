@@ -67,6 +67,7 @@ const HEADLINES: Record<string, (a: Obj, b: Obj) => string> = {
   'analysis.queued': (a) => `Analysis queued (seed ${a.seed}, ${show(a.resamples)} resamples, ${a.engineVersion})`,
   'analysis.done': (a) => `Analysis finished in ${show(a.durationMs)} ms`,
   'analysis.failed': (a) => `Analysis failed: ${a.error ?? 'unknown error'}`,
+  'analysis.requeued': (a) => `Analysis queued again (attempt ${a.attempt}): ${a.reason}`,
   'signature.self-sign-allowed': () => 'The director signed rows they entered, as the laboratory setting allows',
   'integrity.checked': (a) => `Integrity re-checked: ${a.passed ? 'every check passed' : `failed (${show(a.failed)})`}`,
   'reproduce.checked': (a) => `Results re-run: ${a.identical ? 'identical' : `${a.differences} fields differ`} (engine ${a.engine})`,
