@@ -111,7 +111,7 @@ it('re-sends a queued analysis whose job was lost, exactly once however often th
 
 it('runs as many analyses at once as the worker pool has threads', async () => {
   const tech = await signedIn(h, 'tech@valeharbor.example');
-  const ids = [];
+  const ids: number[] = [];
   for (const t of ['Parallel one', 'Parallel two']) ids.push(await queue(tech, (await heavyStudy(tech, t)).id));
   const jobs = await working(2);
   expect(jobs.concurrency).toBe(2);
