@@ -1,5 +1,6 @@
 import type { Server } from 'node:http';
 import { createApp } from './app';
+import { scheduleCheckpoints } from './audit/checkpoints';
 import { loadConfig, type Config } from './config';
 import { openDatabase } from './db/client';
 import { logFailure } from './log';
@@ -12,6 +13,7 @@ export async function listen(config: Config): Promise<RunningApp> {
   const { app, ctx } = createApp(config, database);
   ctx.mail.start();
   await ctx.jobs.start();
+  const stopCheckpoints = scheduleCheckpoints(database.db);
   const server: Server = await new Promise((resolve) => {
     const s = app.listen(config.port, config.host, () => resolve(s));
   });
@@ -20,6 +22,7 @@ export async function listen(config: Config): Promise<RunningApp> {
   return {
     url: `http://${config.host}:${port}`,
     close: async () => {
+      stopCheckpoints();
       await ctx.mail.stop();
       await ctx.jobs.stop();
       const closed = new Promise<void>((r) => server.close(() => r()));

@@ -6,7 +6,7 @@ import { READERS, studyId } from '../studies/studies.routes';
 import { searchArchive } from './archive.service';
 import { exportArchive, exportStudy } from './export.service';
 import { labHistory, labPeople, studyHistory } from './history.service';
-import { checkIntegrity } from './integrity.service';
+import { checkChains, checkIntegrity } from './integrity.service';
 import { reproduceStudy } from './reproduce.service';
 
 export const AUDITORS = ['director', 'quality'] as const;
@@ -31,8 +31,9 @@ export function auditRoutes(ctx: AppContext): RouteSpec[] {
       method: 'get', path: '/studies/:id/export.xlsx', access: AUDITORS,
       handler: async (req, res) => send(res, `parallax-study-${studyId(req.params)}.xlsx`, await exportStudy(ctx.db, req.user!, studyId(req.params))),
     },
-    // These two only read and re-compute; they record that the check was made, and change nothing.
+    // These three only read and re-compute; they record that the check was made, and change nothing.
     { method: 'post', path: '/studies/:id/integrity-check', access: AUDITORS, readOnly: true, handler: async (req, res) => res.json(await checkIntegrity(ctx.db, req.user!, studyId(req.params))) },
     { method: 'post', path: '/studies/:id/reproduce', access: AUDITORS, readOnly: true, handler: async (req, res) => res.json(await reproduceStudy(ctx.db, req.user!, studyId(req.params))) },
+    { method: 'post', path: '/audit/chain-check', access: AUDITORS, readOnly: true, handler: async (req, res) => res.json(await checkChains(ctx.db, req.user!)) },
   ];
 }

@@ -1,7 +1,7 @@
 import { and, desc, eq, ne } from 'drizzle-orm';
-import type { CheckResult, IntegrityReport } from '../../shared/schemas';
+import type { ChainCheckReport, CheckResult, IntegrityReport } from '../../shared/schemas';
 import { actorOf, SignedInUser } from '../auth/session-user';
-import type { Database } from '../db/client';
+import type { Database, Executor } from '../db/client';
 import { analyses, auditEvents, signatures } from '../db/schema';
 import { AppError } from '../http/app-error';
 import { analysedFields, analysedSettings, inputHash, loadRows } from '../specimens/input-hash';
@@ -9,7 +9,7 @@ import { findStudy } from '../studies/studies.repository';
 import { contentHashOf, signedContent } from '../signoff/content-hash';
 import { recordAudit } from './audit';
 import { sha256Hex } from './canonical-json';
-import { verifyLabChain } from './chain';
+import { verifyChain, type ChainReport } from './chain';
 
 /**
  * Re-checks a signed study from what is stored: the content hash over rows, settings and results
@@ -38,19 +38,55 @@ export async function checkIntegrity(db: Database, me: SignedInUser, studyId: nu
     name: 'Analysis input', passed: now === analysis.inputHash,
     detail: now === analysis.inputHash ? 'The signed analysis was made from exactly the rows and settings stored now.' : 'The stored rows or settings differ from those the signed analysis used.',
   });
-  const chain = await verifyLabChain(db, me.laboratoryId);
-  const signedEvent = (await db.select().from(auditEvents).where(and(eq(auditEvents.studyId, studyId), eq(auditEvents.action, 'study.signed'))))[0];
-  const eventMatches = (signedEvent?.after as { contentHash?: string } | null)?.contentHash === sig.contentHash;
-  checks.push({
-    name: 'History chain', passed: chain.broken.length === 0 && eventMatches,
-    detail: chain.broken.length
-      ? `The laboratory's history chain is broken at ${chain.broken.length} event(s): event ${chain.broken[0].id} ${chain.broken[0].why}.`
-      : eventMatches ? `All ${chain.events} events of the laboratory's history are intact and chained; the signing event holds the same content hash.`
-        : 'The history has no signing event with this content hash.',
-  });
+  checks.push(await historyCheck(db, me.laboratoryId, studyId, sig));
   const passed = checks.every((c) => c.passed);
   await db.transaction((tx) => recordAudit(tx, actorOf(me), {
     action: 'integrity.checked', entity: 'study', entityId: studyId, studyId, after: { passed, failed: checks.filter((c) => !c.passed).map((c) => c.name) },
   }));
   return { studyId, passed, checks, checkedAt: new Date().toISOString() };
+}
+
+/** Up to three problems in words, and how many more. */
+export function problemWords(report: ChainReport): string {
+  const [first, ...rest] = report.problems;
+  const shown = [first, ...rest.slice(0, 2)].join('; ');
+  return rest.length > 2 ? `${shown}; and ${rest.length - 2} more problems` : shown;
+}
+
+/**
+ * The laboratory's history chain is intact (keyed hashes, signed head, checkpoints), it still holds,
+ * at the position the signature recorded, the event it was made after, and its signing event carries
+ * the signature's content hash.
+ */
+async function historyCheck(db: Executor, laboratoryId: number, studyId: number, sig: typeof signatures.$inferSelect): Promise<CheckResult> {
+  const chain = await verifyChain(db, laboratoryId);
+  const signedEvent = (await db.select().from(auditEvents).where(and(eq(auditEvents.studyId, studyId), eq(auditEvents.action, 'study.signed'))))[0];
+  const eventMatches = (signedEvent?.after as { contentHash?: string } | null)?.contentHash === sig.contentHash;
+  const anchored = sig.chainLength === null || chain.hashAt(sig.chainLength) === sig.chainHeadHash;
+  const name = 'History chain';
+  if (chain.problems.length) return { name, passed: false, detail: `The laboratory's history chain is broken: ${problemWords(chain)}.` };
+  if (!anchored) return { name, passed: false, detail: `The history no longer holds, as event ${sig.chainLength}, the event this signature was made after: the history before the signature was rewritten.` };
+  if (!eventMatches) return { name, passed: false, detail: 'The history has no signing event with this content hash.' };
+  return {
+    name, passed: true,
+    detail: `All ${chain.events} events of the laboratory's history are intact, keyed and chained up to its signed newest event${sig.chainLength ? `; event ${sig.chainLength}, which the signature was made after, is unchanged` : ''}; the signing event holds the same content hash.`,
+  };
+}
+
+/**
+ * The quality officer's re-check of the history itself: the laboratory's chain, and the chain of events
+ * that belong to no laboratory (sign-ins of unknown e-mails, rate limits), which no study re-check covers.
+ * Recorded as an event; it changes nothing else.
+ */
+export async function checkChains(db: Database, me: SignedInUser): Promise<ChainCheckReport> {
+  const checks: CheckResult[] = [];
+  for (const [name, lab, whose] of [['Laboratory history', me.laboratoryId, 'the laboratory\'s history'], ['History without a laboratory', null, 'the history of events that belong to no laboratory (sign-ins of unknown e-mails, rate limits)']] as const) {
+    const chain = await verifyChain(db, lab);
+    checks.push(chain.problems.length
+      ? { name, passed: false, detail: `${chain.problems.length === 1 ? 'One problem' : `${chain.problems.length} problems`} in ${whose}: ${problemWords(chain)}.` }
+      : { name, passed: true, detail: `All ${chain.events} events of ${whose} are intact, keyed and chained up to its signed newest event; every checkpoint still matches.` });
+  }
+  const passed = checks.every((c) => c.passed);
+  await db.transaction((tx) => recordAudit(tx, actorOf(me), { action: 'history.checked', entity: 'audit', after: { passed, failed: checks.filter((c) => !c.passed).map((c) => c.name) } }));
+  return { passed, checks, checkedAt: new Date().toISOString() };
 }

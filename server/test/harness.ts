@@ -2,7 +2,9 @@ import request from 'supertest';
 import type TestAgent from 'supertest/lib/agent';
 import { createApp, CreatedApp } from '../app';
 import { loadConfig } from '../config';
-import { openDatabase, type Db } from '../db/client';
+import { migrateDatabase, openDatabase, type Db } from '../db/client';
+import { seedDemo } from '../db/seed';
+import { createDatabase, dropDatabase } from '../dev/postgres';
 import { startFakeSmtp } from '../mail/fake-smtp';
 import { DEMO_PASSWORD } from '../db/seed-data';
 
@@ -12,11 +14,12 @@ export interface Harness extends CreatedApp { database: Db; smtpUrl: string; clo
  * The real app on the test database that `npm test` prepared (DATABASE_URL), with its own local
  * mail store. Options override the environment, e.g. a short idle time-out.
  */
-export async function startHarness(env: Record<string, string> = {}, options: { jobs?: boolean | 'send-only' } = {}): Promise<Harness> {
-  if (!process.env.DATABASE_URL) throw new Error('API tests need DATABASE_URL (run them through npm test)');
-  const database = openDatabase(process.env.DATABASE_URL, 5);
+export async function startHarness(env: Record<string, string> = {}, options: { jobs?: boolean | 'send-only'; databaseUrl?: string } = {}): Promise<Harness> {
+  const url = options.databaseUrl ?? process.env.DATABASE_URL;
+  if (!url) throw new Error('API tests need DATABASE_URL (run them through npm test)');
+  const database = openDatabase(url, 5);
   const smtp = await startFakeSmtp(database.db);
-  const config = loadConfig({ ...process.env, SMTP_URL: smtp.url, SIGN_IN_RATE_LIMIT: '1000', PUBLIC_URL: 'http://parallax.test', ...env });
+  const config = loadConfig({ ...process.env, DATABASE_URL: url, SMTP_URL: smtp.url, SIGN_IN_RATE_LIMIT: '1000', PUBLIC_URL: 'http://parallax.test', ...env });
   const created = createApp(config, database);
   if (options.jobs) await created.ctx.jobs.start({ work: options.jobs === true });
   return {
@@ -59,3 +62,20 @@ export const binary = (res: any, done: (err: Error | null, body: Buffer) => void
   res.on('data', (c: Buffer) => chunks.push(c));
   res.on('end', () => done(null, Buffer.concat(chunks)));
 };
+
+/**
+ * A database of its own beside the test database (same server), migrated and seeded with the demo:
+ * for suites that break what they test (a history chain) and must not break it for the others.
+ */
+export async function freshDatabase(tag: string): Promise<{ url: string; drop: () => Promise<void> }> {
+  const base = process.env.DATABASE_URL;
+  if (!base) throw new Error('API tests need DATABASE_URL (run them through npm test)');
+  const name = `parallax_${tag}_${process.pid}_${++counter}`;
+  const server = (db: string) => Object.assign(new URL(base), { pathname: `/${db}` }).toString();
+  await createDatabase(server('postgres'), name);
+  await migrateDatabase(server(name));
+  const seed = openDatabase(server(name), 2);
+  await seedDemo(seed.db);
+  await seed.close();
+  return { url: server(name), drop: () => dropDatabase(server('postgres'), name) };
+}

@@ -45,7 +45,7 @@ describe.each(ROLES)('as %s', (role) => {
 it('lets the quality role change nothing: every mutating route it may call only re-checks', () => {
   const mutating = h.routes.filter((r) => r.method !== 'get' && !r.readOnly && r.access !== 'public' && r.access !== 'signed-in');
   expect(mutating.filter((r) => (r.access as readonly string[]).includes('quality')).map((r) => `${r.method} ${r.path}`)).toEqual([]);
-  expect(h.routes.filter((r) => r.readOnly).map((r) => r.path)).toEqual(['/studies/:id/integrity-check', '/studies/:id/reproduce']);
+  expect(h.routes.filter((r) => r.readOnly).map((r) => r.path)).toEqual(['/studies/:id/integrity-check', '/studies/:id/reproduce', '/audit/chain-check']);
 });
 
 it('answers 401 to a signed-out caller on every route that is not public', async () => {

@@ -58,6 +58,9 @@ export const CheckResult = z.object({ name: z.string(), passed: z.boolean(), det
 export type CheckResult = z.infer<typeof CheckResult>;
 export const IntegrityReport = z.object({ studyId: z.number(), passed: z.boolean(), checks: z.array(CheckResult), checkedAt: z.string() });
 export type IntegrityReport = z.infer<typeof IntegrityReport>;
+/** `POST /api/v1/audit/chain-check`: the laboratory's history chain and the chain of events with no laboratory. */
+export const ChainCheckReport = z.object({ passed: z.boolean(), checks: z.array(CheckResult), checkedAt: z.string() });
+export type ChainCheckReport = z.infer<typeof ChainCheckReport>;
 
 export const FieldDifference = z.object({ path: z.string(), stored: z.unknown(), recomputed: z.unknown() });
 export const ReproduceReport = z.object({

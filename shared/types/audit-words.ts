@@ -70,6 +70,7 @@ const HEADLINES: Record<string, (a: Obj, b: Obj) => string> = {
   'analysis.requeued': (a) => `Analysis queued again (attempt ${a.attempt}): ${a.reason}`,
   'signature.self-sign-allowed': () => 'The director signed rows they entered, as the laboratory setting allows',
   'integrity.checked': (a) => `Integrity re-checked: ${a.passed ? 'every check passed' : `failed (${show(a.failed)})`}`,
+  'history.checked': (a) => `History chains re-checked: ${a.passed ? 'intact' : `failed (${show(a.failed)})`}`,
   'reproduce.checked': (a) => `Results re-run: ${a.identical ? 'identical' : `${a.differences} fields differ`} (engine ${a.engine})`,
   'laboratory.updated': () => 'Laboratory settings changed',
   'sign-in': () => 'Signed in',
