@@ -53,7 +53,7 @@ const CSP = {
 /** Builds the Express app (no listen; supertest uses it as it is). */
 export function createApp(config: Config, database: Db): CreatedApp {
   const mail = new MailService(database.db, config.smtpUrl, config.mailFrom);
-  const ctx: AppContext = { db: database.db, config, mail, jobs: new AnalysisJobs(database.db, config.databaseUrl, jobTiming(config.analysisStaleSeconds, config.analysisThreads)) };
+  const ctx: AppContext = { db: database.db, pool: database.pool, config, mail, jobs: new AnalysisJobs(database.db, config.databaseUrl, jobTiming(config.analysisStaleSeconds, config.analysisThreads)) };
   const passport = configurePassport(database.db);
   const app = express();
   app.set('trust proxy', 'loopback');

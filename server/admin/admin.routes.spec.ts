@@ -41,6 +41,21 @@ describe('users', () => {
     expect(mailbox.body.some((m: { to: string[] }) => m.to.includes(email))).toBe(true);
   });
 
+  it('invites an e-mail that has an account in another laboratory exactly as any other, and only the link reveals it', async () => {
+    const admin = await signedIn(h, 'admin@valeharbor.example');
+    const fresh = await admin.agent.post('/api/v1/users').set('X-XSRF-TOKEN', admin.xsrf).send({ name: 'Someone New', email: uniqueEmail('fresh'), roles: ['technologist'] }).expect(201);
+    const taken = await admin.agent.post('/api/v1/users').set('X-XSRF-TOKEN', admin.xsrf).send({ name: 'Rui Matos', email: 'tech@cedarpoint.example', roles: ['technologist'] }).expect(201);
+    expect(Object.keys(taken.body).sort()).toEqual(Object.keys(fresh.body).sort());
+    expect(taken.body).toMatchObject({ email: 'tech@cedarpoint.example', hasPassword: false, active: true });
+    // The owner of the address follows the link and learns it there; the other laboratory's account is untouched.
+    const token = /\/set-password\/([A-Za-z0-9_-]+)/.exec((await mailTo('tech@cedarpoint.example')).text)![1];
+    const visitor = await anonymous(h);
+    const res = await visitor.agent.post(`/api/v1/password-links/${token}`).set('X-XSRF-TOKEN', visitor.xsrf).send({ password: 'my-own-long-password' }).expect(409);
+    expect(res.body.error).toBe('This e-mail address already has a Parallax account in another laboratory; ask the administrator who invited you to use another address');
+    const cedar = await signedIn(h, 'tech@cedarpoint.example');
+    expect((await cedar.agent.get('/api/v1/session')).body.laboratory.name).toMatch(/Cedar Point/);
+  });
+
   it('refuses an expired link', async () => {
     const admin = await signedIn(h, 'admin@valeharbor.example');
     const email = uniqueEmail('late');

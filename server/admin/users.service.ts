@@ -1,6 +1,6 @@
 import type { InviteUserBody, UpdateUserBody, User } from '../../shared/schemas';
 import { recordAudit } from '../audit/audit';
-import { findLaboratory, findUserByEmail, findUserInLab, updateUser } from '../auth/auth.repository';
+import { findLaboratory, findUserInLab, findUserInLabByEmail, updateUser } from '../auth/auth.repository';
 import { sendPasswordLink } from '../auth/password-links';
 import { actorOf, SignedInUser } from '../auth/session-user';
 import type { AppContext } from '../context';
@@ -15,7 +15,9 @@ export async function listLabUsers(ctx: AppContext, me: SignedInUser): Promise<U
 
 export async function inviteUser(ctx: AppContext, me: SignedInUser, body: InviteUserBody): Promise<User> {
   const user = await ctx.db.transaction(async (tx) => {
-    if (await findUserByEmail(tx, body.email)) throw invalid('email', 'A user with this e-mail already exists');
+    // Only this laboratory's own users are looked at: whether the e-mail has an account elsewhere is not
+    // revealed (the invitation is sent the same way; only the link's holder learns it, when using it).
+    if (await findUserInLabByEmail(tx, me.laboratoryId, body.email)) throw invalid('email', 'A user with this e-mail already exists in this laboratory');
     const [row] = await tx.insert(users).values({ laboratoryId: me.laboratoryId, name: body.name, email: body.email, roles: body.roles }).returning();
     const lab = await findLaboratory(tx, me.laboratoryId);
     await sendPasswordLink(tx, row, lab.name, ctx.config.publicUrl);

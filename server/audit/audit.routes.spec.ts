@@ -1,7 +1,7 @@
 import ExcelJS from 'exceljs';
 import { eq, sql } from 'drizzle-orm';
 import { studies } from '../db/schema';
-import { analysedComparison } from '../test/fixtures';
+import { analysedComparison, createComparison, inventedPairs } from '../test/fixtures';
 import { binary, Harness, signedIn, startHarness } from '../test/harness';
 
 let h: Harness;
@@ -63,6 +63,25 @@ describe('archive', () => {
     expect(book.getWorksheet('Signatures')!.getRow(2).getCell(2).value).toBe('Dr. Imani Okafor');
     const history = book.getWorksheet('Audit history')!.getColumn(3).values as string[];
     expect(history).toEqual(expect.arrayContaining(['Submitted for sign-off', 'Signed: accepted for patient testing']));
+  });
+});
+
+describe('exports of what users typed', () => {
+  it('writes text that a spreadsheet could read as a formula so that none does, and keeps numbers as they are', async () => {
+    const tech = await signedIn(h, 'tech@valeharbor.example');
+    const study = await createComparison(h, tech, '=HYPERLINK("http://example.invalid","open me")');
+    const rows = inventedPairs(5).map((r, i) => ({ ...r, label: ['+1+1', '-2+3', '@SUM(A1)', 'S4', '-12'][i], note: ['=1+1', 'plain', '', '\tcmd', ''][i] }));
+    await tech.agent.put(`/api/v1/studies/${study.id}/specimens`).set('X-XSRF-TOKEN', tech.xsrf).send({ version: study.version, rows }).expect(200);
+    const quality = await signedIn(h, 'quality@valeharbor.example');
+    const bytes = (await quality.agent.get(`/api/v1/studies/${study.id}/export.xlsx`).buffer(true).parse(binary).expect(200)).body;
+    const book = new ExcelJS.Workbook();
+    await book.xlsx.load(bytes);
+    const cells: ExcelJS.Cell[] = [];
+    book.eachSheet((ws) => ws.eachRow((row) => row.eachCell((c) => cells.push(c))));
+    expect(cells.filter((c) => c.type === ExcelJS.ValueType.Formula)).toEqual([]);
+    const texts = cells.map((c) => c.value).filter((v): v is string => typeof v === 'string');
+    expect(texts.filter((t) => /^[=+@\t\r]/.test(t) || /^-[^\d.]/.test(t))).toEqual([]);
+    expect(texts).toEqual(expect.arrayContaining(["'=HYPERLINK(\"http://example.invalid\",\"open me\")", "'+1+1", "'-2+3", "'@SUM(A1)", "'\tcmd", "'=1+1", '-12', 'plain']));
   });
 });
 

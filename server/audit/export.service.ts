@@ -11,12 +11,21 @@ import { studyView } from '../studies/study-view';
 import { searchArchive } from './archive.service';
 import { studyHistory } from './history.service';
 
+/**
+ * Text that a spreadsheet could take for a formula (it begins with =, +, -, @, or a tab or carriage
+ * return) is written with a leading apostrophe, so no spreadsheet evaluates what a user typed into a
+ * label, note or comment (the OWASP advice against formula injection). Numbers, and results kept as
+ * text such as "-0.4", stay as they are: a plain number is no formula.
+ */
+export const inertText = (v: unknown): unknown =>
+  typeof v === 'string' && /^[=+\-@\t\r]/.test(v) && !/^[+-]?(\d+\.?\d*|\.\d+)(e[+-]?\d+)?$/i.test(v) ? `'${v}` : v;
+
 function sheet(wb: ExcelJS.Workbook, name: string, columns: [string, string, number][], rows: Record<string, unknown>[]) {
   const ws = wb.addWorksheet(name);
   ws.columns = columns.map(([header, key, width]) => ({ header, key, width }));
   ws.getRow(1).font = { bold: true };
   ws.views = [{ state: 'frozen', ySplit: 1 }];
-  rows.forEach((r) => ws.addRow(r));
+  rows.forEach((r) => ws.addRow(Object.fromEntries(Object.entries(r).map(([k, v]) => [k, inertText(v)]))));
   return ws;
 }
 

@@ -1,9 +1,22 @@
-import { and, eq } from 'drizzle-orm';
+import { and, asc, eq, sql } from 'drizzle-orm';
 import type { Executor } from '../db/client';
 import { laboratories, users } from '../db/schema';
 
+/**
+ * The account of an e-mail: the one with a password (at most one, a unique index says so); failing
+ * that, an invitation not yet taken up. Invitations to one e-mail may exist in several laboratories.
+ */
 export const findUserByEmail = async (db: Executor, email: string) =>
-  (await db.select().from(users).where(eq(users.email, email)).limit(1))[0];
+  (await db.select().from(users).where(eq(users.email, email)).orderBy(sql`${users.passwordHash} IS NULL`, asc(users.id)).limit(1))[0];
+
+export const findUserInLabByEmail = async (db: Executor, laboratoryId: number, email: string) =>
+  (await db.select().from(users).where(and(eq(users.email, email), eq(users.laboratoryId, laboratoryId))).limit(1))[0];
+
+/** Ends a user's sessions in the session store, all but `keepSid` if given; answers how many ended. */
+export async function endSessions(db: Executor, userId: number, keepSid?: string): Promise<number> {
+  const result = await db.execute(sql`DELETE FROM session WHERE (sess->'passport'->>'user')::int = ${userId}${keepSid ? sql` AND sid <> ${keepSid}` : sql``}`);
+  return result.rowCount ?? 0;
+}
 
 export const findUserById = async (db: Executor, id: number) =>
   (await db.select().from(users).where(eq(users.id, id)).limit(1))[0];

@@ -1,6 +1,6 @@
 import { eq } from 'drizzle-orm';
 import { auditEvents, users } from '../db/schema';
-import { anonymous, Harness, signedIn, startHarness, uniqueEmail } from '../test/harness';
+import { anonymous, freshDatabase, Harness, signedIn, startHarness, uniqueEmail } from '../test/harness';
 import { hashPassword } from './passwords';
 
 let h: Harness;
@@ -85,8 +85,22 @@ describe('sign-in and sessions', () => {
     expect(wrong.body.issues[0].path).toBe('currentPassword');
     const short = await s.agent.put('/api/v1/session/password').set('X-XSRF-TOKEN', s.xsrf).send({ currentPassword: 'first-password-123', newPassword: 'short' }).expect(400);
     expect(short.body.issues[0]).toMatchObject({ path: 'newPassword' });
+    const elsewhere = await signedIn(h, u.email, 'first-password-123');
+    await elsewhere.agent.get('/api/v1/session').expect(200);
     await s.agent.put('/api/v1/session/password').set('X-XSRF-TOKEN', s.xsrf).send({ currentPassword: 'first-password-123', newPassword: 'second-password-456' }).expect(204);
+    // The change ends the user's other sessions, not the one that made it.
+    await elsewhere.agent.get('/api/v1/session').expect(401);
+    await s.agent.get('/api/v1/session').expect(200);
+    const changed = (await auditFor(u.id)).find((e) => e.action === 'password.changed')!;
+    expect(changed.after).toEqual({ otherSessionsEnded: 1 });
     await signedIn(h, u.email, 'second-password-456');
+  });
+
+  it('marks every API answer as not to be cached', async () => {
+    const s = await signedIn(h, 'tech@valeharbor.example');
+    for (const path of ['/api/v1/session', '/api/v1/studies', '/api/v1/no-such-route']) {
+      expect((await s.agent.get(path)).headers['cache-control']).toBe('no-store');
+    }
   });
 
   it('answers 404 with the error shape for an unknown route and never leaks a stack', async () => {
@@ -110,17 +124,40 @@ describe('idle time-out', () => {
   });
 });
 
-describe('rate limit', () => {
-  let limited: Harness;
-  beforeAll(async () => { limited = await startHarness({ SIGN_IN_RATE_LIMIT: '3' }); });
-  afterAll(() => limited.close());
+describe('sign-in limits', () => {
+  const opened: { h: Harness; drop: () => Promise<void> }[] = [];
+  afterAll(async () => { for (const o of opened) { await o.h.close(); await o.drop(); } });
+  /** An app on a database of its own: the counts are per address, and every test here comes from 127.0.0.1. */
+  async function limitedApp(env: Record<string, string>, url?: string) {
+    const db = url ? { url, drop: async () => {} } : await freshDatabase('limits');
+    const app = await startHarness(env, { databaseUrl: db.url });
+    opened.push({ h: app, drop: db.drop });
+    return app;
+  }
+  const attempt = (s: Awaited<ReturnType<typeof anonymous>>, email: string, password: string) =>
+    s.agent.post('/api/v1/session').set('X-XSRF-TOKEN', s.xsrf).send({ email, password });
 
-  it('limits sign-in attempts per address and audits the refusal', async () => {
-    const s = await anonymous(limited);
-    for (let i = 0; i < 3; i++) await s.agent.post('/api/v1/session').set('X-XSRF-TOKEN', s.xsrf).send({ email: 'nobody@valeharbor.example', password: 'x' }).expect(401);
-    const res = await s.agent.post('/api/v1/session').set('X-XSRF-TOKEN', s.xsrf).send({ email: 'nobody@valeharbor.example', password: 'x' }).expect(429);
-    expect(res.body.error).toMatch(/Too many sign-in attempts/);
-    const events = await limited.database.db.select().from(auditEvents).where(eq(auditEvents.action, 'sign-in.rate-limited'));
-    expect(events.length).toBeGreaterThan(0);
+  it('counts failures per address, never successes, in PostgreSQL shared by every API process, and audits the refusal', async () => {
+    const first = await limitedApp({ SIGN_IN_RATE_LIMIT: '3' });
+    // A busy laboratory behind one address signs in again and again.
+    for (let i = 0; i < 6; i++) await signedIn(first, 'tech@valeharbor.example');
+    const s = await anonymous(first);
+    for (const who of ['a', 'b', 'c']) await attempt(s, `nobody.${who}@valeharbor.example`, 'wrong-password-x').expect(401);
+    const refused = await attempt(s, 'director@valeharbor.example', 'parallax-demo').expect(429);
+    expect(refused.body.error).toMatch(/^Too many failed sign-ins from this address; wait 1[45] minutes and try again$/);
+    const events = await first.database.db.select().from(auditEvents).where(eq(auditEvents.action, 'sign-in.rate-limited'));
+    expect(events.length).toBe(1);
+    // A second API process on the same database sees the same counts.
+    const second = await limitedApp({ SIGN_IN_RATE_LIMIT: '3' }, (first.database.pool as unknown as { options: { connectionString: string } }).options.connectionString);
+    await attempt(await anonymous(second), 'director@valeharbor.example', 'parallax-demo').expect(429);
+  });
+
+  it('counts failures per account, so one e-mail is refused while others from the address sign in', async () => {
+    const app = await limitedApp({ SIGN_IN_RATE_LIMIT: '1000' });
+    const s = await anonymous(app);
+    for (let i = 0; i < 10; i++) await attempt(s, 'guessed@valeharbor.example', `wrong-password-${i}`).expect(401);
+    const refused = await attempt(s, 'guessed@valeharbor.example', 'wrong-password-x').expect(429);
+    expect(refused.body.error).toMatch(/^Too many failed sign-ins for this account; wait/);
+    await signedIn(app, 'tech@valeharbor.example');
   });
 });

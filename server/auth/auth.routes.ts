@@ -1,8 +1,8 @@
 import type { Request, Response } from 'express';
 import type { PassportStatic } from 'passport';
-import { rateLimit } from 'express-rate-limit';
 import { ChangePasswordBody, SetPasswordBody, SignInBody, TokenParams } from '../../shared/schemas';
 import { recordAudit } from '../audit/audit';
+import { SignInLimits } from './sign-in-limits';
 import type { AppContext } from '../context';
 import { AppError } from '../http/app-error';
 import { parseRequest } from '../http/parse-request';
@@ -24,17 +24,7 @@ const authenticate = (passport: PassportStatic, req: Request, res: Response) =>
   );
 
 export function authRoutes(ctx: AppContext, passport: PassportStatic): RouteSpec[] {
-  const limiter = rateLimit({
-    windowMs: 15 * 60_000,
-    limit: ctx.config.signInRateLimit,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    handler: (req, _res, next) => {
-      ctx.db
-        .transaction((tx) => recordAudit(tx, { id: null, name: null, laboratoryId: null }, { action: 'sign-in.rate-limited', entity: 'session', after: { address: req.ip } }))
-        .then(() => next(new AppError('too_many', 'Too many sign-in attempts from this address; wait 15 minutes and try again')), next);
-    },
-  });
+  const limits = new SignInLimits(ctx.pool, ctx.db, ctx.config.signInRateLimit);
   return [
     {
       method: 'get', path: '/session', access: 'public',
@@ -44,10 +34,17 @@ export function authRoutes(ctx: AppContext, passport: PassportStatic): RouteSpec
       },
     },
     {
-      method: 'post', path: '/session', access: 'public', before: [limiter],
+      method: 'post', path: '/session', access: 'public',
       handler: async (req, res) => {
         req.body = parseRequest(SignInBody, req.body, 'body');
-        const user = await authenticate(passport, req, res);
+        const { email } = req.body as SignInBody;
+        const address = req.ip ?? '';
+        await limits.assertAllowed(address, email);
+        const user = await authenticate(passport, req, res).catch(async (err) => {
+          if (err instanceof AppError && err.code === 'unauthenticated') await limits.failed(address, email);
+          throw err;
+        });
+        await limits.succeeded(email);
         await logIn(req, user); // passport regenerates the session id here
         res.json(await describeSession(ctx.db, user));
       },
@@ -65,7 +62,7 @@ export function authRoutes(ctx: AppContext, passport: PassportStatic): RouteSpec
       method: 'put', path: '/session/password', access: 'signed-in',
       handler: async (req, res) => {
         const body = parseRequest(ChangePasswordBody, req.body, 'body');
-        await changeOwnPassword(ctx.db, req.user!, body, req.ip ?? '');
+        await changeOwnPassword(ctx.db, req.user!, body, req.ip ?? '', req.sessionID);
         res.status(204).end();
       },
     },

@@ -2,7 +2,7 @@ import type { ChangePasswordBody, Role, SessionUser } from '../../shared/schemas
 import { recordAudit } from '../audit/audit';
 import type { Database, Executor } from '../db/client';
 import { AppError } from '../http/app-error';
-import { findLaboratory, findUserByEmail, findUserById, updateUser } from './auth.repository';
+import { endSessions, findLaboratory, findUserByEmail, findUserById, updateUser } from './auth.repository';
 import { afterFailure, isLocked } from './lockout';
 import { checkPassword, hashPassword } from './passwords';
 import { actorOf, SignedInUser } from './session-user';
@@ -65,7 +65,8 @@ export async function describeSession(db: Database, user: SignedInUser): Promise
   return { id: user.id, name: user.name, email: user.email, roles: user.roles, laboratory: { id: lab.id, name: lab.name, timeZone: lab.timeZone } };
 }
 
-export async function changeOwnPassword(db: Database, me: SignedInUser, body: ChangePasswordBody, address: string): Promise<void> {
+/** Changes the signed-in user's password and ends their other sessions (a stolen session dies with the old password). */
+export async function changeOwnPassword(db: Database, me: SignedInUser, body: ChangePasswordBody, address: string, currentSid: string): Promise<void> {
   await db.transaction(async (tx) => {
     const user = await findUserById(tx, me.id);
     if (!(await checkPassword(body.currentPassword, user.passwordHash))) {
@@ -74,7 +75,8 @@ export async function changeOwnPassword(db: Database, me: SignedInUser, body: Ch
     }
     if (body.currentPassword === body.newPassword) throw new AppError('invalid_request', 'Choose a new password', [{ path: 'newPassword', message: 'The new password must differ from the current one' }]);
     await updateUser(tx, me.id, { passwordHash: await hashPassword(body.newPassword), failedSignIns: 0 });
-    await recordAudit(tx, actorOf(me), { action: 'password.changed', entity: 'user', entityId: me.id });
+    const ended = await endSessions(tx, me.id, currentSid);
+    await recordAudit(tx, actorOf(me), { action: 'password.changed', entity: 'user', entityId: me.id, after: { otherSessionsEnded: ended } });
     return 'ok';
   }).then((r) => {
     if (r === 'wrong') throw new AppError('invalid_request', 'The current password is wrong', [{ path: 'currentPassword', message: 'The current password is wrong' }]);

@@ -1,5 +1,5 @@
 import { randomBytes } from 'node:crypto';
-import { and, eq, gt, isNull } from 'drizzle-orm';
+import { and, eq, gt, isNotNull, isNull, ne } from 'drizzle-orm';
 import type { PasswordLinkInfo } from '../../shared/schemas';
 import { recordAudit } from '../audit/audit';
 import { sha256Hex } from '../audit/canonical-json';
@@ -7,7 +7,7 @@ import type { Database, Executor } from '../db/client';
 import { passwordLinks, users } from '../db/schema';
 import { AppError } from '../http/app-error';
 import { queueMail } from '../mail/outbox';
-import { updateUser } from './auth.repository';
+import { endSessions, updateUser } from './auth.repository';
 import { hashPassword } from './passwords';
 
 export const LINK_HOURS = 72;
@@ -58,9 +58,13 @@ export async function usePasswordLink(db: Database, token: string, password: str
   await db.transaction(async (tx) => {
     const { link, user } = await findValidLink(tx, token);
     await tx.update(passwordLinks).set({ usedAt: new Date() }).where(eq(passwordLinks.id, link.id));
+    const [taken] = await tx.select({ id: users.id }).from(users).where(and(eq(users.email, user.email), ne(users.id, user.id), isNotNull(users.passwordHash))).limit(1);
+    // Only the owner of the address (who holds the link) learns that it already has an account elsewhere.
+    if (taken) throw new AppError('conflict', 'This e-mail address already has a Parallax account in another laboratory; ask the administrator who invited you to use another address');
     await updateUser(tx, user.id, { passwordHash: await hashPassword(password), failedSignIns: 0, lockedUntil: null });
+    const ended = await endSessions(tx, user.id);
     await recordAudit(tx, { id: user.id, name: user.name, laboratoryId: user.laboratoryId }, {
-      action: 'password.set-by-link', entity: 'user', entityId: user.id,
+      action: 'password.set-by-link', entity: 'user', entityId: user.id, after: { sessionsEnded: ended },
     });
   });
 }

@@ -102,7 +102,7 @@ export async function seedDemoStudies(db: Database, labId: number, publicUrl: st
   const jobs = new AnalysisJobs(db, '');
   const [director] = await db.select().from(users).where(eq(users.email, 'director@valeharbor.example'));
   // No SMTP here: the mail the sign-off steps queue waits in the outbox until the app delivers it.
-  const ctx: AppContext = { db, jobs, mail: new MailService(db, undefined, ''), config: { publicUrl } as AppContext['config'] };
+  const ctx: AppContext = { db, pool: null as never /* the seed signs nobody in, so no sign-in counts */, jobs, mail: new MailService(db, undefined, ''), config: { publicUrl } as AppContext['config'] };
   const finish = async (id: number, how: Finish) => {
     if (how === 'draft') return;
     await submitStudy(ctx, me, id);
