@@ -1,7 +1,7 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable } from 'rxjs';
-import type { AuditQuery, HistoryEvent, HistoryPage } from '../../../../shared/schemas';
+import type { AuditQuery, ChainCheckReport, HistoryEvent, HistoryPage } from '../../../../shared/schemas';
 import { studyUrl } from './archive-api';
 import { httpParams } from './query-params';
 
@@ -19,5 +19,10 @@ export class HistoryApi {
 
   laboratory(filter: HistoryFilter): Observable<HistoryPage> {
     return this.http.get<HistoryPage>('/api/v1/audit', { params: httpParams(filter) });
+  }
+
+  /** Re-checks the laboratory's history chain and the chain of events with no laboratory (recorded; changes nothing). */
+  checkChains(): Observable<ChainCheckReport> {
+    return this.http.post<ChainCheckReport>('/api/v1/audit/chain-check', {});
   }
 }

@@ -1,5 +1,5 @@
 import type { IntegrityReport, ReproduceReport } from '../../../../shared/schemas';
-import { engineLine, integrityOutcome, reproduceOutcome, showValue } from './recheck-words';
+import { chainOutcome, engineLine, integrityOutcome, reproduceOutcome, showValue } from './recheck-words';
 
 const integrity = (passes: boolean[]): IntegrityReport => ({
   studyId: 1, passed: passes.every(Boolean), checkedAt: '2026-03-01T10:00:00Z',
@@ -9,6 +9,18 @@ const integrity = (passes: boolean[]): IntegrityReport => ({
 const reproduce = (over: Partial<ReproduceReport> = {}): ReproduceReport => ({
   studyId: 1, analysisId: 2, identical: true, storedEngine: 'parallax-stats 1.0.0', currentEngine: 'parallax-stats 1.0.0', sameEngine: true,
   fieldsCompared: 1234, differences: [], summary: '', ...over,
+});
+
+describe('chainOutcome', () => {
+  const chains = (lab: boolean, system: boolean) => ({
+    passed: lab && system, checkedAt: '2026-03-01T10:00:00Z',
+    checks: [{ name: 'Laboratory history', passed: lab, detail: '' }, { name: 'History without a laboratory', passed: system, detail: '' }],
+  });
+  it('says both chains are intact only when both passed', () => {
+    expect(chainOutcome(chains(true, true))).toMatchObject({ passed: true, headline: 'Both history chains are intact: no event was changed, removed or inserted.' });
+    expect(chainOutcome(chains(false, true))).toMatchObject({ passed: false, headline: 'One history chain is broken: the history was changed outside Parallax.' });
+    expect(chainOutcome(chains(false, false)).headline).toBe('Both history chains are broken: the history was changed outside Parallax.');
+  });
 });
 
 describe('integrityOutcome', () => {

@@ -1,4 +1,4 @@
-import type { IntegrityReport, ReproduceReport } from '../../../../shared/schemas';
+import type { ChainCheckReport, IntegrityReport, ReproduceReport } from '../../../../shared/schemas';
 
 /** One line a re-check result opens with: an icon and words that say passed or failed on their own. */
 export interface Outcome {
@@ -18,6 +18,14 @@ export function integrityOutcome(report: IntegrityReport): Outcome {
   return report.passed && failed === 0
     ? outcome(true, `All ${of} passed: nothing changed since signing.`)
     : outcome(false, `${failed || 'Some'} of ${of} failed: the stored record no longer matches what was signed.`);
+}
+
+/** The history re-check: the laboratory's chain and the chain of events with no laboratory. */
+export function chainOutcome(report: ChainCheckReport): Outcome {
+  const failed = report.checks.filter((c) => !c.passed).length;
+  return report.passed && failed === 0
+    ? outcome(true, 'Both history chains are intact: no event was changed, removed or inserted.')
+    : outcome(false, `${failed === 1 ? 'One history chain is' : 'Both history chains are'} broken: the history was changed outside Parallax.`);
 }
 
 export function reproduceOutcome(report: ReproduceReport): Outcome {

@@ -17,6 +17,7 @@ import { syncForm } from '../form-sync';
 import { ACTION_CHOICES } from '../history-actions';
 import type { HistoryFilter } from '../history-api';
 import { HistoryTimeline } from '../history-timeline/history-timeline';
+import { HistoryRecheck } from './history-recheck';
 import { withChange } from '../query-params';
 import { routeQuery } from '../route-query';
 import { HISTORY_KEYS, HISTORY_PAGE_SIZE, historyFilterFrom } from './history-query';
@@ -33,7 +34,7 @@ const BLANK = { userId: '', action: '', studyId: '', from: '', to: '' };
   providers: [LabHistoryStore],
   imports: [
     ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule, MatIconModule, MatPaginatorModule,
-    MatProgressBarModule, ErrorBanner, HistoryTimeline,
+    MatProgressBarModule, ErrorBanner, HistoryTimeline, HistoryRecheck,
   ],
 })
 export class LabHistoryPage {
@@ -65,6 +66,11 @@ export class LabHistoryPage {
 
   protected paged(event: PageEvent): void {
     this.go({ ...this.filter(), page: event.pageIndex + 1, pageSize: event.pageSize === HISTORY_PAGE_SIZE ? undefined : event.pageSize });
+  }
+
+  /** Reads the page again (a re-check added an event to the history). */
+  protected reread(): void {
+    this.store.search({ pageSize: HISTORY_PAGE_SIZE, ...this.filter() });
   }
 
   protected clear(): void {

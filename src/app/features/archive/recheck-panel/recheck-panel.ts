@@ -7,6 +7,7 @@ import { ErrorBanner } from '../../../ui/error-banner';
 import { ArchiveApi } from '../archive-api';
 import { ZonedPipe, labZone } from '../lab-time';
 import { engineLine, integrityOutcome, reproduceOutcome, showValue } from '../recheck-words';
+import { CheckList } from './check-list';
 import { RecheckOutcome } from './recheck-outcome';
 import { RecheckRun } from './recheck-run';
 
@@ -19,7 +20,7 @@ import { RecheckRun } from './recheck-run';
   templateUrl: './recheck-panel.html',
   styleUrl: './recheck-panel.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [MatButtonModule, MatIconModule, MatProgressBarModule, MatTableModule, ErrorBanner, ZonedPipe, RecheckOutcome],
+  imports: [MatButtonModule, MatIconModule, MatProgressBarModule, MatTableModule, ErrorBanner, ZonedPipe, RecheckOutcome, CheckList],
 })
 export class RecheckPanel {
   readonly studyId = input.required<number>();
