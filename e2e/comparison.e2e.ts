@@ -59,10 +59,10 @@ test('a technologist compares two chemistry lines: pastes 40 pairs, fixes a bad 
   const bad = cell(page, badRow - 1, 'candidate');
   await expect(bad).toHaveClass(/cell-problem/);
   await expect(page.locator('[role="gridcell"].cell-problem')).toHaveCount(1);
-  await expect(page.getByTestId('problems')).toContainText(`row ${badRow}: candidate result is not a number`);
+  await expect(page.getByTestId('problems')).toContainText(`row ${badRow}: candidate result "5,x" is not a number`);
   await expect(page.getByTestId('save-state')).toContainText(`Not saved: row ${badRow}: candidate result`);
   await bad.hover();
-  await expect(page.locator('.ag-tooltip')).toContainText('Candidate result is not a number');
+  await expect(page.locator('.ag-tooltip')).toContainText('Candidate result "5,x" is not a number');
   await closeNotice(page);
   await page.screenshot({ path: path.join(SCREENSHOTS, 'specimens-problem.png') });
 

@@ -19,9 +19,12 @@ export const analysedFields = (r: StoredRow) => ({
 
 export interface AnalysisInput { kind: string; settings: unknown; rows: ReturnType<typeof analysedFields>[] }
 
-/** Settings that are words for people, not inputs of the engine: changing them leaves the findings current. */
+/**
+ * Settings that are not inputs of the engine: words for people, and how results are read on entry
+ * (decimalMark: the rows it produced are hashed themselves). Changing them leaves the findings current.
+ */
 const RECORD_ONLY = ['allowableBiasSource', 'comparativeLot', 'candidateLot', 'reagentLot', 'runsFrom', 'runsTo', 'plannedSpecimens',
-  'outlierRule', 'acceptanceRule', 'populationDescription', 'statedSource'];
+  'outlierRule', 'acceptanceRule', 'populationDescription', 'statedSource', 'decimalMark'];
 
 export const analysedSettings = (settings: unknown): Record<string, unknown> =>
   Object.fromEntries(Object.entries((settings ?? {}) as Record<string, unknown>).filter(([k]) => !RECORD_ONLY.includes(k)));

@@ -1,5 +1,6 @@
 import { ComparisonRowInput, IntervalRowInput, MAX_ROWS } from '../../shared/schemas';
 import type { ApiIssue } from '../../shared/schemas';
+import type { DecimalMark } from '../../shared/schemas/result-text';
 import { parseResult } from './parse-result';
 
 export interface CleanRow {
@@ -11,10 +12,13 @@ export interface CleanRow {
 const RESULT_NAMES: Record<string, string> = { comparative: 'comparative result', candidate: 'candidate result', value: 'value' };
 
 /**
- * Checks every row and names each problem by its row (1-based, as the grid shows it) and field.
+ * Checks every row and names each problem by its row (1-based, as the grid shows it) and field, e.g.
+ * `row 3: candidate result "1,234" is unclear: …`. Results are read with the study's decimal mark.
  * Nothing is saved unless every row is clean.
  */
-export function validateRows(kind: string, raw: Record<string, unknown>[], canBeNegative: boolean): { rows: CleanRow[]; issues: ApiIssue[] } {
+export function validateRows(
+  kind: string, raw: Record<string, unknown>[], canBeNegative: boolean, decimalMark: DecimalMark = 'auto',
+): { rows: CleanRow[]; issues: ApiIssue[] } {
   const issues: ApiIssue[] = [];
   const rows: CleanRow[] = [];
   const comparison = kind === 'method-comparison';
@@ -34,7 +38,7 @@ export function validateRows(kind: string, raw: Record<string, unknown>[], canBe
       excluded: Boolean(r.excluded), exclusionReason: ((r.exclusionReason as string | null) ?? '').trim() || null, note: String(r.note ?? ''),
     };
     for (const field of comparison ? (['comparative', 'candidate'] as const) : (['value'] as const)) {
-      const parsed = parseResult(r[field]);
+      const parsed = parseResult(r[field], decimalMark);
       if ('error' in parsed) issues.push({ path: `rows.${i}.${field}`, message: `${where}: ${RESULT_NAMES[field]} ${parsed.error}` });
       else if (parsed.value !== null && parsed.value < 0 && !canBeNegative) {
         issues.push({ path: `rows.${i}.${field}`, message: `${where}: ${RESULT_NAMES[field]} is negative, which this analyte cannot be` });

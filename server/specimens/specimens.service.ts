@@ -1,5 +1,5 @@
 import { eq } from 'drizzle-orm';
-import type { SpecimenRow, SpecimenRows } from '../../shared/schemas';
+import type { SpecimenRow, SpecimenRows, StudySettings } from '../../shared/schemas';
 import { recordAudit } from '../audit/audit';
 import { actorOf, SignedInUser } from '../auth/session-user';
 import type { Database, Tx } from '../db/client';
@@ -28,10 +28,14 @@ export async function getRows(db: Database, me: SignedInUser, studyId: number): 
   return { version: study.version, rows: (await loadRows(db, study.id)).map(rowView) };
 }
 
-/** Validates raw rows for a study; a bad row answers 400 naming it, before anything is written. */
+/**
+ * Validates raw rows for a study, reading results with the study's decimal mark (settings.decimalMark);
+ * a bad row answers 400 naming it, before anything is written.
+ */
 export async function cleanRowsFor(tx: Tx, study: StudyRow, raw: Record<string, unknown>[]): Promise<CleanRow[]> {
   const [analyte] = await tx.select().from(analytes).where(eq(analytes.id, study.analyteId));
-  const { rows, issues } = validateRows(study.kind, raw, analyte.canBeNegative);
+  const decimalMark = (study.settings as Partial<StudySettings> | null)?.decimalMark ?? 'auto';
+  const { rows, issues } = validateRows(study.kind, raw, analyte.canBeNegative, decimalMark);
   if (issues.length) {
     throw new AppError('invalid_request', issues.length === 1 ? issues[0].message : `${issues[0].message} (and ${issues.length - 1} more problems)`, issues);
   }

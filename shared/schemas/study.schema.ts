@@ -1,4 +1,5 @@
 import * as z from 'zod';
+import { DECIMAL_MARKS } from './result-text';
 
 export const STUDY_KINDS = ['method-comparison', 'interval-establish', 'interval-verify'] as const;
 export const StudyKind = z.enum(STUDY_KINDS);
@@ -29,6 +30,8 @@ export const StudySettings = z.object({
   seed: z.string().trim().min(1, 'Give a seed').max(64).default('parallax'),
   confidenceLevel: z.number().min(0.5, 'Confidence level must be at least 0.5').max(0.999, 'Confidence level must be below 1').default(0.95),
   interval: z.enum(['percentile', 'bca']).default('percentile'),
+  // entering and importing results: which mark is the decimal ('auto' refuses unclear values such as "1,234")
+  decimalMark: z.enum(DECIMAL_MARKS, { error: 'Choose how a decimal mark is read: detect, point or comma' }).default('auto'),
   // method comparison
   differenceType: z.enum(['absolute', 'percent-mean', 'percent-x']).default('absolute'),
   regression: z.enum(['passing-bablok', 'deming', 'weighted-deming', 'ols']).default('passing-bablok'),

@@ -66,6 +66,21 @@ describe('SetupForm', () => {
     expect((fixture.nativeElement as HTMLElement).textContent).toContain('λ = σ²(x error) / σ²(y error)');
   });
 
+  it('offers the decimal mark of entered and imported results, detected by default, and saves the choice', async () => {
+    const { loader } = await render(STUDY);
+    const mark = await loader.getHarness(select('setup-decimal-mark'));
+    expect(await mark.getValueText()).toBe('Detect (refuse unclear values)');
+    await mark.open();
+    expect(await Promise.all((await mark.getOptions()).map((o) => o.getText()))).toEqual([
+      'Detect (refuse unclear values)', 'Point (comma separates thousands)', 'Comma (point separates thousands)',
+    ]);
+    await mark.clickOptions({ text: 'Comma (point separates thousands)' });
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Save setup' }))).click();
+    const patch = httpController().expectOne({ method: 'PATCH', url: '/api/v1/studies/8' });
+    expect(patch.request.body.settings.decimalMark).toBe('comma');
+    patch.flush({ ...STUDY, version: 7, settings: { ...STUDY.settings, decimalMark: 'comma' } });
+  });
+
   it('saves with the version it was loaded at, and on a conflict offers to reload instead of overwriting', async () => {
     const { loader, fixture } = await render(STUDY);
     await (await loader.getHarness(input('setup-title'))).setValue('Glucose, line 2 (revised)');

@@ -10,6 +10,7 @@ import { NgComponentOutlet } from '@angular/common';
 import { catchError, of } from 'rxjs';
 import type { Study } from '../../../../../shared/schemas';
 import { CreateStudyBody, STUDY_KIND_LABELS, UpdateStudyBody } from '../../../../../shared/schemas';
+import type { DecimalMark } from '../../../../../shared/schemas/result-text';
 import { ApiError } from '../../../core/http/api-error';
 import { showApiError, showIssues } from '../../../core/http/form-errors';
 import { Notices } from '../../../core/notify/notices';
@@ -24,6 +25,13 @@ import { STUDY_CONFLICT_TEXT, StudyStore } from '../study/study-store';
 import { INTERVAL_LABELS } from '../study-text';
 import { buildSetupForm, readSetup } from './setup-form-group';
 import { createBody, randomSeed, settingsFromAnalyte, setupValues, updateBody } from './setup-model';
+
+/** The choices of settings.decimalMark, in words: how a comma and a point in a result are read. */
+const DECIMAL_MARK_LABELS: Record<DecimalMark, string> = {
+  auto: 'Detect (refuse unclear values)',
+  point: 'Point (comma separates thousands)',
+  comma: 'Comma (point separates thousands)',
+};
 
 /**
  * The Setup form of a study (or of a new one when `study` is null): what is compared, the goals,
@@ -59,6 +67,7 @@ export class SetupForm {
   protected readonly conflictText = STUDY_CONFLICT_TEXT;
   protected readonly kinds = SUPPORTED_KINDS.map((kind) => ({ kind, label: STUDY_KIND_LABELS[kind] }));
   protected readonly intervals = Object.entries(INTERVAL_LABELS);
+  protected readonly decimalMarks = Object.entries(DECIMAL_MARK_LABELS);
   protected readonly levels = [0.9, 0.95, 0.99];
   private readonly kind = toSignal(this.form.controls.kind.valueChanges, { initialValue: this.form.controls.kind.value });
   protected readonly kindFields = computed(() => kindView(this.kind()).setupFields);

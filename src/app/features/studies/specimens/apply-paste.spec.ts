@@ -16,6 +16,13 @@ describe('applyPaste', () => {
     expect(before[0]['label']).toBe('');
   });
 
+  it('reads results with the study\'s decimal mark, and leaves an unclear one as pasted so it is marked', () => {
+    const text = 'S1\t1,234\t1.234,5\n';
+    expect(applyPaste(rows(1), layout, { rowIndex: 0, field: 'label' }, text).rows[0]).toMatchObject({ comparative: '1,234', candidate: '1.234,5' });
+    expect(applyPaste(rows(1), layout, { rowIndex: 0, field: 'label' }, text, 'comma').rows[0]).toMatchObject({ comparative: '1,234', candidate: '1234,5' });
+    expect(applyPaste(rows(1), layout, { rowIndex: 0, field: 'label' }, 'S1\t1,234\t5.20', 'point').rows[0]).toMatchObject({ comparative: '1234', candidate: '5.20' });
+  });
+
   it('skips a header line and says so', () => {
     const out = applyPaste(rows(0), layout, { rowIndex: 0, field: 'label' }, 'Specimen\tOld\tNew\r\nA\t3.1\t3.3\r\n');
     expect(out.skippedHeader).toBe(true);

@@ -1,3 +1,4 @@
+import type { DecimalMark } from '../../../../../shared/schemas/result-text';
 import { hasHeader, splitClipboard, parseFlag } from './paste-parser';
 import { normaliseDecimal } from './result-number';
 import { GridRow, SpecimenField, SpecimenLayout, blankRow } from './specimen-layout';
@@ -18,18 +19,21 @@ export interface PasteOutcome {
   ignoredCells: number;
 }
 
-function cellValue(field: SpecimenField, text: string): string | boolean {
+function cellValue(field: SpecimenField, text: string, mark: DecimalMark): string | boolean {
   if (field.kind === 'flag') return parseFlag(text);
-  if (field.kind === 'result') return normaliseDecimal(text);
+  if (field.kind === 'result') return normaliseDecimal(text, mark);
   return text.trim();
 }
 
 /**
  * Writes a block copied from a spreadsheet into the rows, starting at the target cell and going right
  * and down; past the last row it adds rows. A header line is detected and skipped (see hasHeader);
- * a short (ragged) line fills only its own cells. The input rows are not changed.
+ * a short (ragged) line fills only its own cells. Results are read with the study's decimal mark
+ * (normaliseDecimal); one that does not read stays as pasted, to be marked. The input rows are not changed.
  */
-export function applyPaste(rows: readonly GridRow[], layout: SpecimenLayout, target: PasteTarget, text: string): PasteOutcome {
+export function applyPaste(
+  rows: readonly GridRow[], layout: SpecimenLayout, target: PasteTarget, text: string, mark: DecimalMark = 'auto',
+): PasteOutcome {
   const start = Math.max(0, layout.fields.findIndex((f) => f.field === target.field));
   let lines = splitClipboard(text);
   const width = Math.max(0, ...lines.map((l) => l.length));
@@ -48,7 +52,7 @@ export function applyPaste(rows: readonly GridRow[], layout: SpecimenLayout, tar
     const row = { ...out[index] };
     cells.forEach((text, k) => {
       const field = layout.fields[start + k];
-      if (field) row[field.field] = cellValue(field, text);
+      if (field) row[field.field] = cellValue(field, text, mark);
       else ignoredCells++;
     });
     out[index] = row;

@@ -50,6 +50,10 @@ describe('hasHeader', () => {
     expect(hasHeader([['S1', '5,2', '5,4'], ['S2', '6,1', '6,0']], [1, 2])).toBe(false);
   });
 
+  it('sees data when the first line has numbers the study cannot read unambiguously ("1,234")', () => {
+    expect(hasHeader([['S1', '1,234', '1.234,5'], ['S2', '6.1', '6.0']], [1, 2])).toBe(false);
+  });
+
   it('does not take a first data line with one typing error for a header', () => {
     expect(hasHeader([['S1', '5,x', '5.4'], ['S2', '6.1', '6.0']], [1, 2])).toBe(false);
   });

@@ -3,8 +3,8 @@ import { COMPARISON_LAYOUT, GridRow, blankRow } from './specimen-layout';
 
 const layout = COMPARISON_LAYOUT;
 const row = (values: Partial<Record<string, string | boolean>>): GridRow => ({ ...blankRow(layout), ...values });
-const allowNegative = { canBeNegative: true };
-const noNegative = { canBeNegative: false };
+const allowNegative = { canBeNegative: true, decimalMark: 'auto' as const };
+const noNegative = { canBeNegative: false, decimalMark: 'auto' as const };
 
 describe('rowProblems', () => {
   it('finds nothing wrong with a complete row in either decimal style', () => {
@@ -14,7 +14,26 @@ describe('rowProblems', () => {
   it('names the row (counted from 1) and the field of a result that is not a number', () => {
     const problems = rowProblems(row({ comparative: '5.1', candidate: '5,x' }), 13, layout, noNegative);
     expect(problems).toEqual([
-      { rowIndex: 13, field: 'candidate', message: 'row 14: candidate result is not a number', text: 'Candidate result is not a number' },
+      { rowIndex: 13, field: 'candidate', message: 'row 14: candidate result "5,x" is not a number', text: 'Candidate result "5,x" is not a number' },
+    ]);
+  });
+
+  it('marks the cells the server refuses, in its words: "1,234" unless the study says which mark is the decimal', () => {
+    const r = row({ comparative: '1,234', candidate: '1.5' });
+    expect(rowProblems(r, 2, layout, noNegative).map((p) => p.message)).toEqual([
+      'row 3: comparative result "1,234" is unclear: it may be 1.234 (a decimal comma) or 1234 (a comma separating thousands); '
+        + "write 1.234 or 1234, or choose the decimal mark in the study's Setup",
+    ]);
+    expect(rowProblems(r, 2, layout, { canBeNegative: false, decimalMark: 'point' })).toEqual([]);
+    expect(rowProblems(row({ comparative: '1,234', candidate: '1,5' }), 2, layout, { canBeNegative: false, decimalMark: 'comma' })).toEqual([]);
+    expect(rowProblems(r, 2, layout, { canBeNegative: false, decimalMark: 'comma' }).map((p) => p.field)).toEqual(['candidate']);
+  });
+
+  it('marks values a number cannot keep exactly', () => {
+    const r = row({ comparative: '1e309', candidate: '1.00000000000000000001' });
+    expect(rowProblems(r, 0, layout, noNegative).map((p) => p.message)).toEqual([
+      'row 1: comparative result "1e309" is too large to be kept (the largest number is about 1.8e308)',
+      'row 1: candidate result "1.00000000000000000001" has 21 significant digits, more than a number keeps exactly (at most 15 always are), so round it',
     ]);
   });
 
@@ -46,7 +65,7 @@ describe('allProblems and cellProblem', () => {
   it('lists the problems by row and finds the one of a cell', () => {
     const rows = [row({ comparative: 'x', candidate: '1' }), row({ comparative: '1', candidate: '1' }), row({ comparative: '2', candidate: '' })];
     const problems = allProblems(rows, layout, noNegative);
-    expect(problems.map((p) => p.message)).toEqual(['row 1: comparative result is not a number', 'row 3: candidate result is missing']);
+    expect(problems.map((p) => p.message)).toEqual(['row 1: comparative result "x" is not a number', 'row 3: candidate result is missing']);
     expect(cellProblem(problems, 2, 'candidate')?.text).toBe('Candidate result is missing');
     expect(cellProblem(problems, 1, 'candidate')).toBeUndefined();
   });

@@ -1,8 +1,11 @@
+import { signal } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { Subject, of } from 'rxjs';
-import type { SpecimenRow, SpecimenRows } from '../../../../../shared/schemas';
+import type { SpecimenRow, SpecimenRows, Study } from '../../../../../shared/schemas';
+import type { DecimalMark } from '../../../../../shared/schemas/result-text';
 import { ApiError } from '../../../core/http/api-error';
 import { PutSpecimens, SpecimensApi } from '../api/specimens-api';
+import { StudyStore } from '../study/study-store';
 import { CONFLICT_TEXT } from './save-status';
 import { AUTOSAVE_DEBOUNCE_MS, SpecimensStore } from './specimens-store';
 
@@ -139,5 +142,52 @@ describe('SpecimensStore autosave', () => {
     store.exclude(1, 'clotted specimen');
     expect(puts).toHaveLength(1);
     expect(puts[0].body.rows[1]).toMatchObject({ excluded: true, exclusionReason: 'clotted specimen' });
+  });
+});
+
+describe("SpecimensStore and the study's decimal mark", () => {
+  let puts: PutSpecimens[];
+  let store: SpecimensStore;
+  const mark = signal<DecimalMark>('comma');
+
+  beforeEach(() => {
+    jest.useFakeTimers();
+    puts = [];
+    mark.set('comma');
+    const api: Partial<SpecimensApi> = {
+      get: () => of({ version: 3, rows: [stored('S1', '1.234', '5.20'), stored('S2', '1234.5', '7')] }),
+      put: (_id: number, body: PutSpecimens) => {
+        puts.push(body);
+        return new Subject<SpecimenRows>();
+      },
+    };
+    const study = { study: () => ({ id: 12, settings: { decimalMark: mark() } }) as unknown as Study, versionMoves: new Subject(), followVersion: () => undefined };
+    TestBed.configureTestingModule({ providers: [SpecimensStore, { provide: SpecimensApi, useValue: api }, { provide: StudyStore, useValue: study }] });
+    store = TestBed.inject(SpecimensStore);
+    TestBed.tick();
+    store.load(12).subscribe();
+  });
+
+  afterEach(() => jest.useRealTimers());
+
+  const cells = () => store.rows().map((r) => [r['comparative'], r['candidate']]);
+
+  it('shows stored results written with a comma, and sends them so, so the server reads the same numbers', () => {
+    expect(store.decimalMark()).toBe('comma');
+    expect(cells()).toEqual([['1,234', '5,20'], ['1234,5', '7']]);
+    store.setCell(store.rows()[1].uid, 'candidate', '1.234,50');
+    expect(store.rows()[1]['candidate']).toBe('1234,50');
+    jest.advanceTimersByTime(AUTOSAVE_DEBOUNCE_MS);
+    expect(puts[0].rows.map((r) => [r['comparative'], r['candidate']])).toEqual([['1,234', '5,20'], ['1234,5', '1234,50']]);
+  });
+
+  it('rewrites the rows when the mark changes, keeping every number and saving nothing for it', () => {
+    mark.set('auto');
+    TestBed.tick();
+    expect(store.decimalMark()).toBe('auto');
+    expect(cells()).toEqual([['1.234', '5.20'], ['1234.5', '7']]);
+    expect(store.status()).toBe('saved');
+    jest.advanceTimersByTime(AUTOSAVE_DEBOUNCE_MS);
+    expect(puts).toHaveLength(0);
   });
 });

@@ -1,12 +1,13 @@
-import { DestroyRef, Injectable, computed, inject, signal } from '@angular/core';
+import { DestroyRef, Injectable, computed, effect, inject, signal, untracked } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { Observable, Subject, Subscription, debounceTime, map, tap, timer } from 'rxjs';
 import type { SpecimenRows } from '../../../../../shared/schemas';
+import type { DecimalMark } from '../../../../../shared/schemas/result-text';
 import { ApiError } from '../../../core/http/api-error';
 import { SpecimensApi } from '../api/specimens-api';
 import { StudyStore } from '../study/study-store';
 import { PasteOutcome, PasteTarget, applyPaste } from './apply-paste';
-import { normaliseDecimal } from './result-number';
+import { normaliseDecimal, rewriteForMark } from './result-number';
 import { deleteRows, insertRow, moveRow, setCell } from './row-edits';
 import { RowIssue, SentRows, rowsToSend } from './rows-to-send';
 import { refusalOf } from './save-refusal';
@@ -26,10 +27,13 @@ interface SpecimensState {
   message: string | null;
   issues: RowIssue[];
   retryAt: number | null;
+  /** The decimal mark the rows' results are written with: the study's (settings.decimalMark). */
+  decimalMark: DecimalMark;
 }
 
 const INITIAL: SpecimensState = {
   studyId: null, version: 0, rows: [], loading: false, loadError: null, status: 'saved', message: null, issues: [], retryAt: null,
+  decimalMark: 'auto',
 };
 
 /**
@@ -60,6 +64,9 @@ export class SpecimensStore {
   readonly retryAt = computed(() => this.state().retryAt);
   readonly version = computed(() => this.state().version);
   readonly dirty = computed(() => this.state().status !== 'saved');
+  /** How the rows' results are written and read (the study's decimal mark); the grid checks cells with it. */
+  readonly decimalMark = computed(() => this.state().decimalMark);
+  private readonly studyMark = computed<DecimalMark>(() => this.study?.study()?.settings?.decimalMark ?? 'auto');
 
   constructor() {
     this.changes.pipe(debounceTime(AUTOSAVE_DEBOUNCE_MS), takeUntilDestroyed()).subscribe(() => this.save());
@@ -67,6 +74,11 @@ export class SpecimensStore {
     this.study?.versionMoves.pipe(takeUntilDestroyed()).subscribe(({ from, to }) =>
       this.state.update((s) => (s.version === from ? { ...s, version: to } : s)),
     );
+    // The study's decimal mark changed (Setup): the same numbers, written for the new mark, so nothing is re-read differently.
+    effect(() => {
+      const mark = this.studyMark();
+      untracked(() => this.useMark(mark));
+    });
     inject(DestroyRef).onDestroy(() => {
       this.retry?.unsubscribe();
       if (this.revision !== this.savedRevision && this.state().status !== 'conflict') this.save();
@@ -109,11 +121,12 @@ export class SpecimensStore {
   adopt(answer: SpecimenRows): void {
     this.revision = this.savedRevision = this.revision + 1;
     this.failures = 0;
-    const rows = answer.rows.map((row) => fromStored(row, this.layoutOf));
+    const mark = untracked(this.studyMark);
+    const rows = this.rewritten(answer.rows.map((row) => fromStored(row, this.layoutOf)), 'point', mark);
     // An empty study shows one blank row, so there is a cell to click and paste into (blank rows are not sent).
     if (rows.length === 0) rows.push(blankRow(this.layoutOf));
     this.state.update((s) => ({
-      ...s, version: answer.version, rows,
+      ...s, version: answer.version, rows, decimalMark: mark,
       loading: false, status: 'saved', message: null, issues: [], retryAt: null,
     }));
   }
@@ -123,10 +136,11 @@ export class SpecimensStore {
     this.change([...rows]);
   }
 
-  /** One edited cell; a result typed with a decimal comma is kept with a point, as a paste would be. */
+  /** One edited cell; a result that reads is kept written with the study's decimal mark, as a paste would be. */
   setCell(uid: number, field: string, value: string | boolean): void {
     const kind = this.layoutOf.fields.find((f) => f.field === field)?.kind;
-    this.change(setCell(this.rows(), uid, field, kind === 'result' && typeof value === 'string' ? normaliseDecimal(value) : value));
+    const mark = this.decimalMark();
+    this.change(setCell(this.rows(), uid, field, kind === 'result' && typeof value === 'string' ? normaliseDecimal(value, mark) : value));
   }
 
   insertRow(index?: number): void {
@@ -142,7 +156,7 @@ export class SpecimensStore {
   }
 
   paste(target: PasteTarget, text: string): PasteOutcome {
-    const outcome = applyPaste(this.rows(), this.layoutOf, target, text);
+    const outcome = applyPaste(this.rows(), this.layoutOf, target, text, this.decimalMark());
     if (outcome.written > 0) this.change(outcome.rows);
     return outcome;
   }
@@ -167,6 +181,23 @@ export class SpecimensStore {
     this.inFlight = this.api.put(s.studyId, { version: s.version, rows: sent.rows }).subscribe({
       next: (answer) => this.accepted(answer, revision),
       error: (err: ApiError) => this.refused(err, sent, revision),
+    });
+  }
+
+  /** Rows written for another mark rewritten for `mark`; not an edit (the numbers stay), so nothing is saved for it. */
+  private useMark(mark: DecimalMark): void {
+    const s = this.state();
+    if (s.decimalMark === mark) return;
+    this.state.set({ ...s, rows: this.rewritten(s.rows, s.decimalMark, mark), decimalMark: mark });
+  }
+
+  /** Every result cell written for `from` rewritten for `to` (stored texts are written for 'point'). */
+  private rewritten(rows: GridRow[], from: DecimalMark, to: DecimalMark): GridRow[] {
+    const results = this.layoutOf.fields.filter((f) => f.kind === 'result').map((f) => f.field);
+    return rows.map((row) => {
+      const out = { ...row };
+      for (const field of results) out[field] = rewriteForMark(String(row[field] ?? ''), from, to);
+      return out;
     });
   }
 

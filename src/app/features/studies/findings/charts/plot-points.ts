@@ -1,5 +1,5 @@
 import type { StudySettings } from '../../../../../../shared/schemas';
-import { parseResult } from '../../specimens/result-number';
+import { gridNumber } from '../../specimens/result-number';
 import type { GridRow } from '../../specimens/specimen-layout';
 
 /** One pair as the plots draw it: where it sits in the grid, its two results, their mean and difference. */
@@ -28,8 +28,8 @@ export function difference(x: number, y: number, type: StudySettings['difference
 export function plotPoints(rows: readonly GridRow[], type: StudySettings['differenceType']): PlotPoint[] {
   const points: PlotPoint[] = [];
   rows.forEach((row, i) => {
-    const x = parseResult(String(row['comparative'] ?? ''));
-    const y = parseResult(String(row['candidate'] ?? ''));
+    const x = gridNumber(String(row['comparative'] ?? ''));
+    const y = gridNumber(String(row['candidate'] ?? ''));
     if (x === null || y === null || Number.isNaN(x) || Number.isNaN(y)) return;
     const d = difference(x, y, type);
     if (!Number.isFinite(d)) return;

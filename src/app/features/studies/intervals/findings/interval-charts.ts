@@ -4,7 +4,7 @@ import { binBars } from '../../findings/charts/histogram-data';
 import type { MarkerLine, Markers } from '../../findings/charts/markers-plugin';
 import { PALETTE } from '../../findings/charts/palette';
 import type { XY } from '../../findings/charts/scatter-data';
-import { parseResult } from '../../specimens/result-number';
+import { gridNumber } from '../../specimens/result-number';
 import type { GridRow } from '../../specimens/specimen-layout';
 
 /** One analysed value with its grid position (1-based). */
@@ -22,7 +22,7 @@ export function analysedValues(rows: readonly GridRow[], subgroup?: { field: str
   rows.forEach((row, i) => {
     if (row['excluded'] === true) return;
     if (subgroup && String(row[subgroup.field] ?? '').trim() !== subgroup.group) return;
-    const value = parseResult(String(row['value'] ?? ''));
+    const value = gridNumber(String(row['value'] ?? ''));
     if (value !== null && Number.isFinite(value)) out.push({ position: i + 1, value });
   });
   return out;

@@ -31,7 +31,8 @@ export class SpecimensTab {
   private readonly snackBar = inject(MatSnackBar);
   protected readonly editable = this.study.editable;
 
-  private readonly rules = computed(() => ({ canBeNegative: this.study.study()?.canBeNegative ?? true }));
+  /** The analyte's sign rule, and the decimal mark the rows are written with (the study's), as the server reads them. */
+  private readonly rules = computed(() => ({ canBeNegative: this.study.study()?.canBeNegative ?? true, decimalMark: this.store.decimalMark() }));
   protected readonly problems = computed(() => allProblems(this.store.rows(), this.store.layout, this.rules()));
   protected readonly summary = computed(() => problemSummary(this.problems()));
   /** Rows with anything entered (an empty row is not saved). */
