@@ -25,6 +25,12 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
     res.status(400).json({ error: `The upload was refused: ${err.message}`, issues: [{ path: err.field ?? 'file', message: err.message }] });
     return;
   }
+  // busboy (under multer) refuses a multipart body it cannot read, e.g. a NUL in a file name.
+  if (/^(Malformed part header|Unexpected end of form|Multipart: Boundary not found)/.test(err?.message ?? '')) {
+    const message = 'The upload could not be read: its form or the file\'s name is malformed (for example a control character in the name); rename the file and try again';
+    res.status(400).json({ error: message, issues: [{ path: 'file', message }] });
+    return;
+  }
   if (err?.type === 'entity.too.large') {
     res.status(413).json({ error: 'The request is too large', issues: [] });
     return;

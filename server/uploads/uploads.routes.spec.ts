@@ -62,7 +62,7 @@ describe('uploads', () => {
       ['empty.csv', Buffer.alloc(0), /empty/],
       ['words.csv', Buffer.from('a,b\nx,y\n'), /No column of the file holds numbers/],
       ['fake.xlsx', Buffer.from('plain text'), /not an Excel workbook/],
-      ['big.csv', Buffer.from(['x,y', ...Array.from({ length: 10001 }, (_, i) => `${i},${i}`)].join('\n')), /at most 10000/],
+      ['big.csv', Buffer.from(['x,y', ...Array.from({ length: 10001 }, (_, i) => `${i},${i}`)].join('\n')), /more than 10,000 data rows; at most 10,000 can be imported/],
       ['errors.xlsx', await workbook((s) => { s.addRow(['x', 'y']); s.addRow([1, { formula: '1/0', result: { error: '#DIV/0!' } }]); }), /column B: the formula gives the error #DIV\/0!/],
     ];
     for (const [name, bytes, message] of cases) {
@@ -72,6 +72,23 @@ describe('uploads', () => {
     expect(await h.database.db.select().from(uploads).where(eq(uploads.studyId, study.id))).toEqual([]);
     const huge = await upload('huge.csv', Buffer.alloc(5 * 1024 * 1024 + 10, 49)).expect(413);
     expect(huge.body.error).toMatch(/5 MB/);
+    expect((await tech.agent.get(`/api/v1/studies/${study.id}`)).body.version).toBe(1);
+  });
+
+  it('refuses a file name with a control character, naming the file, and stores nothing', async () => {
+    const { tech, study, upload } = await setup();
+    // Raw, the multipart parser itself refuses the header.
+    const nul = await upload('pairs\u0000.csv', Buffer.from('x,y\n1,2\n')).expect(400);
+    expect(nul.body.issues[0]).toMatchObject({ path: 'file', message: expect.stringMatching(/file's name is malformed \(for example a control character in the name\)/) });
+    // Percent-encoded (RFC 5987 filename*), it arrives decoded and is refused by name.
+    const boundary = 'parallax-test-boundary';
+    const body = Buffer.from([
+      `--${boundary}`, `Content-Disposition: form-data; name="file"; filename*=UTF-8''pairs%07.csv`, 'Content-Type: text/csv', '', 'x,y', '1,2', `--${boundary}--`, '',
+    ].join('\r\n'));
+    const encoded = await tech.agent.post(`/api/v1/studies/${study.id}/uploads`).set('X-XSRF-TOKEN', tech.xsrf)
+      .set('Content-Type', `multipart/form-data; boundary=${boundary}`).send(body).expect(400);
+    expect(encoded.body.issues[0]).toEqual({ path: 'file', message: 'file: contains a control character (U+0007); remove it' });
+    expect(await h.database.db.select().from(uploads).where(eq(uploads.studyId, study.id))).toEqual([]);
     expect((await tech.agent.get(`/api/v1/studies/${study.id}`)).body.version).toBe(1);
   });
 

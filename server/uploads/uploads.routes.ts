@@ -2,6 +2,7 @@ import multer from 'multer';
 import * as z from 'zod';
 import { ImportBody } from '../../shared/schemas';
 import type { AppContext } from '../context';
+import { refuseControlCharacters } from '../http/control-characters';
 import { parseRequest } from '../http/parse-request';
 import type { RouteSpec } from '../http/routes';
 import { EDITORS } from '../studies/studies.routes';
@@ -18,6 +19,7 @@ export function uploadsRoutes(ctx: AppContext): RouteSpec[] {
       handler: async (req, res) => {
         const { id } = parseRequest(UploadParams.pick({ id: true }), req.params, 'params');
         const file = req.file ? { ...req.file, originalname: Buffer.from(req.file.originalname, 'latin1').toString('utf8') } : undefined;
+        refuseControlCharacters({ file: file?.originalname ?? '' });
         res.status(201).json(await receiveUpload(ctx.db, req.user!, id, file));
       },
     },

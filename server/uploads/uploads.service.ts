@@ -1,4 +1,4 @@
-import { and, eq } from 'drizzle-orm';
+import { and, eq, sql } from 'drizzle-orm';
 import { COMPARISON_FIELDS, INTERVAL_FIELDS, type ImportBody, type SpecimenRows, type UploadPreview } from '../../shared/schemas';
 import { recordAudit } from '../audit/audit';
 import { sha256Hex } from '../audit/canonical-json';
@@ -11,24 +11,31 @@ import { asClean, cleanRowsFor, writeRows } from '../specimens/specimens.service
 import { findStudy } from '../studies/studies.repository';
 import { assertEditable } from '../studies/study-rules';
 import { suggestMapping } from './column-mapping';
-import { parseUpload, ParsedTable } from './parse-file';
+import type { ParsedTable } from './parse-file';
+import { uploadParser } from './parse-pool';
 
-/** Stores the original file with its SHA-256 and answers the preview; nothing touches the rows yet. */
+/**
+ * Stores the original file with its SHA-256 and answers the preview; nothing touches the rows yet.
+ * The file is read in a worker before any transaction opens (reading may take seconds); the study
+ * is checked before reading and again, under lock, in the transaction that stores the upload.
+ */
 export async function receiveUpload(db: Database, me: SignedInUser, studyId: number, file: { originalname: string; mimetype: string; buffer: Buffer } | undefined): Promise<UploadPreview> {
   if (!file) throw invalid('file', 'Choose a file to upload (field "file")');
+  assertEditable(await findStudy(db, me.laboratoryId, studyId));
+  const table = await uploadParser().parse(file.originalname, file.buffer);
+  const sha256 = sha256Hex(file.buffer);
+  const json = Buffer.from(table.json.buffer, table.json.byteOffset, table.json.byteLength); // UTF-8, stored as it came from the worker
   return db.transaction(async (tx) => {
-    const study = await findStudy(tx, me.laboratoryId, studyId);
+    const study = await findStudy(tx, me.laboratoryId, studyId, true);
     assertEditable(study);
-    const table = await parseUpload(file.originalname, file.buffer);
-    const sha256 = sha256Hex(file.buffer);
     const [row] = await tx.insert(uploads).values({
       laboratoryId: me.laboratoryId, studyId, fileName: file.originalname, mediaType: file.mimetype, size: file.buffer.length,
-      sha256, bytes: file.buffer, parsed: table, uploadedBy: me.id,
+      sha256, bytes: file.buffer, parsed: sql`convert_from(${json}, 'UTF8')::jsonb`, uploadedBy: me.id,
     }).returning({ id: uploads.id });
-    await recordAudit(tx, actorOf(me), { action: 'upload.received', entity: 'upload', entityId: row.id, studyId, after: { fileName: file.originalname, size: file.buffer.length, sha256, rows: table.rows.length } });
+    await recordAudit(tx, actorOf(me), { action: 'upload.received', entity: 'upload', entityId: row.id, studyId, after: { fileName: file.originalname, size: file.buffer.length, sha256, rows: table.rowCount } });
     return {
-      uploadId: row.id, fileName: file.originalname, sha256, columns: table.columns, preview: table.rows.slice(0, 10), rowCount: table.rows.length,
-      suggestedMapping: suggestMapping(study.kind, table.columns, table.rows),
+      uploadId: row.id, fileName: file.originalname, sha256, columns: table.columns, preview: table.sample.slice(0, 10), rowCount: table.rowCount,
+      suggestedMapping: suggestMapping(study.kind, table.columns, table.sample),
     };
   });
 }
