@@ -26,7 +26,8 @@ export function describeForLog(err: unknown): string {
     const where = ['code', 'table', 'column', 'constraint', 'routine'].filter((k) => typeof e![k] === 'string').map((k) => `${k}=${e![k]}`);
     parts.push([name, message, ...where].filter(Boolean).join(' '));
   }
-  const stack = (err as { stack?: string } | undefined)?.stack?.split('\n').slice(1, 4).map((l) => l.trim()).join(' | ');
+  // Only the frames: the stack's first lines repeat the message, parameters included.
+  const stack = (err as { stack?: string } | undefined)?.stack?.split('\n').map((l) => l.trim()).filter((l) => l.startsWith('at ')).slice(0, 3).join(' | ');
   return parts.join(' <- ') + (stack ? ` @ ${stack}` : '');
 }
 
