@@ -21,6 +21,7 @@ import type { CheckResult } from '../../../../../shared/schemas';
     </ul>
   `,
   styles: `
+    :host { display: block; }
     .checks { list-style: none; padding: 0; margin: 0; }
     li { display: flex; gap: 8px; padding: 6px 0; border-bottom: 1px solid var(--mat-sys-outline-variant); }
     mat-icon { flex: 0 0 auto; color: var(--mat-sys-primary); }
