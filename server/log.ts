@@ -33,7 +33,7 @@ export function describeForLog(err: unknown): string {
 
 function safeMessage(message: string): string {
   const first = message.split('\n')[0];
-  // Drizzle: "Failed query: <sql>\nparams: …": the statement holds placeholders, not values; the parameters are dropped.
+  // Drizzle: "Failed query: <sql>\nparams: …": the statement refers to values as $1, $2; the parameters line is dropped.
   if (first.startsWith('Failed query:')) return first.replace(/'[^']*'/g, "'…'").slice(0, 300);
   // The driver's own messages quote the offending value ('invalid input syntax …: "abc"', 'Key (email)=(…)').
   return first.replace(/"[^"]*"/g, '"…"').replace(/'[^']*'/g, "'…'").replace(/=\(.*?\)/g, '=(…)').slice(0, 300);

@@ -1,4 +1,4 @@
-import { eq } from 'drizzle-orm';
+import { and, asc, eq } from 'drizzle-orm';
 import { auditEvents, mailMessages, passwordLinks } from '../db/schema';
 import { anonymous, Harness, signedIn, startHarness, uniqueEmail } from '../test/harness';
 
@@ -81,7 +81,9 @@ describe('users', () => {
     expect(changed.body.roles).toEqual(['technologist', 'director']);
     await admin.agent.patch(`/api/v1/users/${created.id}`).set('X-XSRF-TOKEN', admin.xsrf).send({ roles: ['chief'] }).expect(400);
     await admin.agent.patch(`/api/v1/users/${created.id}`).set('X-XSRF-TOKEN', admin.xsrf).send({ active: false }).expect(200);
-    const events = await h.database.db.select().from(auditEvents).where(eq(auditEvents.entityId, String(created.id)));
+    // In the order they were written: the role change comes before the deactivation.
+    const events = await h.database.db.select().from(auditEvents)
+      .where(and(eq(auditEvents.entity, 'user'), eq(auditEvents.entityId, String(created.id)))).orderBy(asc(auditEvents.id));
     const update = events.find((e) => e.action === 'user.updated')!;
     expect(update.before).toMatchObject({ roles: ['technologist'] });
     expect(update.after).toMatchObject({ roles: ['technologist', 'director'] });

@@ -1,4 +1,4 @@
-import { eq } from 'drizzle-orm';
+import { asc, eq } from 'drizzle-orm';
 import { auditEvents } from '../db/schema';
 import { createComparison, inventedPairs } from '../test/fixtures';
 import { Harness, signedIn, startHarness } from '../test/harness';
@@ -46,7 +46,7 @@ describe('specimen rows', () => {
     changed[1].candidate = '9.9';
     await tech.agent.put(`/api/v1/studies/${study.id}/specimens`).set('X-XSRF-TOKEN', tech.xsrf).send({ version: 2, rows: changed }).expect(200);
     await tech.agent.put(`/api/v1/studies/${study.id}/specimens`).set('X-XSRF-TOKEN', tech.xsrf).send({ version: 2, rows }).expect(409);
-    const events = await h.database.db.select().from(auditEvents).where(eq(auditEvents.studyId, study.id));
+    const events = await h.database.db.select().from(auditEvents).where(eq(auditEvents.studyId, study.id)).orderBy(asc(auditEvents.id));
     const last = events.filter((e) => e.action === 'specimens.saved').pop()!;
     expect((last.after as { changes: unknown[] }).changes).toEqual([{ row: 2, field: 'candidate', from: rows[1].candidate, to: '9.9' }]);
   });
