@@ -10,10 +10,21 @@ export function dataFile(...parts: string[]): string {
   return readFileSync(join(__dirname, 'data', ...parts), 'utf8');
 }
 
-/** A NIST StRD univariate file in NIST's .dat layout: the data after "Data: Y" and the certified values. */
+/**
+ * A NIST StRD univariate file: in NIST's .dat layout (the data after "Data: Y"), or in the commented layout
+ * of the shared copy of Lew ("mean = ...", "standardDeviation = ...", the data after the "# Data" block).
+ */
 export function nistUnivariate(name: string): { values: number[]; mean: number; sd: number } {
   const text = dataFile('nist-strd-univariate', `${name}.txt`);
   const lines = text.split(/\r?\n/);
+  if (/^standardDeviation\s*=/m.test(text)) {
+    const after = lines.findIndex((l) => /^#\s*Data\s*$/.test(l));
+    return {
+      values: lines.slice(after + 1).map((l) => l.trim()).filter((l) => /^[-+]?\d/.test(l)).map(Number),
+      mean: Number(/^mean\s*=\s*(\S+)/m.exec(text)![1]),
+      sd: Number(/^standardDeviation\s*=\s*(\S+)/m.exec(text)![1]),
+    };
+  }
   const start = lines.findIndex((l) => /^\s*Data:\s*Y/.test(l));
   const values = lines.slice(start + 1).map((l) => l.trim()).filter((l) => /^[-+]?\d/.test(l)).map(Number);
   const mean = Number(/Sample Mean\s+ybar:\s+(\S+)/.exec(text)![1]);

@@ -34,7 +34,7 @@ function comparison(input: AnalysisInput, onProgress: Progress) {
       resamples: s.resamples, regressionResamples: s.regressionResamples, seed: s.seed, level: s.confidenceLevel, interval: s.interval,
       loaMultiplier: s.loaMultiplier, difference: s.differenceType, regression: s.regression, demingRatio: s.demingRatio,
       decisionLevels: s.decisionLevels, allowableBias: s.allowableBiasAbsolute ?? undefined, allowableBiasPercent: s.allowableBiasPercent ?? undefined,
-      esdAlpha: s.esdAlpha, esdMax: s.esdMax ?? undefined,
+      esdAlpha: s.esdAlpha, esdMax: s.esdMax ?? undefined, decimals: s.decimals,
     },
     onProgress,
   );
@@ -46,7 +46,7 @@ function establish(input: AnalysisInput, onProgress: Progress) {
   const used = input.rows.filter((r) => has(r.value));
   const result = analyzeInterval(
     used.map((r) => ({ value: r.value!, label: r.label || undefined, sex: r.sex ?? undefined, ageBand: r.ageBand ?? undefined, excluded: r.excluded, exclusionReason: r.exclusionReason ?? undefined })),
-    { resamples: s.resamples, seed: s.seed, level: s.confidenceLevel, method: s.intervalMethod, percentiles: s.percentiles, partitionFields: s.partitionFields },
+    { resamples: s.resamples, seed: s.seed, level: s.confidenceLevel, method: s.intervalMethod, percentiles: s.percentiles, partitionFields: s.partitionFields, decimals: s.decimals },
     onProgress,
   );
   return { ...result, outlierPositions: toPositions(result.outliers, used) };
@@ -56,7 +56,7 @@ function verify(input: AnalysisInput) {
   const s = StudySettings.parse(input.settings);
   if (s.statedLower === null || s.statedUpper === null) throw new Error('Give the stated lower and upper limits in Setup before running the analysis');
   const used = input.rows.filter((r) => !r.excluded && has(r.value));
-  const result = verifyInterval(used.map((r) => r.value!), { lower: s.statedLower, upper: s.statedUpper });
+  const result = verifyInterval(used.map((r) => r.value!), { lower: s.statedLower, upper: s.statedUpper }, s.decimals);
   const outsidePositions = used.filter((r) => r.value! < s.statedLower! || r.value! > s.statedUpper!).map((r) => r.position);
   return { ...result, excludedCount: input.rows.length - used.length, outsidePositions, stated: { lower: s.statedLower, upper: s.statedUpper, source: s.statedSource }, caution: CAUTION, engine: engineInfo(s.seed, s.resamples) };
 }

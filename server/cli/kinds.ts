@@ -19,6 +19,7 @@ const comparison: Kind = {
     '--regression-resamples': ['regressionResamples', integerFlag], '--regression-ci': ['regressionCi', textFlag],
     '--decision-levels': ['decisionLevels', listFlag], '--allowable-bias': ['allowableBias', numberFlag],
     '--allowable-bias-percent': ['allowableBiasPercent', numberFlag], '--esd-alpha': ['esdAlpha', numberFlag], '--esd-max': ['esdMax', integerFlag],
+    '--decimals': ['decimals', integerFlag],
   },
   run(table, options) {
     const x = numberColumn(table, 'x');
@@ -36,7 +37,7 @@ const comparison: Kind = {
 const interval: Kind = {
   flags: {
     ...resampling, '--level': ['level', numberFlag], '--method': ['method', textFlag], '--percentiles': ['percentiles', listFlag],
-    '--partition-fields': ['partitionFields', wordsFlag],
+    '--partition-fields': ['partitionFields', wordsFlag], '--decimals': ['decimals', integerFlag],
   },
   run(table, options) {
     const values = numberColumn(table, 'value');
@@ -50,10 +51,10 @@ const interval: Kind = {
 };
 
 const verify: Kind = {
-  flags: { '--lower': ['lower', numberFlag], '--upper': ['upper', numberFlag], '--coverage': ['coverage', numberFlag] },
+  flags: { '--lower': ['lower', numberFlag], '--upper': ['upper', numberFlag], '--coverage': ['coverage', numberFlag], '--decimals': ['decimals', integerFlag] },
   run(table, options) {
     if (options.lower === undefined || options.upper === undefined) throw new FlagError('verify-interval needs --lower L and --upper U');
-    const { n, outside, accepted, probability, ...rest } = verifyInterval(numberColumn(table, 'value'), options as { lower: number; upper: number });
+    const { n, outside, accepted, probability, ...rest } = verifyInterval(numberColumn(table, 'value'), options as { lower: number; upper: number }, options.decimals as number | undefined);
     return { n, outside, accepted, probability, ...rest };
   },
 };

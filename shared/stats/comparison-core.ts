@@ -4,8 +4,10 @@ import type { ResolvedComparisonOptions } from './comparison-options';
 import type { ComparisonCore, ComparisonRegression, DecisionLevelResult, Estimate } from './comparison-types';
 import { allowableBiasAt, verdict } from './decision-levels';
 import { differenceBias, type DifferenceBias } from './difference-bias';
+import { bcaFallbackWarning } from './bootstrap-estimate';
 import { pairedDifferences, type PairedDifferences } from './differences';
 import { pearson } from './correlation';
+import { judgedInterval, narrowerThanStep } from './resolution';
 import { regression, type RegressionResult } from './regression';
 import { streamFor } from './rng';
 
@@ -27,13 +29,14 @@ export interface CoreRun {
  * regression with decision-level biases (regression.ts). A part that cannot be estimated is null
  * (estimates NaN → null in JSON) with a warning saying why; the rest is still reported.
  */
-export function comparisonCore(x: Float64Array, y: Float64Array, o: ResolvedComparisonOptions, onProgress?: ProgressFn): CoreRun {
+export function comparisonCore(x: Float64Array, y: Float64Array, o: ResolvedComparisonOptions, step: number, onProgress?: ProgressFn): CoreRun {
   const warnings: string[] = [];
   const n = x.length;
   const paired = pairedDifferences(x, y, o.difference);
   let bias: DifferenceBias | null = null;
   if (n >= 3) {
     bias = differenceBias(paired.differences, { ...o, onProgress: progressSpan(onProgress, 0, 0.6) });
+    warnings.push(...bias.warnings);
   } else warnings.push(`Bias, SD and limits of agreement need at least 3 pairs (have ${n}); they are not estimated.`);
   const reg = fitRegression(x, y, o, warnings, progressSpan(onProgress, 0.6, 1));
   const core: ComparisonCore = {
@@ -45,7 +48,7 @@ export function comparisonCore(x: Float64Array, y: Float64Array, o: ResolvedComp
     sd: bias ? pick(bias.sd) : NONE,
     limitsOfAgreement: { multiplier: o.loaMultiplier, lower: bias ? pick(bias.lower) : NONE, upper: bias ? pick(bias.upper) : NONE },
     regression: regressionSummary(reg, o, pearson(x, y)),
-    decisionLevels: decisionLevels(reg, o),
+    decisionLevels: decisionLevels(reg, o, step),
   };
   return { core, paired, bias, warnings };
 }
@@ -78,6 +81,7 @@ function fitRegression(x: Float64Array, y: Float64Array, o: ResolvedComparisonOp
       settings: { resamples: o.regressionResamples, stream: streamFor(o.seed, 'regression'), onProgress },
     });
     if (result.undefinedResamples > 0) warnings.push(`${result.undefinedResamples} regression resamples had no defined line and were left out of the CIs.`);
+    if (result.bcaFailed.length > 0) warnings.push(bcaFallbackWarning(result.bcaFailed)!);
     return result;
   } catch (error) {
     if (!(error instanceof RangeError)) throw error;
@@ -99,16 +103,22 @@ function regressionSummary(reg: RegressionResult | null, o: ResolvedComparisonOp
   };
 }
 
-function decisionLevels(reg: RegressionResult | null, o: ResolvedComparisonOptions): DecisionLevelResult[] {
+/**
+ * Verdicts at the decision levels. Where the bias CI is narrower than the reporting step, the verdict is
+ * judged on the estimate ± step/2 joined with the CI (resolution.ts), and `judgedOn` says so.
+ */
+function decisionLevels(reg: RegressionResult | null, o: ResolvedComparisonOptions, step: number): DecisionLevelResult[] {
   return o.decisionLevels.map((level, k) => {
     const bias = reg ? reg.decisionLevelBias[k] : NONE;
     const allowable = allowableBiasAt(level, o.allowableBias, o.allowableBiasPercent);
+    const judgedOn = bias.ci && bias.estimate !== null && Number.isFinite(bias.estimate) && narrowerThanStep(bias.ci, step) ? judgedInterval(bias.estimate, bias.ci, step) : null;
     return {
       level,
       bias,
       biasPercent: level !== 0 && bias.estimate !== null && Number.isFinite(bias.estimate) ? (100 * bias.estimate) / level : null,
       allowable,
-      verdict: verdict(bias.ci, allowable),
+      verdict: verdict(judgedOn ?? bias.ci, allowable),
+      judgedOn,
     };
   });
 }

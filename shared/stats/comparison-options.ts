@@ -3,7 +3,7 @@ import type { IntervalMethod } from './bootstrap-estimate';
 import type { DifferenceType } from './differences';
 import type { RegressionMethod } from './regression-fitters';
 import {
-  choiceOption, integerOption, isLevel, LEVEL_RULE, numberListOption, numberOption, optionalNumber, seedOption,
+  choiceOption, decimalsOption, integerOption, isLevel, LEVEL_RULE, numberListOption, numberOption, optionalNumber, seedOption,
 } from './options';
 
 /** Options of analyzeComparison; every field optional, defaults in resolveComparisonOptions. */
@@ -24,12 +24,15 @@ export interface ComparisonOptions {
   allowableBiasPercent?: number;
   esdAlpha?: number;
   esdMax?: number;
+  /** The analyte's reporting decimals: the results' step is 10^−decimals (resolution.ts); default: detected from the data. */
+  decimals?: number;
 }
 
-export type ResolvedComparisonOptions = Required<Omit<ComparisonOptions, 'allowableBias' | 'allowableBiasPercent' | 'esdMax'>> & {
+export type ResolvedComparisonOptions = Required<Omit<ComparisonOptions, 'allowableBias' | 'allowableBiasPercent' | 'esdMax' | 'decimals'>> & {
   allowableBias: number | null;
   allowableBiasPercent: number | null;
   esdMax: number | null;
+  decimals: number | null;
 };
 
 export const REGRESSION_METHODS: readonly RegressionMethod[] = ['passing-bablok', 'deming', 'weighted-deming', 'ols'];
@@ -54,5 +57,6 @@ export function resolveComparisonOptions(o: ComparisonOptions = {}): ResolvedCom
     allowableBiasPercent: optionalNumber('allowableBiasPercent', o.allowableBiasPercent, (v) => v >= 0, 'a number ≥ 0'),
     esdAlpha: numberOption('esdAlpha', o.esdAlpha, 0.05, isLevel, LEVEL_RULE),
     esdMax: o.esdMax === undefined || o.esdMax === null ? null : integerOption('esdMax', o.esdMax, 1, 1, 1_000_000),
+    decimals: decimalsOption(o.decimals),
   };
 }

@@ -1,3 +1,4 @@
+import { magnitudeProblem } from './magnitude';
 import type { ComparisonRow } from './comparison-types';
 
 /** The included pairs (with their input indexes), every pair, and the excluded rows with reasons. */
@@ -16,6 +17,8 @@ export function splitRows(rows: ComparisonRow[]): SplitRows {
   const excluded: SplitRows['excluded'] = [];
   rows.forEach((row, i) => {
     if (!Number.isFinite(row.x) || !Number.isFinite(row.y)) throw new RangeError(`analyzeComparison requires finite x and y (row ${i + 1})`);
+    const problem = magnitudeProblem(row.x) ?? magnitudeProblem(row.y);
+    if (problem) throw new RangeError(`analyzeComparison: row ${i + 1}: ${problem}`);
     if (row.excluded) excluded.push({ row: i + 1, index: i, label: row.label ?? null, reason: row.exclusionReason ?? null });
     else index.push(i);
   });

@@ -4,6 +4,7 @@ import type { HistogramBin, Histogram } from './histogram';
 import type { ResolvedComparisonOptions } from './comparison-options';
 import type { RegressionMethod } from './regression-fitters';
 import type { Verdict } from './decision-levels';
+import type { ComparisonResolution } from './resolution';
 
 /** One row of a method comparison: x = comparative method, y = candidate method. */
 export interface ComparisonRow {
@@ -38,6 +39,8 @@ export interface DecisionLevelResult {
   biasPercent: number | null;
   allowable: number | null;
   verdict: Verdict | null;
+  /** The interval the verdict was judged on when the CI is narrower than the reporting step (estimate ± step/2 joined with the CI); null when judged on the CI. */
+  judgedOn: Interval | null;
 }
 
 export interface NullDistributionPlot {
@@ -71,6 +74,8 @@ export interface ComparisonResult extends ComparisonCore {
   plots: { medianBias: Histogram | null; meanBias: Histogram | null; medianNull: NullDistributionPlot | null };
   sensitivity: (ComparisonCore & { includesExcluded: true; excludedCount: number }) | null;
   settings: ResolvedComparisonOptions & { demingRatioConvention: string };
+  /** The reporting step and the estimates whose CI is narrower than it (resolution.ts). */
+  resolution: ComparisonResolution;
   warnings: string[];
   caution: string;
   engine: EngineInfo;

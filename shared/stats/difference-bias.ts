@@ -1,12 +1,12 @@
 import { forEachResample, type ProgressFn, progressSpan } from './bootstrap';
-import { summariseReplicates, type BootstrapEstimate, type IntervalMethod } from './bootstrap-estimate';
+import { bcaFallbackWarning, summariseReplicates, type BootstrapEstimate, type IntervalMethod } from './bootstrap-estimate';
 import { medianFromCounts, momentsFromCounts } from './counts-stats';
 import { histogram, type Histogram } from './histogram';
 import { jackknifeMoments, jackknifeQuantileSorted } from './jackknife';
 import { mean, sampleSd } from './summation';
 import { medianSorted, sortedCopy } from './quantile';
 import { streamFor } from './rng';
-import { shiftedNullTest, type ShiftedNullTest } from './shifted-null-test';
+import { shiftedNullTest, testRefusal, type ShiftedNullTest } from './shifted-null-test';
 
 /**
  * Bias and agreement from the paired differences d (differences.ts):
@@ -18,14 +18,16 @@ import { shiftedNullTest, type ShiftedNullTest } from './shifted-null-test';
  * drawn as counts over the sorted differences; the two tests use the streams 'null-median', 'null-mean'.
  */
 export interface DifferenceBias {
-  mean: BootstrapEstimate & { pValue: number };
-  median: BootstrapEstimate & { pValue: number };
+  mean: BootstrapEstimate & { pValue: number | null };
+  median: BootstrapEstimate & { pValue: number | null };
   sd: BootstrapEstimate;
   lower: BootstrapEstimate;
   upper: BootstrapEstimate;
-  medianTest: ShiftedNullTest;
-  meanTest: ShiftedNullTest;
+  /** Null when the test is refused (testRefusal in shifted-null-test.ts; the reason is in warnings). */
+  medianTest: ShiftedNullTest | null;
+  meanTest: ShiftedNullTest | null;
   distributions: { median: Histogram; mean: Histogram };
+  warnings: string[];
 }
 
 export interface DifferenceBiasSettings {
@@ -62,15 +64,28 @@ export function differenceBias(differences: Float64Array, s: DifferenceBiasSetti
   const summarise = (r: Float64Array, estimate: number, jack?: ArrayLike<number>): BootstrapEstimate =>
     summariseReplicates(r, estimate, s.level, s.interval, jack);
   const distributions = { median: histogram(reps.median), mean: histogram(reps.mean) };
-  const medianTest = shiftedNullTest(sorted, medianFromCounts, 0, { resamples: B, stream: streamFor(s.seed, 'null-median'), onProgress: progressSpan(s.onProgress, 0.5, 0.75) });
-  const meanTest = shiftedNullTest(sorted, meanFromCounts, 0, { resamples: B, stream: streamFor(s.seed, 'null-mean'), onProgress: progressSpan(s.onProgress, 0.75, 1) });
-  return {
-    median: { ...summarise(reps.median, medianSorted(sorted), bca ? jackknifeQuantileSorted(sorted, 0.5) : undefined), pValue: medianTest.pValue },
-    mean: { ...summarise(reps.mean, m, jm?.mean), pValue: meanTest.pValue },
+  const warnings: string[] = [];
+  const refusal = testRefusal(sorted, 'differences');
+  if (refusal) warnings.push(refusal);
+  const medianTest = refusal ? null : shiftedNullTest(sorted, medianFromCounts, 0, { resamples: B, stream: streamFor(s.seed, 'null-median'), onProgress: progressSpan(s.onProgress, 0.5, 0.75) });
+  const meanTest = refusal ? null : shiftedNullTest(sorted, meanFromCounts, 0, { resamples: B, stream: streamFor(s.seed, 'null-mean'), onProgress: progressSpan(s.onProgress, 0.75, 1) });
+  const estimates = {
+    median: summarise(reps.median, medianSorted(sorted), bca ? jackknifeQuantileSorted(sorted, 0.5) : undefined),
+    mean: summarise(reps.mean, m, jm?.mean),
     sd: summarise(reps.sd, sd, jm?.sd),
     lower: summarise(reps.lower, m - k * sd, combine(-1)),
     upper: summarise(reps.upper, m + k * sd, combine(1)),
-    medianTest, meanTest, distributions,
+  };
+  const names = { median: 'the median bias', mean: 'the mean bias', sd: 'the SD of the differences', lower: 'the lower limit of agreement', upper: 'the upper limit of agreement' };
+  const fallback = bcaFallbackWarning((Object.keys(estimates) as (keyof typeof estimates)[]).filter((key) => estimates[key].bcaFailed).map((key) => names[key]));
+  if (fallback) warnings.push(fallback);
+  return {
+    median: { ...estimates.median, pValue: medianTest?.pValue ?? null },
+    mean: { ...estimates.mean, pValue: meanTest?.pValue ?? null },
+    sd: estimates.sd,
+    lower: estimates.lower,
+    upper: estimates.upper,
+    medianTest, meanTest, distributions, warnings,
   };
 }
 

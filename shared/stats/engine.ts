@@ -3,7 +3,7 @@
  * The generator named here is seedrandom's xor128 (Marsaglia's xorshift128); see rng.ts.
  */
 export const GENERATOR = 'seedrandom xor128';
-export const ENGINE_VERSION = 'parallax-stats 1.1.0 (xor128)';
+export const ENGINE_VERSION = 'parallax-stats 1.2.0 (xor128)';
 
 export interface EngineInfo {
   version: string;

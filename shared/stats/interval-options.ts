@@ -1,5 +1,5 @@
 import { DEFAULT_RESAMPLES, MAX_RESAMPLES, MIN_RESAMPLES } from './bootstrap';
-import { choiceOption, integerOption, isLevel, LEVEL_RULE, numberOption, OptionError, seedOption } from './options';
+import { choiceOption, decimalsOption, integerOption, isLevel, LEVEL_RULE, numberOption, OptionError, seedOption } from './options';
 import type { ReferenceMethod } from './reference-limits';
 
 export type PartitionField = 'group' | 'sex' | 'ageBand';
@@ -15,6 +15,8 @@ export interface IntervalOptions {
   percentiles?: number[];
   /** Fields to test for partitioning (Harris & Boyd); default ['group'] when any row has a group. */
   partitionFields?: PartitionField[];
+  /** The analyte's reporting decimals: the results' step is 10^−decimals (resolution.ts); default: detected from the data. */
+  decimals?: number;
 }
 
 export interface ResolvedIntervalOptions {
@@ -27,6 +29,7 @@ export interface ResolvedIntervalOptions {
   lowerP: number | null;
   upperP: number | null;
   partitionFields: PartitionField[];
+  decimals: number | null;
 }
 
 /** A single percentile above 50 is an upper limit (lower null); one below 50 a lower limit (upper null). */
@@ -49,5 +52,6 @@ export function resolveIntervalOptions(o: IntervalOptions = {}, hasGroups = fals
     lowerP: single ? (percentiles[0] < 50 ? percentiles[0] / 100 : null) : percentiles[0] / 100,
     upperP: single ? (percentiles[0] >= 50 ? percentiles[0] / 100 : null) : percentiles[1] / 100,
     partitionFields: [...fields],
+    decimals: decimalsOption(o.decimals),
   };
 }

@@ -1,5 +1,5 @@
 import { progressSpan, type ProgressFn } from './bootstrap';
-import { harrisBoyd, type HarrisBoyd } from './harris-boyd';
+import { harrisBoyd, SD_RATIO_LIMIT, type HarrisBoyd } from './harris-boyd';
 import type { PartitionField, ResolvedIntervalOptions } from './interval-options';
 import type { IntervalRow, PartitionGroup, PartitionResult } from './interval-types';
 import { pointLimits, referenceInterval } from './reference-interval';
@@ -29,10 +29,11 @@ export function partitionField(
     for (let j = i + 1; j < summaries.length; j++) {
       const a = summaries[i];
       const b = summaries[j];
-      if (a.sd && b.sd) pairs.push(harrisBoyd({ ...a, sd: a.sd }, { ...b, sd: b.sd }));
+      if (a.sd !== null && b.sd !== null) pairs.push(harrisBoyd({ ...a, sd: a.sd }, { ...b, sd: b.sd }));
     }
   }
-  const head = pairs.reduce<HarrisBoyd | null>((best, p) => (!best || p.z / p.zCritical > best.z / best.zCritical ? p : best), null);
+  const strength = (p: HarrisBoyd): number => Math.max(p.z / p.zCritical, p.sdRatio / SD_RATIO_LIMIT);
+  const head = pairs.reduce<HarrisBoyd | null>((best, p) => (!best || strength(p) > strength(best) ? p : best), null);
   const recommended = pairs.some((p) => p.recommended);
   const groups: PartitionGroup[] = summaries.map((s) => ({ ...s, ...pointLimits(Float64Array.from(byGroup.get(s.group)!), o) }));
   const subgroup = recommended
@@ -41,6 +42,7 @@ export function partitionField(
     : [];
   return {
     field, z: head?.z ?? null, zCritical: head?.zCritical ?? null, sdRatio: head?.sdRatio ?? null, recommended, pairs, groups,
+    noSpread: summaries.filter((g) => g.sd === 0).map((g) => g.group),
     intervals: recommended ? subgroup.map((s) => ({ group: s.group, n: s.n, lower: s.lower, upper: s.upper, warnings: s.warnings })) : null,
   };
 }

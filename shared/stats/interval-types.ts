@@ -2,6 +2,7 @@ import type { EngineInfo } from './engine';
 import type { HarrisBoyd } from './harris-boyd';
 import type { PartitionField, ResolvedIntervalOptions } from './interval-options';
 import type { LimitResult } from './reference-interval';
+import type { Resolution } from './resolution';
 
 /** One reference value with its optional partition fields. */
 export interface IntervalRow {
@@ -33,6 +34,8 @@ export interface PartitionResult {
   recommended: boolean;
   pairs: HarrisBoyd[];
   groups: PartitionGroup[];
+  /** Subgroups whose values are all equal (SD 0); they are tested, with an infinite SD ratio. */
+  noSpread: string[];
   /** Full limits with CIs per subgroup, given when partitioning is recommended. */
   intervals: { group: string; n: number; lower: LimitResult | null; upper: LimitResult | null; warnings: string[] }[] | null;
 }
@@ -53,6 +56,8 @@ export interface IntervalResult {
   partition: PartitionResult | null;
   partitions: PartitionResult[];
   settings: ResolvedIntervalOptions;
+  /** The reporting step and the limits whose CI is narrower than it (resolution.ts). */
+  resolution: Resolution;
   warnings: string[];
   caution: string;
   engine: EngineInfo;

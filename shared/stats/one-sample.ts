@@ -1,5 +1,5 @@
 import { bootstrapStatistic, DEFAULT_RESAMPLES, MAX_RESAMPLES, MIN_RESAMPLES, type ProgressFn } from './bootstrap';
-import { summariseWithHistogram, type IntervalMethod } from './bootstrap-estimate';
+import { bcaFallbackWarning, summariseWithHistogram, type IntervalMethod } from './bootstrap-estimate';
 import { medianFromCounts } from './counts-stats';
 import { meanFromCounts } from './difference-bias';
 import { engineInfo, type EngineInfo } from './engine';
@@ -10,7 +10,9 @@ import { jsonClean } from './json-clean';
 import { choiceOption, integerOption, isLevel, LEVEL_RULE, numberOption, seedOption } from './options';
 import { sortedCopy } from './quantile';
 import { streamFor } from './rng';
-import { shiftedNullTest, type CountsStatistic } from './shifted-null-test';
+import { shiftedNullTest, testRefusal, type CountsStatistic } from './shifted-null-test';
+import { checkMagnitudes } from './magnitude';
+import { resolutionStep, type Resolution } from './resolution';
 
 /**
  * One-sample entry points: the shifted-null bootstrap test of the mean or median (or any shift-equivariant
@@ -25,10 +27,13 @@ export interface BootstrapTestResult {
   statistic: string;
   observed: number;
   nullValue: number;
-  pValue: number;
-  upperTail: number;
-  lowerTail: number;
-  nullDistribution: { bins: { from: number; to: number; count: number; tail: 'lower' | 'upper' | null }[]; lowerCutoff: number; upperCutoff: number; observed: number };
+  /** Null (with the reason in warnings) when the test is refused: too few values or all equal. */
+  pValue: number | null;
+  upperTail: number | null;
+  lowerTail: number | null;
+  nullDistribution: { bins: { from: number; to: number; count: number; tail: 'lower' | 'upper' | null }[]; lowerCutoff: number; upperCutoff: number; observed: number } | null;
+  resolution: Resolution;
+  warnings: string[];
   engine: EngineInfo;
 }
 
@@ -39,11 +44,23 @@ export function bootstrapTest(values: ArrayLike<number>, options: BootstrapTestO
   const chosen = options.statistic ?? 'median';
   const reader = typeof chosen === 'function' ? chosen : choiceOption('statistic', chosen, 'median', ['mean', 'median'] as const) === 'mean' ? meanFromCounts : medianFromCounts;
   if (values.length < 2) throw new RangeError('bootstrapTest requires at least 2 values');
-  const test = shiftedNullTest(sortedCopy(values), reader, nullValue, { resamples, stream: streamFor(seed, 'bootstrap-test'), onProgress });
+  checkMagnitudes(values, 'bootstrapTest');
+  const sorted = sortedCopy(values);
+  const refusal = testRefusal(sorted);
+  const resolution = { ...resolutionStep([values]), limitedEstimates: [] };
+  const statistic = typeof chosen === 'function' ? 'custom' : chosen;
+  if (refusal) {
+    const ones = new Int32Array(sorted.length).fill(1);
+    return jsonClean({
+      kind: 'bootstrap-test', n: values.length, statistic, observed: reader(sorted, ones, sorted.length), nullValue,
+      pValue: null, upperTail: null, lowerTail: null, nullDistribution: null, resolution, warnings: [refusal], engine: engineInfo(seed, resamples),
+    });
+  }
+  const test = shiftedNullTest(sorted, reader, nullValue, { resamples, stream: streamFor(seed, 'bootstrap-test'), onProgress });
   return jsonClean({
-    kind: 'bootstrap-test', n: values.length, statistic: typeof chosen === 'function' ? 'custom' : chosen,
+    kind: 'bootstrap-test', n: values.length, statistic,
     observed: test.observed, nullValue, pValue: test.pValue, upperTail: test.upperTail, lowerTail: test.lowerTail,
-    nullDistribution: test.nullDistribution, engine: engineInfo(seed, resamples),
+    nullDistribution: test.nullDistribution, resolution, warnings: [], engine: engineInfo(seed, resamples),
   });
 }
 
@@ -52,15 +69,18 @@ export interface BootstrapCiOptions { resamples?: number; seed?: string; level?:
 /** Percentile or BCa (jackknife acceleration) CI of any statistic of a sample. */
 export function bootstrapCi(
   values: ArrayLike<number>, statistic: (sample: Float64Array) => number, options: BootstrapCiOptions = {}, onProgress?: ProgressFn,
-): { estimate: number; ci: Interval | null; se: number; distribution: Histogram; engine: EngineInfo } {
+): { estimate: number; ci: Interval | null; se: number; distribution: Histogram; warnings: string[]; engine: EngineInfo } {
   const resamples = integerOption('resamples', options.resamples, DEFAULT_RESAMPLES, MIN_RESAMPLES, MAX_RESAMPLES);
   const seed = seedOption(options.seed);
   const level = numberOption('level', options.level, 0.95, isLevel, LEVEL_RULE);
   const interval = choiceOption('interval', options.interval, 'percentile', ['percentile', 'bca'] as const);
   if (values.length < 2) throw new RangeError('bootstrapCi requires at least 2 values');
+  checkMagnitudes(values, 'bootstrapCi');
   const data = Float64Array.from(values);
   const estimate = statistic(Float64Array.from(data));
   const replicates = bootstrapStatistic(data, statistic, { resamples, stream: streamFor(seed, 'bootstrap-ci'), onProgress });
   const jackknife = interval === 'bca' ? jackknifeStatistic(data, statistic) : undefined;
-  return jsonClean({ ...summariseWithHistogram(replicates, estimate, level, interval, jackknife), engine: engineInfo(seed, resamples) });
+  const { bcaFailed, ...summary } = summariseWithHistogram(replicates, estimate, level, interval, jackknife);
+  const fallback = bcaFailed ? bcaFallbackWarning(['the statistic']) : null;
+  return jsonClean({ ...summary, warnings: fallback ? [fallback] : [], engine: engineInfo(seed, resamples) });
 }

@@ -53,3 +53,8 @@ export const DEFAULT_SEED = 'parallax';
 
 export const isLevel = (v: number): boolean => v > 0 && v < 1;
 export const LEVEL_RULE = 'between 0 and 1 (exclusive)';
+
+/** The analyte's reporting decimals (−6 to 12: a step from 1,000,000 down to 1e-12), or null to detect the step from the data. */
+export function decimalsOption(value: unknown): number | null {
+  return value === undefined || value === null ? null : integerOption('decimals', value, 0, -6, 12);
+}

@@ -35,6 +35,8 @@ export interface RegressionResult {
   ciMethod: 'rank' | 'bootstrap' | 'jackknife';
   decisionLevelBias: Estimate[];
   undefinedResamples: number;
+  /** Names of the estimates whose BCa interval could not be formed (their CI is the percentile interval). */
+  bcaFailed: string[];
 }
 
 export function regression(x: Float64Array, y: Float64Array, options: RegressionOptions): RegressionResult {
@@ -56,6 +58,7 @@ export function regression(x: Float64Array, y: Float64Array, options: Regression
   const jack = needJackknife ? jackknifeFits(n, fit, statistics) : null;
   let cis: (Interval | null)[];
   let undefinedResamples = 0;
+  const bcaFailed: string[] = [];
   if (options.ciMethod === 'jackknife') {
     cis = estimates.map((e, k) => jackknifeInterval(e, jack![k], options.level));
   } else {
@@ -67,7 +70,11 @@ export function regression(x: Float64Array, y: Float64Array, options: Regression
       for (let k = 0; k < values.length; k++) reps[k][kept] = values[k];
       kept++;
     });
-    cis = estimates.map((e, k) => summariseReplicates(reps[k].subarray(0, kept), e, options.level, options.interval, jack?.[k]).ci);
+    cis = estimates.map((e, k) => {
+      const summary = summariseReplicates(reps[k].subarray(0, kept), e, options.level, options.interval, jack?.[k]);
+      if (summary.bcaFailed) bcaFailed.push(k === 0 ? 'the slope' : k === 1 ? 'the intercept' : `the bias at decision level ${levels[k - 2]}`);
+      return summary.ci;
+    });
   }
   const result: RegressionResult = {
     method: options.method,
@@ -77,6 +84,7 @@ export function regression(x: Float64Array, y: Float64Array, options: Regression
     ciMethod: options.ciMethod,
     decisionLevelBias: levels.map((_, k) => ({ estimate: estimates[k + 2], ci: cis[k + 2] })),
     undefinedResamples,
+    bcaFailed,
   };
   return table ? withRankCis(result, x, y, options.level, table) : result;
 }

@@ -1,5 +1,6 @@
 import { forEachResample, type ResampleSettings } from './bootstrap';
 import type { HistogramBin } from './histogram';
+import { decimalPlace, roundTo } from './precision';
 
 /**
  * Bootstrap test of a location statistic against a null value by shifting to the null
@@ -10,8 +11,20 @@ import type { HistogramBin } from './histogram';
  * Reported: upperTail = (upper + 1)/(B + 1), lowerTail = (lower + 1)/(B + 1) and the two-sided
  * pValue = min(1, (upper + lower + 1)/(B + 1)), i.e. (1 + #{|t* − null| ≥ |t − null|})/(B + 1):
  * the tail counts are summed and the +1 correction applied once (so pValue ≤ upperTail + lowerTail).
- * A replicate within 1e-9 of the data's scale of a cutoff counts as reaching it, so that floating-point
- * noise from the shift does not move whole atoms of a discrete (median) distribution across a cutoff.
+ * Ties are judged on the data's resolution, not its magnitude, so the test is translation invariant:
+ * the data are taken relative to their smallest value and rounded to their finest decimal place
+ * (precision.ts), which gives the same doubles wherever the data lie on the number line; the null
+ * replicate is t*(v) − t(v) + null, and a replicate counts as reaching a cutoff when it is within
+ * eps = max(h/(4n), 1e-12·range) of it, h = 10^−(finest decimal place). Means and medians of n values
+ * on a lattice of step h lie on a lattice of step h/n or h/2, so h/(4n) is less than half their spacing and
+ * more than the floating-point noise of the subtraction; 1e-12·range covers data with no decimal lattice.
+ *
+ * Refusal (testRefusal): with fewer than MIN_TEST_VALUES values, or all values equal, the bootstrap null
+ * distribution cannot reach the tail that a p-value below 5% needs, and the test would report
+ * 1/(B + 1), an artefact of B. MIN_TEST_VALUES = 6 is the smallest n at which the median of a resample
+ * can equal the most extreme value with probability below 2.5% (P(Binomial(n, 1/n) ≥ ⌊n/2⌋ + 1):
+ * 5.8% at n = 5, 0.87% at n = 6; checked in shifted-null-test.spec.ts), so that a two-sided 5% test
+ * is possible with atoms of the resampling distribution rather than beyond it.
  */
 export interface ShiftedNullTest {
   observed: number;
@@ -40,23 +53,28 @@ export function shiftedNullTest(
   const n = sorted.length;
   const ones = new Int32Array(n).fill(1);
   const observed = statistic(sorted, ones, n);
-  const shifted = sorted.map((v) => v + (nullValue - observed));
-  const scale = Math.max(1, Math.abs(sorted[0]), Math.abs(sorted[n - 1]));
-  const eps = 1e-9 * scale;
-  if (Math.abs(statistic(shifted, ones, n) - nullValue) > eps) {
+  const reference = sorted[0];
+  const place = Math.min(100, finestPlace(sorted));
+  const relative = sorted.map((v) => roundTo(v - reference, place));
+  const range = relative[n - 1] - relative[0];
+  const eps = Math.max(10 ** -place / (4 * n), 1e-12 * range);
+  const centre = statistic(relative, ones, n);
+  const shift = 3.5 * range + 1;
+  if (Math.abs(statistic(relative.map((v) => v + shift), ones, n) - (centre + shift)) > eps + 1e-12 * shift) {
     throw new RangeError('shiftedNullTest requires a shift-equivariant statistic');
   }
   const distance = Math.abs(observed - nullValue);
   const upperCutoff = nullValue + distance;
   const lowerCutoff = nullValue - distance;
+  const relativeDistance = Math.abs(centre - (nullValue - reference));
   const replicates = new Float64Array(settings.resamples);
   let upper = 0;
   let lower = 0;
   forEachResample(n, settings, (counts, b) => {
-    const t = statistic(shifted, counts, n);
-    replicates[b] = t;
-    if (t >= upperCutoff - eps) upper++;
-    if (t <= lowerCutoff + eps) lower++;
+    const moved = statistic(relative, counts, n) - centre;
+    replicates[b] = nullValue + moved;
+    if (moved >= relativeDistance - eps) upper++;
+    if (moved <= -relativeDistance + eps) lower++;
   });
   const B = settings.resamples;
   return {
@@ -66,6 +84,28 @@ export function shiftedNullTest(
     pValue: Math.min(1, (upper + lower + 1) / (B + 1)),
     nullDistribution: { ...tailBins(replicates, lowerCutoff, upperCutoff, eps), lowerCutoff, upperCutoff, observed },
   };
+}
+
+/** The fewest values for a shifted-null p-value (see above). */
+export const MIN_TEST_VALUES = 6;
+
+/** Why no p-value can be given for these sorted values, in words; null when the test applies. */
+export function testRefusal(sorted: ArrayLike<number>, what = 'values'): string | null {
+  const n = sorted.length;
+  if (n < MIN_TEST_VALUES) {
+    return `No p-value: the shifted-null bootstrap test needs at least ${MIN_TEST_VALUES} ${what} (have ${n}); with fewer, resampling cannot reach a 5% tail and the p-value would only reflect the number of resamples.`;
+  }
+  if (sorted[0] === sorted[n - 1]) {
+    return `No p-value: all ${n} ${what} are equal, so every resample gives the same value and the shifted-null bootstrap test has nothing to resample.`;
+  }
+  return null;
+}
+
+/** The finest decimal place among the values (0 when all are 0). */
+function finestPlace(values: ArrayLike<number>): number {
+  let place = -Infinity;
+  for (let i = 0; i < values.length; i++) place = Math.max(place, decimalPlace(values[i]));
+  return Number.isFinite(place) ? place : 0;
 }
 
 /**

@@ -1,9 +1,15 @@
+import { reportedDecimals } from './precision';
+
 /**
  * The pairwise slopes of Passing–Bablok regression, sorted once, each with the two rows it joins.
  * For rows i < j with x_i ≤ x_j (rows taken in order of x, then y): S_ij = (y_j − y_i)/(x_j − x_i);
  * a pair with equal x and different y has slope +∞; identical points (0/0) and slopes of exactly −1 are
  * left out (Passing & Bablok 1983). K = the number of slopes below −1.
- * Exact arithmetic on ties: inputs are compared as given (they carry the reported precision).
+ * Ties and −1 are judged at the reported precision (precision.ts), as the engine judges every tie: with
+ * D the decimals the values carry, the values become integers k = x·10^D and each slope is the quotient
+ * of two exact integers, so slopes equal in decimal (0.3/0.1 and 0.6/0.2) are equal doubles and a slope is
+ * −1 exactly when Δy = −Δx. Where the integers would pass 2^52 the values carry about as many digits as a
+ * double holds, and their binary differences are the reported precision.
  */
 export interface SlopeTable {
   slopes: Float64Array;
@@ -21,14 +27,18 @@ export function slopeTable(x: ArrayLike<number>, y: ArrayLike<number>): SlopeTab
   const a = new Int32Array(total);
   const b = new Int32Array(total);
   const leftOut: number[] = [];
+  const decimals = Math.max(reportedDecimals(x), reportedDecimals(y));
+  const kx = asIntegers(x, decimals);
+  const ky = kx && asIntegers(y, decimals);
+  const exact = kx !== null && ky !== null;
   let count = 0;
   for (let i = 0; i < n; i++) {
     for (let j = i + 1; j < n; j++) {
       const [lo, hi] = x[i] < x[j] || (x[i] === x[j] && y[i] <= y[j]) ? [i, j] : [j, i];
-      const dx = x[hi] - x[lo];
-      const dy = y[hi] - y[lo];
+      const dx = exact ? kx[hi] - kx[lo] : x[hi] - x[lo];
+      const dy = exact ? ky[hi] - ky[lo] : y[hi] - y[lo];
       const slope = dx === 0 ? (dy === 0 ? NaN : Infinity) : dy / dx;
-      if (Number.isNaN(slope) || slope === -1) {
+      if (Number.isNaN(slope) || (dx !== 0 && dy === -dx)) {
         leftOut.push(i, j);
         continue;
       }
@@ -52,4 +62,18 @@ export function slopeTable(x: ArrayLike<number>, y: ArrayLike<number>): SlopeTab
     if (slopes[k] < -1) belowMinusOne++;
   }
   return { slopes, first, second, leftOut: Int32Array.from(leftOut), belowMinusOne };
+}
+
+/** The values as integers of their last reported decimal, or null where that is not exact below 2^52. */
+function asIntegers(values: ArrayLike<number>, decimals: number): Float64Array | null {
+  if (decimals > 22) return null;
+  const scale = 10 ** decimals;
+  const out = new Float64Array(values.length);
+  for (let i = 0; i < values.length; i++) {
+    const scaled = values[i] * scale;
+    const k = Math.round(scaled);
+    if (!(Math.abs(k) < 2 ** 52) || Math.abs(scaled - k) > 1e-6) return null;
+    out[i] = k;
+  }
+  return out;
 }

@@ -1,5 +1,8 @@
 import { binomialCdf, binomialSf } from './binomial';
 import { jsonClean } from './json-clean';
+import { magnitudeProblem } from './magnitude';
+import { decimalsOption } from './options';
+import { resolutionStep, type Resolution } from './resolution';
 
 /**
  * Verification (transference) of a stated reference interval with local values (CLSI EP28-A3c practice,
@@ -20,10 +23,12 @@ export interface VerifyIntervalResult {
   probability: number;
   passRiskAt10Percent: number;
   advice: string;
+  /** The step of the values (no CI here, so nothing is limited by it). */
+  resolution: Resolution;
   warnings: string[];
 }
 
-export function verifyInterval(values: ArrayLike<number>, stated: { lower: number; upper: number; coverage?: number }): VerifyIntervalResult {
+export function verifyInterval(values: ArrayLike<number>, stated: { lower: number; upper: number; coverage?: number }, decimals?: number | null): VerifyIntervalResult {
   const { lower, upper } = stated;
   const coverage = stated.coverage ?? 0.95;
   if (!(Number.isFinite(lower) && Number.isFinite(upper) && lower < upper)) throw new RangeError('verifyInterval requires finite lower < upper');
@@ -31,6 +36,8 @@ export function verifyInterval(values: ArrayLike<number>, stated: { lower: numbe
   let above = 0;
   for (let i = 0; i < values.length; i++) {
     if (!Number.isFinite(values[i])) throw new RangeError(`verifyInterval requires finite values (value ${i + 1})`);
+    const problem = magnitudeProblem(values[i]);
+    if (problem) throw new RangeError(`verifyInterval: value ${i + 1}: ${problem}`);
     if (values[i] < lower) below++;
     else if (values[i] > upper) above++;
   }
@@ -46,6 +53,6 @@ export function verifyInterval(values: ArrayLike<number>, stated: { lower: numbe
     kind: 'verify-interval', n, outside, below, above, allowedOutside, accepted,
     probability: binomialSf(outside, n, 1 - coverage),
     passRiskAt10Percent: binomialCdf(allowedOutside, n, 0.1),
-    advice, warnings,
+    advice, resolution: { ...resolutionStep([values], decimalsOption(decimals)), limitedEstimates: [] }, warnings,
   });
 }
