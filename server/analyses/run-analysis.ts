@@ -2,6 +2,7 @@ import { analyzeComparison } from '../../shared/stats/analyze-comparison';
 import { analyzeInterval } from '../../shared/stats/analyze-interval';
 import { CAUTION } from '../../shared/stats/comparison-types';
 import { engineInfo } from '../../shared/stats/engine';
+import { magnitudeProblem } from '../../shared/stats/magnitude';
 import { verifyInterval } from '../../shared/stats/verify-interval';
 import { StudySettings } from '../../shared/schemas';
 import type { AnalysisInput } from '../specimens/input-hash';
@@ -18,6 +19,20 @@ export function missingResults(input: AnalysisInput): string[] {
   for (const r of input.rows) {
     if (r.excluded) continue;
     for (const f of fields) if (!has(r[f])) out.push(`row ${r.position}: the ${f === 'value' ? 'value' : `${f} result`} is empty; fill it or exclude the row with a reason`);
+  }
+  return out;
+}
+
+/** Results (excluded ones too: the sensitivity run uses them) the engine cannot compute with (magnitude.ts), named by grid row and field. */
+export function outOfRangeResults(input: AnalysisInput): string[] {
+  const fields = input.kind === 'method-comparison' ? (['comparative', 'candidate'] as const) : (['value'] as const);
+  const out: string[] = [];
+  for (const r of input.rows) {
+    for (const f of fields) {
+      const v = r[f];
+      const problem = has(v) ? magnitudeProblem(v) : null;
+      if (problem) out.push(`row ${r.position}: the ${f === 'value' ? 'value' : `${f} result`} ${problem}`);
+    }
   }
   return out;
 }
@@ -65,6 +80,8 @@ function verify(input: AnalysisInput) {
 export function runAnalysis(input: AnalysisInput, onProgress: Progress = () => {}): unknown {
   const missing = missingResults(input);
   if (missing.length) throw new Error(missing[0]);
+  const outOfRange = outOfRangeResults(input);
+  if (outOfRange.length) throw new Error(outOfRange[0]);
   switch (input.kind) {
     case 'method-comparison':
       return comparison(input, onProgress);
