@@ -8,7 +8,7 @@ beforeAll(async () => { h = await startHarness(); });
 afterAll(() => h.close());
 
 const DEMO_TITLES = [
-  'Glucose: Chemistry line 2 against line 1', 'Creatinine: Chemistry line 2 against line 1',
+  'Glucose: Chemistry line 2 against line 1', 'Creatinine: Chemistry line 2 against line 1', 'Sodium: Chemistry line 2 against line 1',
   'Creatinine reference interval, adults (Chemistry line 2)', 'Potassium: verify the stated interval (Chemistry line 2)',
   'Thyrotropin: verify the stated interval (Immunoassay 1)',
 ];

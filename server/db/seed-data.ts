@@ -26,6 +26,8 @@ export const DEMO_LABS = [
         allowableBiasSource: 'Laboratory goal set by the director (2026): 8 % bias at each decision level' },
       { name: 'Haemoglobin', unit: 'g/L', decimals: 0, decisionLevels: [70, 100, 180], allowableBiasAbsolute: null, allowableBiasPercent: 3,
         allowableBiasSource: 'Laboratory goal set by the director (2026): 3 % bias at each decision level' },
+      { name: 'Sodium', unit: 'mmol/L', decimals: 0, decisionLevels: [130, 150], allowableBiasAbsolute: 2, allowableBiasPercent: null,
+        allowableBiasSource: 'Laboratory goal set by the director (2026): 2 mmol/L at each decision level' },
     ],
     instruments: [
       { name: 'Chemistry line 1', model: 'Photometric chemistry analyzer (current)', serial: 'VH-CH-0017', location: 'Core laboratory, bench 2' },

@@ -48,6 +48,16 @@ const COMPARISONS: DemoComparison[] = [
     settings: { seed: 'vh-creatinine-2026', comparativeLot: 'CRE-2210', candidateLot: 'CRE-2264', runsFrom: '2026-11-03', runsTo: '2026-11-12', plannedSpecimens: 80 },
     finish: 'submitted',
   },
+  {
+    // Reported in whole mmol/L: the CIs of the median bias and of the bias at the decision levels collapse to
+    // one value, so the findings show what the reporting step allows.
+    title: 'Sodium: Chemistry line 2 against line 1',
+    analyte: 'Sodium',
+    purpose: 'Verify sodium on the new chemistry line; results are reported in whole mmol/L and the candidate reads about 1 mmol/L high (invented demo study).',
+    rows: pairs('vh-sodium', 60, 122, 158, 1, 1, 0.005, 0),
+    settings: { seed: 'vh-sodium-2026', comparativeLot: 'NA-3105', candidateLot: 'NA-3118', runsFrom: '2026-11-04', runsTo: '2026-11-11', plannedSpecimens: 60 },
+    finish: 'submitted',
+  },
 ];
 
 /** Invented reference values: log-normal around a median with a spread, per sex. Deterministic. */

@@ -4,7 +4,8 @@ import type { ComparisonFindings, StudyReport } from '../report-model';
 import { drawTable } from '../table';
 import { COLOR } from '../theme';
 import { VERDICT_WORDS } from '../words';
-import { decimalsOf } from './comparison-data';
+import { judgedOnSentence } from '../../../shared/types/resolution-words';
+import { decimalsOf, stepParagraph, stepRule, stepWords } from './comparison-data';
 import { cautionCallout } from './caution';
 
 const VERDICT_COLOR = { within: COLOR.good, inconclusive: COLOR.warm, exceeds: COLOR.bad } as const;
@@ -14,7 +15,9 @@ export function comparisonVerdict(layout: Layout, report: StudyReport, results: 
   const d = decimalsOf(report);
   const unit = report.analyte.unit;
   const level = percent(results.settings?.level ?? report.settings.confidenceLevel);
-  layout.heading('Findings at the decision levels', 150 + 22 * (results.decisionLevels?.length ?? 0));
+  const steps = stepWords(report, results);
+  layout.heading('Findings at the decision levels', 150 + 22 * (results.decisionLevels?.length ?? 0) + (steps.rule ? 70 : 0));
+  stepRule(layout, steps.rule);
   const levels = results.decisionLevels ?? [];
   if (!levels.length) {
     layout.paragraph('No medical decision levels were set, so no verdict is given; see the bias and regression below.');
@@ -23,7 +26,7 @@ export function comparisonVerdict(layout: Layout, report: StudyReport, results: 
       withUnit(num(l.level, d.value), unit),
       withUnit(num(l.bias.estimate, d.stat), unit),
       l.biasPercent === null ? '—' : `${num(l.biasPercent, 1)}%`,
-      range(l.bias.ci, d.stat),
+      l.judgedOn ? `${range(l.bias.ci, d.stat)}\njudged on\n${range(l.judgedOn, d.stat)}` : range(l.bias.ci, d.stat),
       l.allowable === null ? 'Not set' : `±${num(l.allowable, d.stat)}`,
       l.verdict ? VERDICT_WORDS[l.verdict] : 'No verdict (no allowable bias or no CI)',
     ]);
@@ -35,6 +38,10 @@ export function comparisonVerdict(layout: Layout, report: StudyReport, results: 
       size: 8.5,
       color: (r, c) => (c === 5 && levels[r].verdict ? VERDICT_COLOR[levels[r].verdict!] : undefined),
     });
+    levels.forEach((l, k) => {
+      const words = levelStepWords(withUnit(num(l.level, d.value), unit), l.judgedOn ? withUnit(range(l.judgedOn, d.stat), unit) : null, steps, k);
+      if (words) stepParagraph(layout, words);
+    });
     layout.paragraph(
       'Predicted bias at a level Xc is a + (b − 1)·Xc from the regression. Within: the whole CI lies inside ±allowable. ' +
       'Exceeds: the whole CI lies outside it. Inconclusive: the CI crosses a limit, so the data can neither show agreement nor its absence. ' +
@@ -43,4 +50,17 @@ export function comparisonVerdict(layout: Layout, report: StudyReport, results: 
     );
   }
   cautionCallout(layout);
+}
+
+/**
+ * Under the table, for a level whose CI is narrower than the step: on what interval its verdict was judged
+ * and why, or (with no verdict) that the CI says nothing finer than the step; null for any other level.
+ */
+function levelStepWords(at: string, judged: string | null, steps: ReturnType<typeof stepWords>, k: number): string | null {
+  const path = `decisionLevels.${k}`;
+  if (judged) {
+    const sentence = judgedOnSentence(judged, steps.step(path));
+    return `At ${at}: ${sentence.charAt(0).toLowerCase()}${sentence.slice(1)}; the data cannot show a difference finer than the step.`;
+  }
+  return steps.notes[path] ? `At ${at}: ${steps.notes[path]}` : null;
 }

@@ -5,7 +5,7 @@ import type { EstablishFindings, StudyReport } from '../report-model';
 import { drawTable } from '../table';
 import { COLOR } from '../theme';
 import { INTERVAL_METHOD_WORDS } from '../words';
-import { decimalsOf } from './comparison-data';
+import { decimalsOf, stepParagraph, stepRule, stepWords } from './comparison-data';
 import { cautionCallout } from './caution';
 
 /** The limits with their bootstrap and rank-based CIs, the method and why, and the counts. */
@@ -13,9 +13,11 @@ export function establishFindings(layout: Layout, report: StudyReport, results: 
   const d = decimalsOf(report);
   const unit = report.analyte.unit;
   const level = percent(results.settings?.level ?? report.settings.confidenceLevel);
-  layout.heading('Reference interval');
-  const limits = ([['Lower limit', results.lower], ['Upper limit', results.upper]] as [string, LimitResult | null | undefined][])
-    .filter((entry): entry is [string, LimitResult] => Boolean(entry[1]));
+  const steps = stepWords(report, results);
+  layout.heading('Reference interval', steps.rule ? 170 : 90);
+  stepRule(layout, steps.rule);
+  const limits = ([['Lower limit', results.lower, 'lower'], ['Upper limit', results.upper, 'upper']] as [string, LimitResult | null | undefined, string][])
+    .filter((entry): entry is [string, LimitResult, string] => Boolean(entry[1]));
   drawTable(layout, [
     { header: 'Limit', weight: 1 }, { header: 'Percentile', weight: 0.8, align: 'right' }, { header: `Estimate (${unit || 'units'})`, weight: 1, align: 'right' },
     { header: `${level} CI, bootstrap`, weight: 1.4, align: 'right' }, { header: `${level} CI, rank-based`, weight: 1.4, align: 'right' },
@@ -24,6 +26,7 @@ export function establishFindings(layout: Layout, report: StudyReport, results: 
     name, `${l.percentile}th`, num(l.estimate, d.stat), range(l.ci, d.stat), range(l.rankCi, d.stat),
     l.ranks ? `${l.ranks.lowerRank}–${l.ranks.upperRank} (${percent(l.ranks.coverage)})` : '—',
   ]), { size: 8.5 });
+  for (const [name, , path] of limits) if (steps.notes[path]) stepParagraph(layout, `${name}: bootstrap ${steps.notes[path]}`);
   if (!results.lower && !results.upper) layout.paragraph('No limit could be estimated; see the warnings.', { color: COLOR.bad });
   const method = INTERVAL_METHOD_WORDS[results.method];
   layout.keyValues([

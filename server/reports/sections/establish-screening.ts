@@ -4,7 +4,7 @@ import type { EstablishFindings, StudyReport } from '../report-model';
 import { drawTable } from '../table';
 import { COLOR } from '../theme';
 import { PARTITION_WORDS } from '../words';
-import { decimalsOf } from './comparison-data';
+import { decimalsOf, stepParagraph, stepWords } from './comparison-data';
 
 /** Outlier screening (flags only) and the Harris & Boyd partition tests with per-subgroup limits. */
 export function establishScreening(layout: Layout, report: StudyReport, results: EstablishFindings, flagged: number[]): void {
@@ -16,10 +16,11 @@ export function establishScreening(layout: Layout, report: StudyReport, results:
     ['Flagged rows', flagged.length ? flagged.join(', ') : 'None'],
   ]);
   const partitions = results.partitions ?? [];
+  const { notes } = stepWords(report, results);
   if (!partitions.length) {
     layout.paragraph('No partition was tested.');
   }
-  for (const p of partitions) {
+  partitions.forEach((p, k) => {
     const field = PARTITION_WORDS[p.field] ?? p.field;
     layout.subheading(`Partition by ${field.toLowerCase()} (Harris & Boyd)`);
     layout.paragraph(
@@ -39,6 +40,10 @@ export function establishScreening(layout: Layout, report: StudyReport, results:
         i.group, String(i.n),
         withCi(i.lower, d), withCi(i.upper, d),
       ]));
+      p.intervals.forEach((i, g) => (['lower', 'upper'] as const).forEach((end) => {
+        const note = notes[`partitions.${k}.intervals.${g}.${end}`];
+        if (note) stepParagraph(layout, `${field} ${i.group}, ${end} limit: bootstrap ${note}`);
+      }));
     }
-  }
+  });
 }

@@ -20,12 +20,12 @@ const blankRow = (position: number): ReportRow => ({
   sex: null, ageBand: null, excluded: false, exclusionReason: null, note: '',
 });
 
-/** Glucose pairs over 2–25 mmol/L with a proportional bias (y ≈ 1.03x + 0.02), row 7 excluded. */
-export function comparisonRows(count: number): ReportRow[] {
+/** Glucose pairs over 2–25 mmol/L with a proportional bias (y ≈ 1.03x + 0.02), row 7 excluded; reported to `decimals` (0.1 mmol/L). */
+export function comparisonRows(count: number, decimals = 1): ReportRow[] {
   const next = sequence(20261202);
   return Array.from({ length: count }, (_, k) => {
-    const x = Number((2 + 23 * next()).toFixed(1));
-    const y = Number((1.03 * x + 0.02 + (next() - 0.5) * 0.3).toFixed(1));
+    const x = Number((2 + 23 * next()).toFixed(decimals));
+    const y = Number((1.03 * x + 0.02 + (next() - 0.5) * 0.3).toFixed(decimals));
     const excluded = k === 6;
     return {
       ...blankRow(k + 1), comparative: x, candidate: y, excluded,
@@ -64,39 +64,60 @@ export const COMPARISON_SETTINGS: StudySettingsPatch = {
 };
 
 /** A method comparison of `count` pairs, analysed by analyzeComparison as the server's worker would. */
-export function comparisonReport(count = 40, patch: StudySettingsPatch = {}): StudyReport {
+export function comparisonReport(count = 40, patch: StudySettingsPatch = {}, rows = comparisonRows(count)): StudyReport {
   const settings = StudySettings.parse({ ...COMPARISON_SETTINGS, ...patch });
-  const rows = comparisonRows(count);
   const results = analyzeComparison(rows.map((r) => ({
     x: r.comparative!, y: r.candidate!, label: r.label, excluded: r.excluded, exclusionReason: r.exclusionReason ?? undefined,
   })), {
     resamples: settings.resamples, regressionResamples: settings.regressionResamples, seed: settings.seed, level: settings.confidenceLevel,
     regression: settings.regression, demingRatio: settings.demingRatio, difference: settings.differenceType,
     decisionLevels: settings.decisionLevels, allowableBias: settings.allowableBiasAbsolute ?? undefined,
-    allowableBiasPercent: settings.allowableBiasPercent ?? undefined,
+    allowableBiasPercent: settings.allowableBiasPercent ?? undefined, decimals: settings.decimals,
   });
   return { ...base('method-comparison', settings, rows), results };
 }
 
-/** Sodium-like values (mmol/L) for reference intervals: `count` values, every 15th excluded. */
-export function intervalRows(count: number): ReportRow[] {
+/**
+ * Sodium pairs in whole mmol/L over 125–155 with a constant bias of about +1 mmol/L and little noise,
+ * so the bootstrap CIs of the median bias and of the decision-level bias collapse to one value.
+ */
+export function sodiumRows(count: number): ReportRow[] {
+  const next = sequence(11);
+  const noise = () => (next() + next() + next() - 1.5) * 1.2;
+  return Array.from({ length: count }, (_, k) => {
+    const truth = 125 + 30 * next();
+    return { ...blankRow(k + 1), comparative: Math.round(truth + noise()), candidate: Math.round(truth + 1 + noise()) };
+  });
+}
+
+/** A sodium comparison in whole mmol/L (decisions at 130 and 150, allowable bias 2 mmol/L), analysed as the worker would. */
+export function sodiumComparisonReport(count = 60): StudyReport {
+  const report = comparisonReport(count, {
+    decimals: 0, decisionLevels: [130, 150], allowableBiasAbsolute: 2, allowableBiasPercent: null,
+    allowableBiasSource: 'Laboratory goal set by the director (2026): 2 mmol/L at each decision level',
+  }, sodiumRows(count));
+  return { ...report, study: { ...report.study, title: 'Sodium, serum: new chemistry analyser against the core-laboratory analyser' }, analyte: { name: 'Sodium', unit: 'mmol/L' } };
+}
+
+/** Sodium-like values (mmol/L) for reference intervals: `count` values, every 15th excluded; `spread` the SD, `shift` the men's offset. */
+export function intervalRows(count: number, spread = 2.4, shift = 0.4): ReportRow[] {
   const next = sequence(7001);
   return Array.from({ length: count }, (_, k) => {
     const z = Array.from({ length: 12 }, next).reduce((a, b) => a + b, 0) - 6;
     const excluded = k % 15 === 14;
     return {
-      ...blankRow(k + 1), value: Number((140 + 2.4 * z + (k % 2 ? 0.4 : 0)).toFixed(0)), sex: k % 2 ? 'M' : 'F',
+      ...blankRow(k + 1), value: Number((140 + spread * z + (k % 2 ? shift : 0)).toFixed(0)), sex: k % 2 ? 'M' : 'F',
       ageBand: k % 3 ? '18–64' : '65+', excluded, exclusionReason: excluded ? 'On diuretics (questionnaire)' : null,
     };
   });
 }
 
-export function establishReport(count = 130): StudyReport {
+/** An establishment from `rows` (by default 2.4 mmol/L wide, men 0.4 higher: one common interval). */
+export function establishReport(count = 130, rows = intervalRows(count)): StudyReport {
   const settings = StudySettings.parse({ resamples: 1000, seed: 'report-test', decimals: 0, confidenceLevel: 0.9, partitionFields: ['sex'], populationDescription: 'Healthy adult volunteers, fasting, from the laboratory’s catchment area', reagentLot: 'NA-2611' });
-  const rows = intervalRows(count);
   const results = analyzeInterval(rows.map((r) => ({ value: r.value!, sex: r.sex ?? undefined, excluded: r.excluded })), {
     resamples: settings.resamples, seed: settings.seed, level: settings.confidenceLevel, method: settings.intervalMethod,
-    percentiles: settings.percentiles, partitionFields: settings.partitionFields,
+    percentiles: settings.percentiles, partitionFields: settings.partitionFields, decimals: settings.decimals,
   });
   const report = base('interval-establish', settings, rows);
   return { ...report, study: { ...report.study, title: 'Sodium, serum: local reference interval' }, analyte: { name: 'Sodium', unit: 'mmol/L' }, results };
@@ -106,7 +127,7 @@ export function verifyReport(count = 20, stated = { lower: 137, upper: 143 }): S
   const settings = StudySettings.parse({ decimals: 0, statedLower: stated.lower, statedUpper: stated.upper, statedSource: 'Manufacturer’s insert, rev. 2025-06' });
   const rows = intervalRows(count);
   const used = rows.filter((r) => !r.excluded);
-  const result = verifyInterval(used.map((r) => r.value!), stated);
+  const result = verifyInterval(used.map((r) => r.value!), stated, settings.decimals);
   const outsidePositions = used.filter((r) => r.value! < stated.lower || r.value! > stated.upper).map((r) => r.position);
   const report = base('interval-verify', settings, rows);
   return {

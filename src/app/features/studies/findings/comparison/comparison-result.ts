@@ -1,5 +1,6 @@
 import type { Study } from '../../../../../../shared/schemas';
 import type { ComparisonResult } from './engine-types';
+import { estimateStep, narrowCiNotes, resolutionRule } from '../../../../../../shared/types/resolution-words';
 
 /**
  * The results of a method-comparison analysis as the API returns them: the engine's result
@@ -33,4 +34,19 @@ export function unitsOf(study: Pick<Study, 'settings' | 'analyteUnit'>, result: 
 /** A value with its unit: "0.12 mmol/L", "1.5 %". */
 export function withUnit(text: string, unit: string): string {
   return unit ? `${text} ${unit}` : text;
+}
+
+/**
+ * What the reporting step allows (DOMAIN.md, "Coarse results"): the words beside each estimate whose CI is
+ * narrower than one step, keyed by its path; the rule to state once above the findings (null when no
+ * estimate is limited); and the step of an estimate in words. Results stored before the engine reported
+ * its step (engine 1.1.0) have no resolution, so all three say nothing.
+ */
+export function stepWords(result: Pick<ComparisonResult, 'resolution'>, u: Units) {
+  const resolution = result.resolution ?? null;
+  return {
+    notes: narrowCiNotes(resolution, u.unit, u.difference),
+    rule: resolutionRule(resolution, u.unit, u.difference),
+    step: (path: string): string => (resolution ? estimateStep(resolution, path, u.unit, u.difference) : ''),
+  };
 }

@@ -9,7 +9,7 @@ const core = (shift = 0): ComparisonCore => ({
   sd: { estimate: 0.3, ci: [0.25, 0.36] },
   limitsOfAgreement: { multiplier: 1.96, lower: { estimate: -0.39, ci: [-0.5, -0.3] }, upper: { estimate: 0.79, ci: null } },
   regression: { method: 'deming', demingRatio: 1.5, slope: { estimate: 1.012, ci: [0.99, 1.03] }, intercept: { estimate: 0.05, ci: [-0.1, 0.2] }, linearityP: null, ciMethod: 'bootstrap', correlation: 0.99876 },
-  decisionLevels: [{ level: 7, bias: { estimate: 0.13, ci: [0.05, 0.2] }, biasPercent: 1.9, allowable: 0.28, verdict: 'within' }],
+  decisionLevels: [{ level: 7, bias: { estimate: 0.13, ci: [0.05, 0.2] }, biasPercent: 1.9, allowable: 0.28, verdict: 'within', judgedOn: null }],
 });
 
 describe('summary rows', () => {
@@ -38,6 +38,21 @@ describe('summary rows', () => {
     expect(regressionRows(pb, units)[2]).toEqual({ name: 'Linearity (cusum test)', value: 'no sign of deviation', ci: '', p: '0.420' });
     pb.regression = { ...pb.regression, linearityP: 0.01 };
     expect(regressionRows(pb, units)[2].value).toBe('deviates from a straight line');
+  });
+
+  it('puts the words of a CI narrower than one step beside the estimates it names, and on no other', () => {
+    const notes = { 'bias.median': 'CI narrower than one reporting step (1 mmol/L): the data cannot show a difference finer than the step.', 'regression.slope': 'slope note' };
+    const agreement = agreementRows(core(), units, notes);
+    expect(agreement.map((r) => r.note)).toEqual([undefined, notes['bias.median'], undefined, undefined, undefined]);
+    expect(regressionRows(core(), units, notes).map((r) => r.note)).toEqual(['slope note', undefined, undefined]);
+    expect(agreementRows(core(), units).every((r) => r.note === undefined)).toBe(true);
+  });
+
+  it('marks a limited estimate in the column of the findings, not in the column with every row', () => {
+    const rows = sensitivityRows(core(), core(1), units, { 'bias.median': 'x', 'decisionLevels.0': 'y' });
+    expect(rows[2]).toEqual({ name: 'Median bias', main: '0.15 mmol/L (0.10 to 0.20), CI narrower than one reporting step', all: '0.15 mmol/L (0.10 to 0.20)' });
+    expect(rows.at(-1)!.main).toBe('0.13 mmol/L (0.05 to 0.20), CI narrower than one reporting step');
+    expect(rows[1].main).toBe('0.20 mmol/L (0.10 to 0.30)');
   });
 
   it('puts the estimates without and with the excluded rows side by side, decision levels included', () => {

@@ -1,6 +1,7 @@
 import type { DecisionLevelResult, TestedEstimate, Verdict } from './engine-types';
 import { formatCi, formatNumber, formatP, levelLabel } from './number-format';
 import { Units, withUnit } from './comparison-result';
+import { judgedOnSentence, narrowCiSentence } from '../../../../../../shared/types/resolution-words';
 
 export type Tone = Verdict | 'none';
 
@@ -22,13 +23,23 @@ export function verdictView(verdict: Verdict | null): VerdictView {
   return VIEWS[verdict ?? 'none'];
 }
 
-/** One decision level in a sentence: the predicted bias, its CI and what that says against the allowable bias. */
-export function levelSentence(d: DecisionLevelResult, units: Units, level: number): string {
+/**
+ * One decision level in a sentence: the predicted bias, its CI and what that says against the allowable bias.
+ * When the CI is narrower than the reporting step the verdict was judged on `judgedOn` (the CI widened to the
+ * estimate ± half a step), and the sentence says so; `step` is that step in words ("1 mmol/L").
+ */
+export function levelSentence(d: DecisionLevelResult, units: Units, level: number, step = ''): string {
   const at = withUnit(formatNumber(d.level, units.decimals - 1), units.unit);
   const bias = withUnit(formatNumber(d.bias.estimate, units.decimals), units.unit);
   const ci = `${levelLabel(level)} CI ${formatCi(d.bias.ci, units.decimals)}`;
   const head = `At ${at} the predicted bias is ${bias} (${ci})`;
   const limit = d.allowable === null ? '' : `±${withUnit(formatNumber(d.allowable, units.decimals), units.unit)}`;
+  if (d.judgedOn && d.verdict) {
+    const judged = `${head}. ${judgedOnSentence(withUnit(formatCi(d.judgedOn, units.decimals), units.unit), step)}`;
+    if (d.verdict === 'within') return `${judged}: that whole interval lies within the allowable ${limit}.`;
+    if (d.verdict === 'exceeds') return `${judged}: that whole interval lies beyond the allowable ${limit}.`;
+    return `${judged}: that interval crosses the allowable ${limit}, so these data cannot settle it.`;
+  }
   switch (d.verdict) {
     case 'within':
       return `${head}: the whole CI lies within the allowable ${limit}.`;
@@ -55,14 +66,21 @@ export function overallSentence(levels: readonly DecisionLevelResult[]): string 
   return `${parts.join('; ')}.`;
 }
 
-/** The median bias with its CI and the shifted-null bootstrap test against zero. */
-export function medianSentence(median: TestedEstimate, units: Units, level: number, resamples: number): string {
+/** The median bias with its CI and the shifted-null bootstrap test against zero; `narrowStep`, the step its CI is narrower than. */
+export function medianSentence(median: TestedEstimate, units: Units, level: number, resamples: number, narrowStep = ''): string {
   const bias = withUnit(formatNumber(median.estimate, units.differenceDecimals), units.difference);
   const ci = formatCi(median.ci, units.differenceDecimals);
   const p = formatP(median.pValue);
   const resampled = resamples.toLocaleString('en-US');
-  return `Median bias ${bias} (${levelLabel(level)} CI ${ci}). Shifted-null bootstrap test of a median bias of 0: p ${p.startsWith('<') ? p : `= ${p}`} (${resampled} resamples).`;
+  const narrow = narrowStep ? ` ${narrowCiSentence(narrowStep)}` : '';
+  const test = median.pValue === null || median.pValue === undefined
+    ? `Shifted-null bootstrap test of a median bias of 0: ${NO_P_VALUE}.`
+    : `Shifted-null bootstrap test of a median bias of 0: p ${p.startsWith('<') ? p : `= ${p}`} (${resampled} resamples).`;
+  return `Median bias ${bias} (${levelLabel(level)} CI ${ci}).${narrow} ${test}`;
 }
+
+/** Why a shifted-null test shows no p-value: the engine refuses it (fewer than 6 differences, or all equal) and says so in the warnings. */
+export const NO_P_VALUE = 'no p-value, since there are too few differences or all are equal (see the warnings)';
 
 /** The reminder under the test: a p-value is not a verdict. */
 export const NOT_EQUIVALENCE =

@@ -1,4 +1,5 @@
 import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
+import { MatIconModule } from '@angular/material/icon';
 import type { Analysis, Study } from '../../../../../../shared/schemas';
 import { Notices } from '../../../../core/notify/notices';
 import { ErrorBanner } from '../../../../ui/error-banner';
@@ -9,7 +10,7 @@ import { percentileWords } from '../setup/percentile-choices';
 import { valueFormat } from './interval-format';
 import { IntervalOutliers } from './interval-outliers';
 import { IntervalPlots } from './interval-plots';
-import { asEstablish } from './interval-result';
+import { asEstablish, intervalStepWords } from './interval-result';
 import { METHOD_WORDS } from './interval-wording';
 import { LimitsTable } from './limits-table';
 import { savedRows } from './saved-rows';
@@ -20,13 +21,16 @@ import { PartitionPanel } from './partition-panel';
   selector: 'app-establish-findings',
   styleUrl: './interval-panel.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [ErrorBanner, LimitsTable, PartitionPanel, IntervalOutliers, IntervalPlots],
+  imports: [MatIconModule, ErrorBanner, LimitsTable, PartitionPanel, IntervalOutliers, IntervalPlots],
   template: `
     @if (result(); as r) {
       <section class="panel" aria-labelledby="limits-heading" data-testid="interval-limits">
         <h2 id="limits-heading">Reference limits: {{ percentiles() }}</h2>
         <p data-testid="interval-counts">n = {{ r.n }} analysed of {{ r.nTotal }} entered; {{ r.excludedCount }} excluded with a reason.</p>
-        <app-limits-table [lower]="r.lower" [upper]="r.upper" [decimals]="format().decimals" [unit]="format().unit" [confidence]="r.settings.level" />
+        @if (steps().rule; as rule) {
+          <p class="resolution-rule" data-testid="resolution-rule"><mat-icon aria-hidden="true">straighten</mat-icon><span>{{ rule }}</span></p>
+        }
+        <app-limits-table [lower]="r.lower" [upper]="r.upper" [lowerNote]="steps().notes['lower'] ?? ''" [upperNote]="steps().notes['upper'] ?? ''" [decimals]="format().decimals" [unit]="format().unit" [confidence]="r.settings.level" />
         <p class="small" data-testid="interval-method">{{ methodText() }}@if (r.boxCoxLambda !== null) { Box–Cox λ = {{ r.boxCoxLambda.toFixed(2) }}.}</p>
         <p class="small">{{ level() }} CIs; the bootstrap used {{ r.settings.resamples.toLocaleString('en') }} resamples with seed {{ r.settings.seed }}.</p>
         @if (r.warnings.length > 0) {
@@ -37,7 +41,7 @@ import { PartitionPanel } from './partition-panel';
         }
       </section>
       @if (r.partitions.length > 0) {
-        <app-partition-panel [partitions]="r.partitions" [decimals]="format().decimals" [unit]="format().unit" [confidence]="r.settings.level" />
+        <app-partition-panel [partitions]="r.partitions" [stepNotes]="steps().notes" [decimals]="format().decimals" [unit]="format().unit" [confidence]="r.settings.level" />
       }
       <app-interval-outliers [result]="r" [rows]="specimens.rows()" [decimals]="format().decimals" [canExclude]="current() && studyStore.editable()" (excluded)="exclude($event)" />
       <app-interval-plots [result]="r" [rows]="current() ? specimens.rows() : null" [unit]="format().unit" [label]="format().label" />
@@ -59,6 +63,8 @@ export class EstablishFindings {
   private readonly notices = inject(Notices);
   protected readonly result = computed(() => asEstablish(this.results()));
   protected readonly format = computed(() => valueFormat(this.study()));
+  /** What the reporting step allows: the rule once above the limits, and the words beside each limited limit. */
+  protected readonly steps = computed(() => intervalStepWords(this.result()!, this.format().unit));
   protected readonly percentiles = computed(() => percentileWords(this.result()!.percentiles));
   protected readonly level = computed(() => levelLabel(this.result()!.settings.level));
   protected readonly methodText = computed(() => {

@@ -1,5 +1,6 @@
 import type { IntervalResult } from '../../../../../../shared/stats/interval-types';
 import type { VerifyIntervalResult } from '../../../../../../shared/stats/verify-interval';
+import { narrowCiNotes, resolutionRule } from '../../../../../../shared/types/resolution-words';
 
 /** An establishment's results as the API returns them: the engine's result plus the flagged rows' grid positions. */
 export type EstablishResult = IntervalResult & { outlierPositions?: number[] };
@@ -20,4 +21,14 @@ export function asEstablish(results: unknown): EstablishResult | null {
 export function asVerify(results: unknown): VerifyResult | null {
   const r = results as Partial<VerifyIntervalResult> | null;
   return r && r.kind === 'verify-interval' ? (r as VerifyResult) : null;
+}
+
+/**
+ * What the reporting step allows: the words beside each limit whose CI is narrower than one step, keyed by
+ * its path ('upper', 'partitions.0.intervals.1.lower'), and the rule to state once above the limits (null
+ * when no limit is limited, and for results stored before the engine reported its step).
+ */
+export function intervalStepWords(result: Pick<IntervalResult, 'resolution'>, unit: string): { notes: Readonly<Partial<Record<string, string>>>; rule: string | null } {
+  const resolution = result.resolution ?? null;
+  return { notes: narrowCiNotes(resolution, unit), rule: resolutionRule(resolution, unit) };
 }

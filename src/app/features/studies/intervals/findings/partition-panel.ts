@@ -27,7 +27,7 @@ import { PARTITION_FIELD_WORDS, partitionWords } from './interval-wording';
         @if (p.intervals) {
           @for (i of p.intervals; track i.group) {
             <h3>Limits for {{ p.name }} {{ i.group }} (n = {{ i.n }})</h3>
-            <app-limits-table [lower]="i.lower" [upper]="i.upper" [decimals]="decimals()" [unit]="unit()" [confidence]="confidence()" [testId]="'limits-' + p.field + '-' + i.group" />
+            <app-limits-table [lower]="i.lower" [upper]="i.upper" [lowerNote]="i.lowerNote" [upperNote]="i.upperNote" [decimals]="decimals()" [unit]="unit()" [confidence]="confidence()" [testId]="'limits-' + p.field + '-' + i.group" />
             @for (w of i.warnings; track $index) { <p class="small">{{ w }}</p> }
           }
         }
@@ -40,9 +40,11 @@ export class PartitionPanel {
   readonly decimals = input.required<number>();
   readonly unit = input('');
   readonly confidence = input.required<number>();
+  /** Words beside the limits whose CI is narrower than one reporting step, keyed 'partitions.<p>.intervals.<g>.lower' (intervalStepWords). */
+  readonly stepNotes = input<Readonly<Partial<Record<string, string>>>>({});
 
   protected readonly fields = computed(() =>
-    this.partitions().map((p) => ({
+    this.partitions().map((p, k) => ({
       field: p.field,
       name: PARTITION_FIELD_WORDS[p.field] ?? p.field,
       words: partitionWords(p),
@@ -51,7 +53,13 @@ export class PartitionPanel {
         mean: formatNumber(g.mean, this.decimals()), sd: formatNumber(g.sd, this.decimals()),
         lower: formatNumber(g.lower, this.decimals()), upper: formatNumber(g.upper, this.decimals()),
       })),
-      intervals: p.recommended ? p.intervals : null,
+      intervals: p.recommended && p.intervals
+        ? p.intervals.map((i, g) => ({
+          ...i,
+          lowerNote: this.stepNotes()[`partitions.${k}.intervals.${g}.lower`] ?? '',
+          upperNote: this.stepNotes()[`partitions.${k}.intervals.${g}.upper`] ?? '',
+        }))
+        : null,
     })),
   );
 }

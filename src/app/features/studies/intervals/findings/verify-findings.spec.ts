@@ -18,6 +18,7 @@ function result(outside: number, accepted: boolean): VerifyResult {
     kind: 'verify-interval', n: 20, outside, below: outside, above: 0, allowedOutside: 2, accepted,
     probability: accepted ? 0.642 : 0.075, passRiskAt10Percent: 0.677,
     advice: accepted ? 'Accepted: the stated interval may be transferred.' : 'Not accepted: test 20 more reference individuals; if that also fails, re-examine the population and methods or establish the interval locally.',
+    resolution: { increment: 0.1, source: 'analyte', limitedEstimates: [] },
     warnings: [], excludedCount: 0, outsidePositions: [], stated: { lower: 3.5, upper: 5.1, source: "Manufacturer's insert, edition 7" }, caution: '',
   };
 }

@@ -1,8 +1,9 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { DIFFERENCE_LABELS } from '../../../study-text';
-import { ComparisonFindingsResult, Units } from '../comparison-result';
+import { ComparisonFindingsResult, Units, stepWords } from '../comparison-result';
 import { formatNumber, formatP, levelLabel } from '../number-format';
 import { agreementRows, regressionName, regressionRows } from '../summary-rows';
+import { NO_P_VALUE } from '../verdict-wording';
 
 /** (c) The tables: bias and agreement, the tests of the differences, and the regression. */
 @Component({
@@ -17,8 +18,9 @@ export class EstimateTables {
 
   protected readonly ciLabel = computed(() => `${levelLabel(this.result().settings.level)} CI`);
   protected readonly difference = computed(() => DIFFERENCE_LABELS[this.result().differenceType]);
-  protected readonly agreement = computed(() => agreementRows(this.result(), this.units()));
-  protected readonly regression = computed(() => regressionRows(this.result(), this.units()));
+  private readonly notes = computed(() => stepWords(this.result(), this.units()).notes);
+  protected readonly agreement = computed(() => agreementRows(this.result(), this.units(), this.notes()));
+  protected readonly regression = computed(() => regressionRows(this.result(), this.units(), this.notes()));
   protected readonly method = computed(() => regressionName(this.result(), this.result().settings.demingRatioConvention));
   protected readonly ciMethod = computed(() => {
     const m = this.result().regression.ciMethod;
@@ -30,8 +32,8 @@ export class EstimateTables {
     const w = r.wilcoxon;
     const m = r.biasTests.median;
     return [
-      { name: 'Shifted-null bootstrap test, median bias = 0', detail: m ? `observed ${formatNumber(m.observed, this.units().differenceDecimals)} ${this.units().difference}` : 'not run', p: formatP(m?.pValue) },
-      { name: 'Shifted-null bootstrap test, mean bias = 0', detail: r.biasTests.mean ? `observed ${formatNumber(r.biasTests.mean.observed, this.units().differenceDecimals)} ${this.units().difference}` : 'not run', p: formatP(r.biasTests.mean?.pValue) },
+      { name: 'Shifted-null bootstrap test, median bias = 0', detail: m ? `observed ${formatNumber(m.observed, this.units().differenceDecimals)} ${this.units().difference}` : NO_P_VALUE, p: formatP(m?.pValue) },
+      { name: 'Shifted-null bootstrap test, mean bias = 0', detail: r.biasTests.mean ? `observed ${formatNumber(r.biasTests.mean.observed, this.units().differenceDecimals)} ${this.units().difference}` : NO_P_VALUE, p: formatP(r.biasTests.mean?.pValue) },
       { name: 'Sign test', detail: `${s.positive} above, ${s.negative} below, ${s.zeros} equal`, p: formatP(s.pValue) },
       { name: 'Wilcoxon signed-rank test', detail: w.statistic === null ? 'not run' : `V = ${formatNumber(w.statistic, 1)}, n = ${w.n}, ${w.method === 'exact' ? 'exact' : 'normal approximation'}`, p: formatP(w.pValue) },
     ];

@@ -1,5 +1,5 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
-import { ComparisonFindingsResult, Units } from '../comparison-result';
+import { ComparisonFindingsResult, Units, stepWords } from '../comparison-result';
 import { sensitivityRows } from '../summary-rows';
 
 /** (b) Sensitivity: the main estimates without the excluded rows beside the same estimates with every row. */
@@ -34,7 +34,7 @@ export class SensitivityPanel {
 
   protected readonly rows = computed(() => {
     const r = this.result();
-    return r.sensitivity ? sensitivityRows(r, r.sensitivity, this.units()) : null;
+    return r.sensitivity ? sensitivityRows(r, r.sensitivity, this.units(), stepWords(r, this.units()).notes) : null;
   });
   protected readonly excluded = computed(() => {
     const count = this.result().excluded.count;
