@@ -1,5 +1,19 @@
-import type { ComparisonFindingsResult } from '../app/features/studies/findings/comparison/comparison-result';
+import { type Type } from '@angular/core';
+import { TestBed } from '@angular/core/testing';
+import type { ComparisonFindingsResult, Units } from '../app/features/studies/findings/comparison/comparison-result';
 import type { EstablishResult } from '../app/features/studies/intervals/findings/interval-result';
+
+/** How sodium findings write their numbers: mmol/L, one decimal more than the analyte's 0. */
+export const SODIUM_UNITS: Units = { unit: 'mmol/L', difference: 'mmol/L', decimals: 1, differenceDecimals: 1, percent: false };
+
+/** An async render of a findings component with these result and units inputs. */
+export async function renderFindings<T>(component: Type<T>, result: unknown, units: Units = SODIUM_UNITS): Promise<HTMLElement> {
+  const fixture = TestBed.createComponent(component);
+  fixture.componentRef.setInput('result', result);
+  fixture.componentRef.setInput('units', units);
+  await fixture.whenStable();
+  return fixture.nativeElement as HTMLElement;
+}
 
 /**
  * Findings of whole-mmol/L sodium for the client's tests, written out by hand in the shape the engine

@@ -1,17 +1,11 @@
-import { TestBed } from '@angular/core/testing';
-import { fineGrained, sodiumComparison, storedBeforeResolution } from '../../../../../../testing/coarse-results';
-import type { ComparisonFindingsResult, Units } from '../comparison-result';
+import { fineGrained, renderFindings, sodiumComparison, storedBeforeResolution } from '../../../../../../testing/coarse-results';
+import type { ComparisonFindingsResult } from '../comparison-result';
 import { EstimateTables } from './estimate-tables';
 
-const UNITS: Units = { unit: 'mmol/L', difference: 'mmol/L', decimals: 1, differenceDecimals: 1, percent: false };
 const TAIL = ': the data cannot show a difference finer than the step.';
 
 async function render(result: ComparisonFindingsResult) {
-  const fixture = TestBed.createComponent(EstimateTables);
-  fixture.componentRef.setInput('result', result);
-  fixture.componentRef.setInput('units', UNITS);
-  await fixture.whenStable();
-  return fixture.nativeElement as HTMLElement;
+  return renderFindings(EstimateTables, result);
 }
 
 /** Each note row of a table with the name of the estimate in the row just above it. */

@@ -1,17 +1,11 @@
-import { TestBed } from '@angular/core/testing';
-import { fineGrained, sodiumComparison, storedBeforeResolution } from '../../../../../../testing/coarse-results';
-import type { ComparisonFindingsResult, Units } from '../comparison-result';
+import { fineGrained, renderFindings, sodiumComparison, storedBeforeResolution } from '../../../../../../testing/coarse-results';
+import type { ComparisonFindingsResult } from '../comparison-result';
 import { VerdictPanel } from './verdict-panel';
 
-const UNITS: Units = { unit: 'mmol/L', difference: 'mmol/L', decimals: 1, differenceDecimals: 1, percent: false };
 const NARROW = 'CI narrower than one reporting step (1 mmol/L): the data cannot show a difference finer than the step.';
 
 async function render(result: ComparisonFindingsResult) {
-  const fixture = TestBed.createComponent(VerdictPanel);
-  fixture.componentRef.setInput('result', result);
-  fixture.componentRef.setInput('units', UNITS);
-  await fixture.whenStable();
-  const root = fixture.nativeElement as HTMLElement;
+  const root = await renderFindings(VerdictPanel, result);
   const text = (id: string): string | null => root.querySelector(`[data-testid="${id}"]`)?.textContent?.replace(/\s+/g, ' ').trim() ?? null;
   return { root, text };
 }
