@@ -54,3 +54,22 @@ export function drawText(doc: PDFKit.PDFDocument, raw: string, x: number, y: num
   doc.text(text, x, y, options);
   return height;
 }
+
+/**
+ * Text broken into lines at spaces only, each narrower than `width` at this size (regular face): pdfkit
+ * would also break after a slash and print "mmol/" at the end of one line and "L" on the next.
+ */
+export function wrapAtSpaces(doc: PDFKit.PDFDocument, text: string, size: number, width: number): string {
+  const fits = (line: string): boolean => textWidth(doc, line, { size }) <= width - 2;
+  return text.split('\n').map((paragraph) => {
+    const lines: string[] = [];
+    let line = '';
+    for (const word of paragraph.split(' ')) {
+      if (line && !fits(`${line} ${word}`)) {
+        lines.push(line);
+        line = word;
+      } else line = line ? `${line} ${word}` : word;
+    }
+    return [...lines, line].join('\n');
+  }).join('\n');
+}

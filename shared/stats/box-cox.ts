@@ -65,12 +65,6 @@ function profileLogLikelihood(z: Float64Array, lambda: number): number {
   return Number.isFinite(value) ? value : -Infinity;
 }
 
-/** ℓ(λ) of the data in their own unit (for checks): ℓ(λ; x/g) − n·ln g. */
-export function boxCoxLogLikelihood(values: ArrayLike<number>, lambda: number): number {
-  const { z, logG } = scaledLogs(values);
-  return profileLogLikelihood(z, lambda) - values.length * logG;
-}
-
 function scaledLogs(values: ArrayLike<number>): { z: Float64Array; logG: number } {
   const n = values.length;
   const logs = new Float64Array(n);

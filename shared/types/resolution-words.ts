@@ -77,3 +77,22 @@ export function resolutionRule(resolution: Resolution | null | undefined, unit: 
 export function judgedOnSentence(judged: string, step: string): string {
   return `The CI is narrower than one reporting step${step ? ` (${step})` : ''}, so the verdict is judged on ${judged} (the CI widened to the estimate ± half a step)`;
 }
+
+/** Everything the findings say about the reporting step: notes beside estimates, the rule once, and an estimate's step. */
+export interface StepWords {
+  notes: Record<string, string>;
+  rule: string | null;
+  step: (path: string) => string;
+}
+
+/**
+ * The step's words for one result, in the client and the PDF alike. `differenceUnit`: '%' for percent
+ * differences. Results stored before the engine reported its step have no resolution and get no words.
+ */
+export function stepWords(resolution: Resolution | null | undefined, unit: string, differenceUnit = unit): StepWords {
+  return {
+    notes: narrowCiNotes(resolution, unit, differenceUnit),
+    rule: resolutionRule(resolution, unit, differenceUnit),
+    step: (path: string): string => (resolution ? estimateStep(resolution, path, unit, differenceUnit) : ''),
+  };
+}

@@ -1,8 +1,8 @@
 import { pairedDifferences } from '../../../shared/stats/differences';
-import { estimateStep, narrowCiNotes, resolutionRule } from '../../../shared/types/resolution-words';
+import { stepWords as wordsOfStep, type StepWords } from '../../../shared/types/resolution-words';
 import type { Layout } from '../layout';
 import type { ComparisonFindings, EstablishFindings, ReportRow, StudyReport } from '../report-model';
-import { textWidth } from '../text';
+import { wrapAtSpaces } from '../text';
 import { COLOR, SIZE } from '../theme';
 
 export interface Pair {
@@ -58,42 +58,17 @@ export function differenceUnit(report: StudyReport, results: ComparisonFindings 
  * limited); and the step of an estimate in words. Results stored before the engine reported its step have
  * no resolution, and then all three say nothing.
  */
-export function stepWords(report: StudyReport, results: ComparisonFindings | EstablishFindings) {
-  const resolution = results.resolution ?? null;
+export function stepWords(report: StudyReport, results: ComparisonFindings | EstablishFindings): StepWords {
   const unit = report.analyte.unit;
-  const difference = results.kind === 'comparison' ? differenceUnit(report, results) : unit;
-  return {
-    notes: narrowCiNotes(resolution, unit, difference),
-    rule: resolutionRule(resolution, unit, difference),
-    step: (path: string): string => (resolution ? estimateStep(resolution, path, unit, difference) : ''),
-  };
+  return wordsOfStep(results.resolution, unit, results.kind === 'comparison' ? differenceUnit(report, results) : unit);
 }
 
 /** The rule of the reporting step in a box of its own, once, at the top of the findings. */
 export function stepRule(layout: Layout, rule: string | null): void {
-  if (rule) layout.callout(wrapAtSpaces(layout, rule, SIZE.body, layout.width - 20), { fill: COLOR.tint, edge: COLOR.accent, title: 'Reporting step' });
+  if (rule) layout.callout(wrapAtSpaces(layout.doc, rule, SIZE.body, layout.width - 20), { fill: COLOR.tint, edge: COLOR.accent, title: 'Reporting step' });
 }
 
 /** A paragraph of the step's words under a table, its lines broken at spaces only. */
 export function stepParagraph(layout: Layout, text: string): void {
-  layout.paragraph(wrapAtSpaces(layout, text, 8), { size: 8 });
-}
-
-/**
- * Text broken into lines at spaces only, each narrower than `width` at this size (regular face): pdfkit
- * would also break after a slash and print "mmol/" at the end of one line and "L" on the next.
- */
-export function wrapAtSpaces(layout: Layout, text: string, size: number, width = layout.width): string {
-  const fits = (line: string): boolean => textWidth(layout.doc, line, { size }) <= width - 2;
-  return text.split('\n').map((paragraph) => {
-    const lines: string[] = [];
-    let line = '';
-    for (const word of paragraph.split(' ')) {
-      if (line && !fits(`${line} ${word}`)) {
-        lines.push(line);
-        line = word;
-      } else line = line ? `${line} ${word}` : word;
-    }
-    return [...lines, line].join('\n');
-  }).join('\n');
+  layout.paragraph(wrapAtSpaces(layout.doc, text, 8, layout.width), { size: 8 });
 }

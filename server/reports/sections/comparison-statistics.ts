@@ -5,7 +5,8 @@ import type { ComparisonFindings, StudyReport } from '../report-model';
 import { drawTable, type Column } from '../table';
 import { SIZE } from '../theme';
 import { CI_WORDS } from '../words';
-import { decimalsOf, differenceUnit, stepWords, wrapAtSpaces } from './comparison-data';
+import { decimalsOf, differenceUnit, stepWords } from './comparison-data';
+import { wrapAtSpaces } from '../text';
 
 const WEIGHTS = [2.4, 1, 1.5, 1.3];
 const estimateColumns = (ci: string, p: string): Column[] => [
@@ -23,7 +24,7 @@ export function comparisonStatistics(layout: Layout, report: StudyReport, result
   // A CI narrower than one reporting step: its words go under the estimate's label, wrapped to the label's column (less its padding).
   const labelWidth = (layout.width * WEIGHTS[0]) / WEIGHTS.reduce((a, b) => a + b) - 8;
   const row = (label: string, e: Estimate | TestedEstimate | undefined, decimals: number, p = '', note?: string): string[] =>
-    [note ? `${label}\n${wrapAtSpaces(layout, note, SIZE.table, labelWidth)}` : label, num(e?.estimate, decimals), range(e?.ci, decimals), p];
+    [note ? `${label}\n${wrapAtSpaces(layout.doc, note, SIZE.table, labelWidth)}` : label, num(e?.estimate, decimals), range(e?.ci, decimals), p];
   layout.heading('Statistics');
   layout.subheading(`Bias and agreement (differences in ${unit || 'result units'})`);
   drawTable(layout, estimateColumns(`${level} CI (${CI_WORDS[results.settings?.interval ?? report.settings.interval]?.toLowerCase() ?? 'bootstrap'})`, 'p-value (bootstrap, shifted null)'), [

@@ -5,6 +5,7 @@ import { drawTable } from '../table';
 import { COLOR } from '../theme';
 import { VERDICT_WORDS } from '../words';
 import { judgedOnSentence } from '../../../shared/types/resolution-words';
+import type { StepWords } from '../../../shared/types/resolution-words';
 import { decimalsOf, stepParagraph, stepRule, stepWords } from './comparison-data';
 import { cautionCallout } from './caution';
 
@@ -56,7 +57,7 @@ export function comparisonVerdict(layout: Layout, report: StudyReport, results: 
  * Under the table, for a level whose CI is narrower than the step: on what interval its verdict was judged
  * and why, or (with no verdict) that the CI says nothing finer than the step; null for any other level.
  */
-function levelStepWords(at: string, judged: string | null, steps: ReturnType<typeof stepWords>, k: number): string | null {
+function levelStepWords(at: string, judged: string | null, steps: StepWords, k: number): string | null {
   const path = `decisionLevels.${k}`;
   if (judged) {
     const sentence = judgedOnSentence(judged, steps.step(path));

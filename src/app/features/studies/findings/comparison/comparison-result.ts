@@ -1,6 +1,6 @@
 import type { Study } from '../../../../../../shared/schemas';
 import type { ComparisonResult } from './engine-types';
-import { estimateStep, narrowCiNotes, resolutionRule } from '../../../../../../shared/types/resolution-words';
+import { stepWords as wordsOfStep, type StepWords } from '../../../../../../shared/types/resolution-words';
 
 /**
  * The results of a method-comparison analysis as the API returns them: the engine's result
@@ -42,11 +42,6 @@ export function withUnit(text: string, unit: string): string {
  * estimate is limited); and the step of an estimate in words. Results stored before the engine reported
  * its step (engine 1.1.0) have no resolution, so all three say nothing.
  */
-export function stepWords(result: Pick<ComparisonResult, 'resolution'>, u: Units) {
-  const resolution = result.resolution ?? null;
-  return {
-    notes: narrowCiNotes(resolution, u.unit, u.difference),
-    rule: resolutionRule(resolution, u.unit, u.difference),
-    step: (path: string): string => (resolution ? estimateStep(resolution, path, u.unit, u.difference) : ''),
-  };
+export function stepWords(result: Pick<ComparisonResult, 'resolution'>, u: Units): StepWords {
+  return wordsOfStep(result.resolution, u.unit, u.difference);
 }

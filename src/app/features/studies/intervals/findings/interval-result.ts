@@ -1,6 +1,6 @@
 import type { IntervalResult } from '../../../../../../shared/stats/interval-types';
 import type { VerifyIntervalResult } from '../../../../../../shared/stats/verify-interval';
-import { narrowCiNotes, resolutionRule } from '../../../../../../shared/types/resolution-words';
+import { stepWords, type StepWords } from '../../../../../../shared/types/resolution-words';
 
 /** An establishment's results as the API returns them: the engine's result plus the flagged rows' grid positions. */
 export type EstablishResult = IntervalResult & { outlierPositions?: number[] };
@@ -28,7 +28,6 @@ export function asVerify(results: unknown): VerifyResult | null {
  * its path ('upper', 'partitions.0.intervals.1.lower'), and the rule to state once above the limits (null
  * when no limit is limited, and for results stored before the engine reported its step).
  */
-export function intervalStepWords(result: Pick<IntervalResult, 'resolution'>, unit: string): { notes: Readonly<Partial<Record<string, string>>>; rule: string | null } {
-  const resolution = result.resolution ?? null;
-  return { notes: narrowCiNotes(resolution, unit), rule: resolutionRule(resolution, unit) };
+export function intervalStepWords(result: Pick<IntervalResult, 'resolution'>, unit: string): StepWords {
+  return stepWords(result.resolution, unit);
 }
