@@ -4,6 +4,7 @@ import { scheduleCheckpoints } from './audit/checkpoints';
 import { loadConfig, type Config } from './config';
 import { openDatabase } from './db/client';
 import { logFailure } from './log';
+import { backfillInputHashes } from './specimens/input-hash';
 
 export interface RunningApp { url: string; close: () => Promise<void> }
 
@@ -14,6 +15,8 @@ export async function listen(config: Config): Promise<RunningApp> {
   ctx.mail.start();
   await ctx.jobs.start();
   const stopCheckpoints = scheduleCheckpoints(database.db);
+  // Studies from before input hashes were kept get theirs now, in the background (reads compute any still missing).
+  void backfillInputHashes(database.db).catch((err) => logFailure('filling in input hashes', err));
   const server: Server = await new Promise((resolve) => {
     const s = app.listen(config.port, config.host, () => resolve(s));
   });

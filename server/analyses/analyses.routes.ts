@@ -4,6 +4,7 @@ import { parseRequest } from '../http/parse-request';
 import type { RouteSpec } from '../http/routes';
 import { EDITORS, READERS, studyId } from '../studies/studies.routes';
 import { getAnalysis, queueAnalysis } from './analyses.service';
+import { streamAnalysis } from './analysis-stream';
 
 export function analysesRoutes(ctx: AppContext): RouteSpec[] {
   return [
@@ -14,6 +15,10 @@ export function analysesRoutes(ctx: AppContext): RouteSpec[] {
     {
       method: 'get', path: '/analyses/:id', access: READERS,
       handler: async (req, res) => res.json(await getAnalysis(ctx.db, req.user!, parseRequest(IdParams, req.params, 'params').id)),
+    },
+    {
+      method: 'get', path: '/analyses/:id/events', access: READERS,
+      handler: (req, res) => streamAnalysis(ctx, req.user!, parseRequest(IdParams, req.params, 'params').id, req, res),
     },
   ];
 }

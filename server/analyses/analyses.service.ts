@@ -1,22 +1,24 @@
-import { and, eq } from 'drizzle-orm';
+import { and, eq, getTableColumns } from 'drizzle-orm';
 import { ENGINE_VERSION } from '../../shared/stats/engine';
 import { recordAudit } from '../audit/audit';
 import { actorOf, SignedInUser } from '../auth/session-user';
 import type { Database, Executor, Tx } from '../db/client';
 import { analyses, studies } from '../db/schema';
 import { AppError, notFound } from '../http/app-error';
-import { analysisInput, inputHash, studyInputHash } from '../specimens/input-hash';
+import { analysisInput, inputHash, knownInputHash } from '../specimens/input-hash';
 import { findStudy } from '../studies/studies.repository';
 import { assertEditable } from '../studies/study-rules';
 import { StudySettings, type Analysis } from '../../shared/schemas';
 import { missingResults } from './run-analysis';
 import type { AnalysisJobs } from './analysis-jobs';
 
-type AnalysisRow = typeof analyses.$inferSelect;
+type AnalysisRow = Omit<typeof analyses.$inferSelect, 'input'>;
+
+/** Every column of an analysis but its input (a copy of all rows, which no reader of an analysis shows). */
+const { input: _input, ...withoutInput } = getTableColumns(analyses);
 
 export async function analysisView(db: Executor, a: AnalysisRow, hash?: string): Promise<Analysis> {
-  const [study] = await db.select().from(studies).where(eq(studies.id, a.studyId));
-  const current = a.inputHash === (hash ?? (await studyInputHash(db, study)));
+  const current = a.inputHash === (hash ?? (await knownInputHash(db, (await db.select().from(studies).where(eq(studies.id, a.studyId)))[0])));
   return {
     id: a.id, studyId: a.studyId, state: a.state as Analysis['state'], progress: a.progress, engineVersion: a.engineVersion, seed: a.seed,
     resamples: a.resamples, inputHash: a.inputHash, current, results: a.results ?? null, error: a.error,
@@ -59,8 +61,8 @@ export async function analyseNow(db: Database, jobs: AnalysisJobs, me: SignedInU
 }
 
 export async function getAnalysis(db: Database, me: SignedInUser, id: number): Promise<Analysis> {
-  const [row] = await db.select({ a: analyses }).from(analyses).innerJoin(studies, eq(studies.id, analyses.studyId))
+  const [row] = await db.select({ a: withoutInput, studyHash: studies.inputHash }).from(analyses).innerJoin(studies, eq(studies.id, analyses.studyId))
     .where(and(eq(analyses.id, id), eq(studies.laboratoryId, me.laboratoryId)));
   if (!row) throw notFound('Analysis');
-  return analysisView(db, row.a);
+  return analysisView(db, row.a, row.studyHash ?? undefined);
 }

@@ -5,12 +5,17 @@ import type { Database, Tx } from '../db/client';
 import { analyses, studies } from '../db/schema';
 import { logFailure } from '../log';
 import type { AnalysisInput } from '../specimens/input-hash';
+import { AnalysisEvents, announceChange, announceJob } from './analysis-events';
 import { runAnalysis } from './run-analysis';
 import { AnalysisPool } from './worker-pool';
 
 export const QUEUE = 'analysis';
 /** A run whose process died is queued once more; a second death fails it in words. */
 export const MAX_ATTEMPTS = 2;
+/** Workers learn of a job at once by NOTIFY; this polling is only the fallback when notifications are lost. */
+export const FALLBACK_POLL_SECONDS = 2;
+/** Progress is pushed to the pages following an analysis at most this often. */
+const PROGRESS_PUSH_MS = 150;
 
 export interface JobTiming {
   /** How often a running analysis writes its progress and heartbeat. */
@@ -34,14 +39,22 @@ export const jobTiming = (staleSeconds = 30, threads?: number): JobTiming =>
  * heartbeat stopped (its process died) once, then fails it with the reason, and re-sends a queued
  * analysis whose job was lost. The database going away stops none of this for good: the queue and the
  * pool reconnect by themselves, and each failed step is retried at the next beat or sweep.
+ * Nothing waits for a poll when notifications flow: a queued job is announced on a PostgreSQL channel that
+ * wakes the workers of every process, and each change of state or progress is announced on another that
+ * the API process relays to the pages following the analysis (server-sent events, analysis-stream.ts).
  */
 export class AnalysisJobs {
   private boss: PgBoss | null = null;
   private pool: AnalysisPool | null = null;
   private sweeper: NodeJS.Timeout | null = null;
   private sweeping: Promise<void> | null = null;
+  private workerIds: string[] = [];
+  /** Notifications of queued jobs and of analyses' progress, for this process. */
+  readonly events: AnalysisEvents;
 
-  constructor(private readonly db: Database, private readonly url: string, private readonly timing: JobTiming = jobTiming()) {}
+  constructor(private readonly db: Database, private readonly url: string, private readonly timing: JobTiming = jobTiming()) {
+    this.events = new AnalysisEvents(url);
+  }
 
   async start(options: { work: boolean } = { work: true }): Promise<void> {
     if (this.boss) return;
@@ -50,11 +63,15 @@ export class AnalysisJobs {
     await boss.start();
     await boss.createQueue(QUEUE);
     this.boss = boss;
+    await this.events.start();
     if (options.work) {
       this.pool = new AnalysisPool(this.timing.threads);
+      void this.pool.warmUp().catch((err) => logFailure('warming up the analysis threads', err));
+      this.workerIds = [];
       for (let i = 0; i < this.pool.threads; i++) {
-        await boss.work<{ analysisId: number }>(QUEUE, { batchSize: 1, pollingIntervalSeconds: 0.5 }, async ([job]) => this.execute(job.data.analysisId));
+        this.workerIds.push(await boss.work<{ analysisId: number }>(QUEUE, { batchSize: 1, pollingIntervalSeconds: FALLBACK_POLL_SECONDS }, async ([job]) => this.execute(job.data.analysisId)));
       }
+      this.events.on('job', this.wake);
       this.sweeper = setInterval(() => void this.sweep(), this.timing.sweepMs);
       this.sweeper.unref();
       await this.sweep();
@@ -70,7 +87,14 @@ export class AnalysisJobs {
   async enqueue(analysisId: number): Promise<void> {
     if (!this.boss) throw new Error('the job queue is not started');
     await this.boss.send(QUEUE, { analysisId }, { retryLimit: 0, expireInMinutes: 30 });
+    this.wake();
+    await announceJob(this.db).catch((err) => logFailure('announcing a queued analysis', err));
   }
+
+  /** Asks this process's workers to fetch a job now rather than at their next poll. */
+  private readonly wake = (): void => {
+    for (const id of this.workerIds) this.boss?.notifyWorker(id);
+  };
 
   /** True when the queue's tables answer (for the health check). */
   async healthy(): Promise<boolean> {
@@ -87,13 +111,23 @@ export class AnalysisJobs {
     const started = Date.now();
     const thisRun = and(eq(analyses.id, analysisId), eq(analyses.state, 'running'), eq(analyses.attempt, claimed.attempt));
     let progress = 0;
+    let pushed = 0;
+    const change = (state: string, p: number) => ({ id: analysisId, studyId: claimed.studyId, state, progress: p });
+    await announceChange(this.db, change('running', 0)).catch((err) => logFailure('announcing an analysis', err));
+    const onProgress = (f: number) => {
+      progress = f;
+      const now = Date.now();
+      if (now - pushed < PROGRESS_PUSH_MS) return;
+      pushed = now;
+      announceChange(this.db, change('running', f)).catch((err) => logFailure('announcing progress', err));
+    };
     const beat = setInterval(() => {
       this.db.update(analyses).set({ progress, heartbeatAt: new Date() }).where(thisRun)
         .catch((err) => logFailure('writing an analysis heartbeat', err));
     }, this.timing.heartbeatMs);
     try {
       const input = claimed.input as AnalysisInput;
-      const results = options.inThread ? runAnalysis(input) : await this.pool!.run(input, (f) => { progress = f; });
+      const results = options.inThread ? runAnalysis(input) : await this.pool!.run(input, onProgress);
       clearInterval(beat);
       await this.finish(claimed.studyId, analysisId, claimed.attempt, { state: 'done', results, progress: 1, durationMs: Date.now() - started });
     } catch (err) {
@@ -108,6 +142,7 @@ export class AnalysisJobs {
       const updated = await tx.update(analyses).set({ ...values, finishedAt: new Date() })
         .where(and(eq(analyses.id, analysisId), eq(analyses.state, 'running'), eq(analyses.attempt, attempt))).returning({ id: analyses.id });
       if (!updated.length) return;
+      await announceChange(tx, { id: analysisId, studyId, state: values.state!, progress: values.progress ?? 0 });
       await recordAudit(tx, await workerActor(tx, studyId), {
         action: `analysis.${values.state}`, entity: 'analysis', entityId: analysisId, studyId,
         after: { durationMs: values.durationMs, error: values.error ?? undefined },
@@ -136,6 +171,7 @@ export class AnalysisJobs {
           : { state: 'failed', finishedAt: new Date(), error: `The analysis stopped twice because ${reason}; run it again, and tell the administrator if it keeps happening` })
           .where(and(eq(analyses.id, run.id), eq(analyses.state, 'running'), eq(analyses.attempt, run.attempt))).returning();
         if (!changed) return false;
+        await announceChange(tx, { id: run.id, studyId: run.studyId, state: changed.state, progress: 0 });
         await recordAudit(tx, await workerActor(tx, run.studyId), again
           ? { action: 'analysis.requeued', entity: 'analysis', entityId: run.id, studyId: run.studyId, after: { attempt: run.attempt + 1, reason } }
           : { action: 'analysis.failed', entity: 'analysis', entityId: run.id, studyId: run.studyId, after: { error: changed.error } });
@@ -166,9 +202,12 @@ export class AnalysisJobs {
 
   async stop(): Promise<void> {
     if (this.sweeper) clearInterval(this.sweeper);
+    this.events.off('job', this.wake);
+    this.workerIds = [];
     await this.sweeping;
     await this.boss?.stop({ graceful: true, wait: true, timeout: 10_000 });
     await this.pool?.close();
+    await this.events.stop();
     this.boss = null;
     this.pool = null;
   }

@@ -16,8 +16,11 @@ let worker: ChildApp | null = null;
 const STALE = 3;
 
 beforeAll(async () => { h = await startHarness({ ANALYSIS_STALE_SECONDS: String(STALE) }, { jobs: 'send-only' }); });
+// Workers are notified of a job at once: one left from an earlier test would take the next test's jobs.
+afterEach(async () => {
+  while (extra.length) await extra.pop()!.stop();
+});
 afterAll(async () => {
-  for (const j of extra) await j.stop();
   await worker?.stop();
   await h.close();
 });

@@ -4,12 +4,26 @@ import { MessageChannel } from 'node:worker_threads';
 import { Piscina } from 'piscina';
 import type { AnalysisInput } from '../specimens/input-hash';
 
+/** A small invented comparison (30 pairs, few resamples) that exercises the engine's code paths. */
+const WARM_UP_INPUT: AnalysisInput = {
+  kind: 'method-comparison',
+  settings: { resamples: 1000, regressionResamples: 1000, seed: 'warm-up', decisionLevels: [5] },
+  rows: Array.from({ length: 30 }, (_, i) => {
+    const x = 1 + i * 0.3;
+    const y = Math.round((x * 1.03 + ((i * 7) % 5) * 0.04) * 100) / 100;
+    return {
+      position: i + 1, label: `W${i + 1}`, comparative: x, candidate: y, value: null,
+      comparativeText: x.toFixed(2), candidateText: y.toFixed(2), valueText: null, sex: null, ageBand: null, excluded: false, exclusionReason: null,
+    };
+  }),
+};
+
 /** A pool of worker threads that run shared/stats, so the API thread stays responsive. */
 export class AnalysisPool {
   private readonly pool: Piscina;
   /** By default one thread per core but one, at least one and at most four: the API thread keeps a core. */
   constructor(readonly threads = Math.max(1, Math.min(4, os.availableParallelism() - 1))) {
-    this.pool = new Piscina({ filename: path.join(__dirname, 'analysis-task.js'), minThreads: 0, maxThreads: threads, idleTimeout: 30_000 });
+    this.pool = new Piscina({ filename: path.join(__dirname, 'analysis-task.js'), minThreads: threads, maxThreads: threads, idleTimeout: 30_000 });
   }
 
   async run(input: AnalysisInput, onProgress: (f: number) => void): Promise<unknown> {
@@ -22,7 +36,22 @@ export class AnalysisPool {
     }
   }
 
+  /**
+   * Loads the engine in every thread and runs a small analysis there (its code compiled and optimised),
+   * so the first analysis a user asks for is not slowed by start-up. Results are thrown away.
+   */
+  async warmUp(): Promise<void> {
+    try {
+      await Promise.all(Array.from({ length: this.threads }, () => this.run(WARM_UP_INPUT, () => {})));
+    } catch (err) {
+      if (!this.closing) throw err;
+    }
+  }
+
+  private closing = false;
+
   close(): Promise<void> {
+    this.closing = true;
     return this.pool.destroy();
   }
 }

@@ -97,7 +97,15 @@ export const studies = pgTable('studies', {
   returnComment: text('return_comment'),
   /** Set when the director approved the plan (a signature with meaning 'plan-approved'). */
   planApprovedAt: stamp('plan_approved_at'),
-}, (t) => [index('studies_lab_state_idx').on(t.laboratoryId, t.state)]);
+  /**
+   * SHA-256 of the analysed rows and settings (specimens/input-hash.ts), written in the transaction that
+   * changes them, so reads compare it with an analysis's hash without loading rows. NULL means "not known":
+   * a trigger clears it whenever rows or settings change without it, and the next read computes and stores it.
+   */
+  inputHash: text('input_hash'),
+  /** Included rows, kept with the input hash. */
+  includedCount: integer('included_count'),
+}, (t) => [index('studies_lab_state_idx').on(t.laboratoryId, t.state), index('studies_lab_updated_idx').on(t.laboratoryId, t.updatedAt)]);
 
 export const uploads = pgTable('uploads', {
   id: serial('id').primaryKey(),
@@ -161,7 +169,7 @@ export const analyses = pgTable('analyses', {
   attempt: integer('attempt').notNull().default(1),
   /** Written every few seconds by the process running it; a stale heartbeat means that process died. */
   heartbeatAt: stamp('heartbeat_at'),
-}, (t) => [index('analyses_study_idx').on(t.studyId), index('analyses_state_idx').on(t.state)]);
+}, (t) => [index('analyses_study_idx').on(t.studyId, t.id), index('analyses_state_idx').on(t.state)]);
 
 export const signatures = pgTable('signatures', {
   id: serial('id').primaryKey(),

@@ -2,6 +2,7 @@ import { sql } from 'drizzle-orm';
 import type { HealthReport } from '../../shared/schemas';
 import type { AppContext } from '../context';
 import { RETRY_AFTER_SECONDS } from '../http/database-errors';
+import { eventLoopDelaySinceLastReading } from './event-loop';
 import type { RouteSpec } from '../http/routes';
 
 /** Resolves with the check's outcome, or false after `ms` (a database that hangs must not hang the check). */
@@ -20,6 +21,7 @@ async function within(ms: number, check: () => Promise<unknown>): Promise<boolea
  * session store is read), 200 when the database and the job queue answer, 503 with Retry-After when not.
  */
 export function healthRoutes(ctx: AppContext): RouteSpec[] {
+  eventLoopDelaySinceLastReading();
   return [{
     method: 'get', path: '/health', access: 'public', sessionless: true,
     handler: async (_req, res) => {
@@ -32,6 +34,7 @@ export function healthRoutes(ctx: AppContext): RouteSpec[] {
         database: database ? 'ok' : 'not answering',
         queue: queue ? 'ok' : 'not answering',
         checkedAt: new Date().toISOString(),
+        eventLoopDelayMs: eventLoopDelaySinceLastReading(),
       };
       if (report.status !== 'ok') res.setHeader('Retry-After', String(RETRY_AFTER_SECONDS));
       res.status(report.status === 'ok' ? 200 : 503).json(report);

@@ -5,7 +5,7 @@ import { actorOf, SignedInUser } from '../auth/session-user';
 import type { AppContext } from '../context';
 import { signatures, specimens, studies } from '../db/schema';
 import { AppError } from '../http/app-error';
-import { loadRows } from '../specimens/input-hash';
+import { loadRows, storeInputHash } from '../specimens/input-hash';
 import { findStudy } from '../studies/studies.repository';
 import { PLAN_FIELDS } from '../studies/study-settings';
 import { studyView } from '../studies/study-view';
@@ -27,6 +27,7 @@ export function amendStudy(ctx: AppContext, me: SignedInUser, id: number, reason
       // The rows keep who entered them: copying is not entering, so segregation of duties still sees the author.
       await tx.insert(specimens).values(rows.map(({ id: _rid, studyId: _sid, ...r }) => ({ ...r, studyId: row.id })));
     }
+    await storeInputHash(tx, row.id);
     await recordAudit(tx, actorOf(me), { action: 'study.amended', entity: 'study', entityId: row.id, studyId: row.id, reason, after: { supersedes: id, rows: rows.length } });
     await recordAudit(tx, actorOf(me), { action: 'study.amendment-started', entity: 'study', entityId: id, studyId: id, reason, after: { amendment: row.id } });
     return studyView(tx, row);

@@ -1,6 +1,6 @@
-import { asc, eq } from 'drizzle-orm';
+import { and, asc, eq, gt, isNull } from 'drizzle-orm';
 import type { Executor } from '../db/client';
-import { specimens } from '../db/schema';
+import { specimens, studies } from '../db/schema';
 import { canonicalJson, sha256Hex } from '../audit/canonical-json';
 import type { StudyRow } from '../studies/studies.repository';
 
@@ -36,6 +36,50 @@ export async function analysisInput(db: Executor, study: StudyRow): Promise<Anal
 /** SHA-256 of canonical JSON of rows and settings: findings are current when their hash equals this. */
 export const inputHash = (input: AnalysisInput): string => sha256Hex(canonicalJson(input));
 
+/** The hash of the study's rows and settings as they are now, computed from the rows (integrity checks use this). */
 export async function studyInputHash(db: Executor, study: StudyRow): Promise<string> {
   return inputHash(await analysisInput(db, study));
+}
+
+const includedOf = (input: AnalysisInput): number => input.rows.filter((r) => !r.excluded).length;
+
+/**
+ * Writes the study's input hash and included count in the caller's transaction, after the rows or
+ * settings changed (a trigger has cleared the old hash; see migration 0007). Returns the hash.
+ */
+export async function storeInputHash(tx: Executor, studyId: number): Promise<string> {
+  const [study] = await tx.select().from(studies).where(eq(studies.id, studyId));
+  const input = await analysisInput(tx, study);
+  const hash = inputHash(input);
+  await tx.update(studies).set({ inputHash: hash, includedCount: includedOf(input) }).where(eq(studies.id, studyId));
+  return hash;
+}
+
+/**
+ * The study's input hash for reads: the stored one, or (where a trigger cleared it, or a study predates
+ * the column) computed from the rows and stored for the next read. The store only lands when the study is
+ * still at the version that was read and still has no hash, so a concurrent change is never overwritten.
+ */
+export async function knownInputHash(db: Executor, study: StudyRow): Promise<string> {
+  if (study.inputHash) return study.inputHash;
+  const input = await analysisInput(db, study);
+  const hash = inputHash(input);
+  await db.update(studies).set({ inputHash: hash, includedCount: includedOf(input) })
+    .where(and(eq(studies.id, study.id), eq(studies.version, study.version), isNull(studies.inputHash)));
+  return hash;
+}
+
+/** Fills in the hashes not yet known (after the migration that added them), a batch at a time. */
+export async function backfillInputHashes(db: Executor, batch = 200): Promise<number> {
+  let done = 0;
+  let after = 0;
+  for (;;) {
+    const rows = await db.select().from(studies).where(and(isNull(studies.inputHash), gt(studies.id, after))).orderBy(asc(studies.id)).limit(batch);
+    if (!rows.length) return done;
+    for (const r of rows) {
+      await knownInputHash(db, r);
+      after = r.id;
+      done++;
+    }
+  }
 }

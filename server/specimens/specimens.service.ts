@@ -7,7 +7,7 @@ import { analytes, specimens } from '../db/schema';
 import { AppError } from '../http/app-error';
 import { bumpVersion, findStudy, StudyRow } from '../studies/studies.repository';
 import { assertEditable, assertPlanApproved } from '../studies/study-rules';
-import { loadRows, StoredRow } from './input-hash';
+import { loadRows, StoredRow, storeInputHash } from './input-hash';
 import { diffRows } from './row-diff';
 import { CleanRow, validateRows } from './row-validation';
 
@@ -62,6 +62,7 @@ export async function writeRows(
       enteredBy: unchanged(i) ? before[i].enteredBy : me.id,
     })));
   }
+  await storeInputHash(tx, study.id);
   const diff = diffRows(before.map(asClean), rows);
   await recordAudit(tx, actorOf(me), {
     action, entity: 'specimens', entityId: study.id, studyId: study.id,

@@ -10,6 +10,7 @@ import { fieldWords } from '../../shared/types/audit-words';
 import { assertEditable } from './study-rules';
 import { initialSettings, PLAN_FIELDS } from './study-settings';
 import { studyView, summarise } from './study-view';
+import { storeInputHash } from '../specimens/input-hash';
 
 async function checkRefs(tx: Tx, me: SignedInUser, kind: string, ids: { analyteId?: number; comparativeInstrumentId?: number | null; candidateInstrumentId?: number | null; instrumentId?: number | null }) {
   if (ids.analyteId !== undefined && !(await findLabAnalyte(tx, me.laboratoryId, ids.analyteId))) throw invalid('analyteId', 'Choose an analyte from the catalog');
@@ -36,7 +37,8 @@ export async function createStudy(db: Database, me: SignedInUser, body: CreateSt
       instrumentId: body.instrumentId ?? null, settings: initialSettings(body.kind, analyte, body.settings), createdBy: me.id,
     }).returning();
     await recordAudit(tx, actorOf(me), { action: 'study.created', entity: 'study', entityId: row.id, studyId: row.id, after: { ...body, settings: row.settings } });
-    return studyView(tx, row);
+    await storeInputHash(tx, row.id);
+    return studyView(tx, (await findStudy(tx, me.laboratoryId, row.id))!);
   });
 }
 
@@ -51,7 +53,11 @@ export async function updateStudy(db: Database, me: SignedInUser, id: number, bo
     if (moved.length && !reason?.trim()) {
       throw invalid('reason', `The plan was approved; give a reason for changing the ${moved.map((m) => fieldWords(m.field)).join(', the ')}`);
     }
-    const updated = await bumpVersion(tx, study, version, { ...fields, ...(merged ? { settings: merged } : {}) });
+    let updated = await bumpVersion(tx, study, version, { ...fields, ...(merged ? { settings: merged } : {}) });
+    if (merged) {
+      await storeInputHash(tx, id);
+      updated = await findStudy(tx, me.laboratoryId, id);
+    }
     const changed = (Object.keys(fields) as (keyof typeof fields)[]).filter((k) => fields[k] !== undefined);
     await recordAudit(tx, actorOf(me), {
       action: 'study.updated', entity: 'study', entityId: id, studyId: id, reason: reason ?? null,
@@ -97,7 +103,7 @@ export async function listStudies(db: Database, me: SignedInUser, q: StudyListQu
   if (q.from) where.push(gte(studies.updatedAt, new Date(`${q.from}T00:00:00Z`)));
   if (q.to) where.push(lte(studies.updatedAt, new Date(`${q.to}T23:59:59.999Z`)));
   if (q.q) where.push(or(ilike(studies.title, `%${escapeLike(q.q)}%`), ilike(studies.purpose, `%${escapeLike(q.q)}%`))!);
-  const n = sql<number>`(SELECT count(*) FROM ${specimens} s WHERE s.study_id = ${studies.id} AND NOT s.excluded)`;
+  const n = sql<number>`coalesce(${studies.includedCount}, (SELECT count(*) FROM ${specimens} s WHERE s.study_id = ${studies.id} AND NOT s.excluded))`;
   const sortColumn = q.sort === 'n' ? n : SORT[q.sort];
   const rows = await db.select().from(studies).where(and(...where))
     .orderBy(q.order === 'asc' ? asc(sortColumn) : desc(sortColumn), desc(studies.id))

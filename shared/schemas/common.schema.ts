@@ -24,5 +24,7 @@ export const HealthReport = z.object({
   database: z.enum(['ok', 'not answering']),
   queue: z.enum(['ok', 'not answering']),
   checkedAt: z.string(),
+  /** How late the API's event loop ran timers since the previous health check (ms): a busy loop answers everyone late. */
+  eventLoopDelayMs: z.object({ p50: z.number(), p99: z.number(), max: z.number() }),
 });
 export type HealthReport = z.infer<typeof HealthReport>;

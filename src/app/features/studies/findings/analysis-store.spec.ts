@@ -53,3 +53,87 @@ describe('AnalysisStore', () => {
     expect(store.working()).toBe(false);
   });
 });
+
+/** A stand-in for the browser's EventSource: the test pushes events and errors by hand. */
+class FakeEventSource {
+  static last: FakeEventSource | null = null;
+  closed = false;
+  onerror: (() => void) | null = null;
+  private readonly listeners: ((e: { data: string }) => void)[] = [];
+  constructor(readonly url: string) {
+    FakeEventSource.last = this;
+  }
+  addEventListener(_type: string, listener: (e: { data: string }) => void): void {
+    this.listeners.push(listener);
+  }
+  push(state: Analysis['state'], progress: number): void {
+    for (const l of this.listeners) l({ data: JSON.stringify({ id: 7, state, progress }) });
+  }
+  close(): void {
+    this.closed = true;
+  }
+}
+
+describe('AnalysisStore with pushed progress', () => {
+  let gets: number;
+  let answer: Analysis;
+  let store: AnalysisStore;
+
+  beforeEach(() => {
+    jest.useFakeTimers();
+    (globalThis as { EventSource?: unknown }).EventSource = FakeEventSource;
+    FakeEventSource.last = null;
+    gets = 0;
+    answer = analysis('done', 1);
+    const api: Partial<AnalysesApi> = {
+      run: () => of(analysis('queued', 0)),
+      get: () => { gets++; return of(answer); },
+    };
+    TestBed.configureTestingModule({ providers: [AnalysisStore, { provide: AnalysesApi, useValue: api }] });
+    store = TestBed.inject(AnalysisStore);
+  });
+
+  afterEach(() => {
+    delete (globalThis as { EventSource?: unknown }).EventSource;
+    jest.useRealTimers();
+  });
+
+  it('shows pushed progress without asking, and reads the results once when the analysis is done', () => {
+    store.run(1);
+    const source = FakeEventSource.last!;
+    expect(source.url).toBe('/api/v1/analyses/7/events');
+    source.push('running', 0.4);
+    expect(store.analysis()?.state).toBe('running');
+    expect(store.analysis()?.progress).toBe(0.4);
+    jest.advanceTimersByTime(POLL_MS * 10);
+    expect(gets).toBe(0);
+    source.push('done', 1);
+    expect(gets).toBe(1);
+    expect(store.analysis()?.results).toEqual({ kind: 'comparison' });
+    expect(store.working()).toBe(false);
+    expect(source.closed).toBe(true);
+  });
+
+  it('asks every half second instead when the server cannot push', () => {
+    answer = analysis('running', 0.5);
+    store.run(1);
+    FakeEventSource.last!.onerror!();
+    expect(FakeEventSource.last!.closed).toBe(true);
+    jest.advanceTimersByTime(0);
+    expect(gets).toBe(1);
+    jest.advanceTimersByTime(POLL_MS * 2);
+    expect(gets).toBe(3);
+    answer = analysis('done', 1);
+    jest.advanceTimersByTime(POLL_MS);
+    expect(store.analysis()?.state).toBe('done');
+    jest.advanceTimersByTime(POLL_MS * 4);
+    expect(gets).toBe(4);
+  });
+
+  it('opens no stream for an analysis that has already ended', () => {
+    store.follow(7);
+    expect(gets).toBe(1);
+    expect(FakeEventSource.last).toBeNull();
+    expect(store.analysis()?.state).toBe('done');
+  });
+});
