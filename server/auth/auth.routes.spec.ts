@@ -122,6 +122,14 @@ describe('idle time-out', () => {
     await new Promise((r) => setTimeout(r, 1800));
     await s.agent.get('/api/v1/session').expect(401);
   });
+
+  it('keeps a session alive while it is used: the expiry is renewed (at most once per tenth of the time-out), not only set at sign-in', async () => {
+    const s = await signedIn(short, 'tech@valeharbor.example');
+    for (let i = 0; i < 8; i++) {
+      await new Promise((r) => setTimeout(r, 300));
+      await s.agent.get('/api/v1/session').expect(200);
+    }
+  });
 });
 
 describe('sign-in limits', () => {

@@ -9,7 +9,7 @@ const fs = require('node:fs');
 const path = require('node:path');
 
 const root = path.resolve(__dirname, '../..');
-const commands = { start: './start.ts', test: './test-all.ts', worker: './worker.ts' };
+const commands = { start: './start.ts', test: './test-all.ts', worker: './worker.ts', load: '../cli/load.ts' };
 const command = process.argv[2];
 if (!commands[command]) {
   console.error(`usage: bootstrap.js ${Object.keys(commands).join('|')}`);

@@ -56,18 +56,21 @@ export async function storeInputHash(tx: Executor, studyId: number): Promise<str
 }
 
 /**
- * The study's input hash for reads: the stored one, or (where a trigger cleared it, or a study predates
- * the column) computed from the rows and stored for the next read. The store only lands when the study is
- * still at the version that was read and still has no hash, so a concurrent change is never overwritten.
+ * The study's input hash and included count for reads: the stored ones, or (where a trigger cleared them,
+ * or a study predates them) computed from the rows and stored for the next read. The store only lands when
+ * the study is still at the version that was read and still has no hash, so a concurrent change is never
+ * overwritten.
  */
-export async function knownInputHash(db: Executor, study: StudyRow): Promise<string> {
-  if (study.inputHash) return study.inputHash;
+export async function knownInput(db: Executor, study: StudyRow): Promise<{ hash: string; included: number }> {
+  if (study.inputHash && study.includedCount !== null) return { hash: study.inputHash, included: study.includedCount };
   const input = await analysisInput(db, study);
-  const hash = inputHash(input);
-  await db.update(studies).set({ inputHash: hash, includedCount: includedOf(input) })
+  const known = { hash: inputHash(input), included: includedOf(input) };
+  await db.update(studies).set({ inputHash: known.hash, includedCount: known.included })
     .where(and(eq(studies.id, study.id), eq(studies.version, study.version), isNull(studies.inputHash)));
-  return hash;
+  return known;
 }
+
+export const knownInputHash = async (db: Executor, study: StudyRow): Promise<string> => (await knownInput(db, study)).hash;
 
 /** Fills in the hashes not yet known (after the migration that added them), a batch at a time. */
 export async function backfillInputHashes(db: Executor, batch = 200): Promise<number> {

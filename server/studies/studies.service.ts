@@ -125,9 +125,9 @@ export async function worklist(db: Database, me: SignedInUser): Promise<Worklist
     isDirector ? recent(and(lab, eq(studies.state, 'awaiting-signoff'))) : Promise.resolve([]),
     recent(and(lab, eq(studies.state, 'signed')), 10),
   ]);
-  return {
-    drafts: await summarise(db, drafts), returned: await summarise(db, returned),
-    awaitingSignature: await summarise(db, awaiting), recentlySigned: await summarise(db, signed),
-  };
+  // One summary pass over the four lists together (a study is in at most one of them).
+  const all = await summarise(db, [...drafts, ...returned, ...awaiting, ...signed]);
+  const part = (rows: typeof drafts) => rows.map((r) => all.find((x) => x.id === r.id)!);
+  return { drafts: part(drafts), returned: part(returned), awaitingSignature: part(awaiting), recentlySigned: part(signed) };
 }
 

@@ -1,98 +1,107 @@
-import { and, desc, eq, inArray, sql } from 'drizzle-orm';
+import { eq, sql } from 'drizzle-orm';
 import { StudySettings, type FindingsStatus, type Study, type StudyKind, type StudyState, type StudySummary } from '../../shared/schemas';
 import type { Executor } from '../db/client';
-import { analyses, analytes, instruments, specimens, studies, users } from '../db/schema';
-import { knownInputHash } from '../specimens/input-hash';
+import { analyses, analytes, instruments, users } from '../db/schema';
+import { knownInput } from '../specimens/input-hash';
 import type { StudyRow } from './studies.repository';
 
 type Findings = { status: FindingsStatus; latestId: number | null; currentId: number | null };
+type Known = Map<number, { hash: string; included: number }>;
+
+const intArray = (v: number[]) => `{${v.join(',')}}`;
+
+/** Each study's input hash and included count: stored on the study (computed and stored where not yet known). */
+async function knownInputs(db: Executor, rows: StudyRow[]): Promise<Known> {
+  const out: Known = new Map();
+  for (const r of rows) out.set(r.id, r.inputHash && r.includedCount !== null ? { hash: r.inputHash, included: r.includedCount } : await knownInput(db, r));
+  return out;
+}
 
 /**
  * Where the findings of each study stand: its latest run, and whether a finished run was made from the
- * current rows and settings (the stored input hash; no row is loaded). Two queries for any number of studies.
+ * current rows and settings (the stored input hash; no row is loaded). One query for any number of studies.
  */
-export async function findingsOfMany(db: Executor, rows: StudyRow[]): Promise<Map<number, Findings>> {
+async function findingsFor(db: Executor, ids: number[], known: Known): Promise<Map<number, Findings>> {
   const out = new Map<number, Findings>();
-  if (!rows.length) return out;
-  const hashes = new Map<number, string>();
-  for (const r of rows) hashes.set(r.id, await knownInputHash(db, r));
-  const ids = rows.map((r) => r.id);
-  const latest = await db.selectDistinctOn([analyses.studyId], { studyId: analyses.studyId, id: analyses.id, state: analyses.state, inputHash: analyses.inputHash })
-    .from(analyses).where(inArray(analyses.studyId, ids)).orderBy(analyses.studyId, desc(analyses.id));
-  const current = await db.selectDistinctOn([analyses.studyId], { studyId: analyses.studyId, id: analyses.id, inputHash: analyses.inputHash })
-    .from(analyses)
-    .where(and(inArray(analyses.studyId, ids), eq(analyses.state, 'done'), inArray(analyses.inputHash, [...new Set(hashes.values())])))
-    .orderBy(analyses.studyId, analyses.inputHash, desc(analyses.id));
+  if (!ids.length) return out;
+  const { rows } = await db.execute<{ studyId: number; latestId: number | null; latestState: string | null; latestHash: string | null; currentId: number | null }>(sql`
+    SELECT s.id AS "studyId", l.id AS "latestId", l.state AS "latestState", l.input_hash AS "latestHash",
+           (SELECT c.id FROM ${analyses} c WHERE c.study_id = s.id AND c.state = 'done' AND c.input_hash = s.hash ORDER BY c.id DESC LIMIT 1) AS "currentId"
+      FROM unnest(${intArray(ids)}::int[], ${`{${ids.map((id) => known.get(id)!.hash).join(',')}}`}::text[]) AS s(id, hash)
+      LEFT JOIN LATERAL (SELECT a.id, a.state, a.input_hash FROM ${analyses} a WHERE a.study_id = s.id ORDER BY a.id DESC LIMIT 1) l ON true`);
   for (const r of rows) {
-    const hash = hashes.get(r.id)!;
-    const last = latest.find((a) => a.studyId === r.id);
-    if (!last) { out.set(r.id, { status: 'none', latestId: null, currentId: null }); continue; }
-    const now = current.find((a) => a.studyId === r.id && a.inputHash === hash);
+    if (r.latestId === null) { out.set(r.studyId, { status: 'none', latestId: null, currentId: null }); continue; }
     const status: FindingsStatus =
-      last.state === 'queued' || last.state === 'running' ? last.state
-        : now ? 'current'
-          : last.state === 'failed' && last.inputHash === hash ? 'failed'
+      r.latestState === 'queued' || r.latestState === 'running' ? r.latestState
+        : r.currentId !== null ? 'current'
+          : r.latestState === 'failed' && r.latestHash === known.get(r.studyId)!.hash ? 'failed'
             : 'out-of-date';
-    out.set(r.id, { status, latestId: last.id, currentId: now?.id ?? null });
+    out.set(r.studyId, { status, latestId: r.latestId, currentId: r.currentId });
   }
   return out;
+}
+
+export async function findingsOfMany(db: Executor, rows: StudyRow[]): Promise<Map<number, Findings>> {
+  return findingsFor(db, rows.map((r) => r.id), await knownInputs(db, rows));
 }
 
 export async function findingsOf(db: Executor, study: StudyRow): Promise<Findings> {
   return (await findingsOfMany(db, [study])).get(study.id)!;
 }
 
-/** Study rows → summaries, with analyte, instruments, n and findings status, in a few queries. */
-export async function summarise(db: Executor, rows: StudyRow[], findings?: Map<number, Findings>): Promise<StudySummary[]> {
-  if (!rows.length) return [];
-  const ids = rows.map((r) => r.id);
+/** The names a summary shows (analytes, the laboratory's instruments, creators), in one query. */
+async function namesFor(db: Executor, rows: StudyRow[]) {
+  const { rows: names } = await db.execute<{ kind: 'analyte' | 'instrument' | 'user'; id: number; name: string }>(sql`
+    SELECT 'analyte' AS kind, id, name FROM ${analytes} WHERE id = ANY(${intArray(rows.map((r) => r.analyteId))}::int[])
+    UNION ALL SELECT 'instrument', id, name FROM ${instruments} WHERE laboratory_id = ${rows[0].laboratoryId}
+    UNION ALL SELECT 'user', id, name FROM ${users} WHERE id = ANY(${intArray(rows.map((r) => r.createdBy))}::int[])`);
+  const of = (kind: string) => new Map(names.filter((n) => n.kind === kind).map((n) => [n.id, n.name]));
+  return { analytes: of('analyte'), instruments: of('instrument'), users: of('user') };
+}
+
+interface Summarised { summaries: StudySummary[]; findings: Map<number, Findings>; instruments: Map<number, string> }
+
+async function summariseAll(db: Executor, rows: StudyRow[]): Promise<Summarised> {
+  if (!rows.length) return { summaries: [], findings: new Map(), instruments: new Map() };
   // One after another: inside a transaction all queries share one connection.
-  const analyteRows = await db.select({ id: analytes.id, name: analytes.name }).from(analytes).where(inArray(analytes.id, rows.map((r) => r.analyteId)));
-  const instrumentRows = await db.select({ id: instruments.id, name: instruments.name }).from(instruments).where(eq(instruments.laboratoryId, rows[0].laboratoryId));
-  const userRows = await db.select({ id: users.id, name: users.name }).from(users).where(inArray(users.id, rows.map((r) => r.createdBy)));
-  const f = findings ?? (await findingsOfMany(db, rows));
-  const fresh = await db.select({ id: studies.id, n: studies.includedCount }).from(studies).where(inArray(studies.id, ids));
-  const unknown = fresh.filter((c) => c.n === null).map((c) => c.id);
-  if (unknown.length) {
-    // A count not yet stored (a concurrent change cleared it): counted from the rows.
-    const counted = await db.select({ id: specimens.studyId, n: sql<number>`count(*)::int` }).from(specimens)
-      .where(and(inArray(specimens.studyId, unknown), eq(specimens.excluded, false))).groupBy(specimens.studyId);
-    for (const c of fresh) if (c.n === null) c.n = counted.find((k) => k.id === c.id)?.n ?? 0;
-  }
-  const name = (list: { id: number; name: string }[], id: number | null) => list.find((x) => x.id === id)?.name ?? '';
-  return rows.map((r) => {
-    const inst = r.kind === 'method-comparison'
-      ? `${name(instrumentRows, r.comparativeInstrumentId) || '?'} → ${name(instrumentRows, r.candidateInstrumentId) || '?'}`
-      : name(instrumentRows, r.instrumentId);
-    return {
-      id: r.id, kind: r.kind as StudyKind, title: r.title,
-      analyte: { id: r.analyteId, name: name(analyteRows, r.analyteId) },
-      instruments: inst,
-      n: fresh.find((c) => c.id === r.id)?.n ?? 0,
-      state: r.state as StudyState,
-      superseded: r.supersededById !== null,
-      findings: f.get(r.id)!.status,
-      updatedAt: r.updatedAt.toISOString(),
-      createdBy: { id: r.createdBy, name: name(userRows, r.createdBy) },
-    };
-  });
+  const known = await knownInputs(db, rows);
+  const names = await namesFor(db, rows);
+  const findings = await findingsFor(db, rows.map((r) => r.id), known);
+  const name = (map: Map<number, string>, id: number | null) => (id === null ? '' : map.get(id) ?? '');
+  const summaries = rows.map((r): StudySummary => ({
+    id: r.id, kind: r.kind as StudyKind, title: r.title,
+    analyte: { id: r.analyteId, name: name(names.analytes, r.analyteId) },
+    instruments: r.kind === 'method-comparison'
+      ? `${name(names.instruments, r.comparativeInstrumentId) || '?'} → ${name(names.instruments, r.candidateInstrumentId) || '?'}`
+      : name(names.instruments, r.instrumentId),
+    n: known.get(r.id)!.included,
+    state: r.state as StudyState,
+    superseded: r.supersededById !== null,
+    findings: findings.get(r.id)!.status,
+    updatedAt: r.updatedAt.toISOString(),
+    createdBy: { id: r.createdBy, name: name(names.users, r.createdBy) },
+  }));
+  return { summaries, findings, instruments: names.instruments };
+}
+
+/** Study rows → summaries, with analyte, instruments, n and findings status, in three queries whatever their number. */
+export async function summarise(db: Executor, rows: StudyRow[]): Promise<StudySummary[]> {
+  return (await summariseAll(db, rows)).summaries;
 }
 
 export async function studyView(db: Executor, row: StudyRow): Promise<Study> {
-  const findings = await findingsOfMany(db, [row]);
+  const { summaries: [summary], findings, instruments: lab } = await summariseAll(db, [row]);
   const f = findings.get(row.id)!;
-  const [summary] = await summarise(db, [row], findings);
-  const [analyte] = await db.select().from(analytes).where(eq(analytes.id, row.analyteId));
-  const inst = async (id: number | null) =>
-    id === null ? null : (await db.select({ id: instruments.id, name: instruments.name }).from(instruments).where(eq(instruments.id, id)))[0] ?? null;
+  const [analyte] = await db.select({ unit: analytes.unit, canBeNegative: analytes.canBeNegative }).from(analytes).where(eq(analytes.id, row.analyteId));
+  const inst = (id: number | null) => (id === null || !lab.has(id) ? null : { id, name: lab.get(id)! });
   return {
     ...summary,
     purpose: row.purpose,
     analyteUnit: analyte.unit,
     canBeNegative: analyte.canBeNegative,
-    comparativeInstrument: await inst(row.comparativeInstrumentId),
-    candidateInstrument: await inst(row.candidateInstrumentId),
-    instrument: await inst(row.instrumentId),
+    comparativeInstrument: inst(row.comparativeInstrumentId),
+    candidateInstrument: inst(row.candidateInstrumentId),
+    instrument: inst(row.instrumentId),
     settings: StudySettings.parse(row.settings),
     version: row.version,
     supersedesId: row.supersedesId,
@@ -103,4 +112,3 @@ export async function studyView(db: Executor, row: StudyRow): Promise<Study> {
     returnComment: row.returnComment,
   };
 }
-
