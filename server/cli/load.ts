@@ -16,6 +16,7 @@
  * dropped at the end. Figures depend on the machine: the README gives those of the project's 2-core one.
  */
 import { spawn, type ChildProcess } from 'node:child_process';
+import { existsSync } from 'node:fs';
 import net from 'node:net';
 import path from 'node:path';
 import bcrypt from 'bcryptjs';
@@ -254,7 +255,8 @@ async function pushedDone(url: string, cookie: string, id: number): Promise<numb
   }
 }
 
-async function analyses(url: string, lab: Lab, session: { cookie: string; xsrf: string }, rounds: number): Promise<AnalysisFigures> {
+/** A new draft comparison of 120 invented glucose pairs, entered through the API. */
+async function timingStudy(url: string, lab: Lab, session: { cookie: string; xsrf: string }): Promise<number> {
   const headers = { 'content-type': 'application/json', cookie: session.cookie, 'x-xsrf-token': session.xsrf };
   const created = await fetch(`${url}/api/v1/studies`, { method: 'POST', headers, body: JSON.stringify({ kind: 'method-comparison', title: `Timing ${Date.now()}`, analyteId: lab.analyteId, comparativeInstrumentId: lab.lineIds[0], candidateInstrumentId: lab.lineIds[1] }) });
   const study = await created.json() as { id: number; version: number };
@@ -265,6 +267,12 @@ async function analyses(url: string, lab: Lab, session: { cookie: string; xsrf: 
   });
   const put = await fetch(`${url}/api/v1/studies/${study.id}/specimens`, { method: 'PUT', headers, body: JSON.stringify({ version: study.version, rows }) });
   if (put.status !== 200) throw new Error(`entering the timing rows answered ${put.status}: ${await put.text()}`);
+  return study.id;
+}
+
+async function analyses(url: string, lab: Lab, session: { cookie: string; xsrf: string }, rounds: number): Promise<AnalysisFigures> {
+  const headers = { 'content-type': 'application/json', cookie: session.cookie, 'x-xsrf-token': session.xsrf };
+  const study = { id: await timingStudy(url, lab, session) };
   await fetch(`${url}/api/v1/health`);
   const postToDone: number[] = [];
   const clickToFindings: number[] = [];
@@ -305,7 +313,46 @@ async function analyses(url: string, lab: Lab, session: { cookie: string; xsrf: 
   };
 }
 
-interface Measured { tree: string; alone: RouteFigures[]; mix: { figures: RouteFigures[]; total: number; perSecond: number }; analyses: AnalysisFigures }
+/**
+ * In Chromium (Debian's, driven by Playwright), where the checkout has a built client: a new study of 120
+ * pairs each round, its Findings tab opened, then the time from the click on "Run" to the findings drawn.
+ */
+async function pageTimings(tree: string, url: string, lab: Lab, session: { cookie: string; xsrf: string }, rounds: number): Promise<{ p50: number; p95: number; firstMs: number } | null> {
+  const chromiumPath = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
+  if (!existsSync(path.join(tree, 'dist/client/browser/index.html')) || !existsSync(chromiumPath)) return null;
+  // eslint-disable-next-line @typescript-eslint/no-require-imports
+  const { chromium } = require('@playwright/test') as typeof import('@playwright/test');
+  const browser = await chromium.launch({
+    executablePath: chromiumPath,
+    args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+  });
+  try {
+    const page = await browser.newPage({ viewport: { width: 1366, height: 768 } });
+    await page.goto(`${url}/sign-in`);
+    await page.getByTestId('email').fill(lab.emails[0]);
+    await page.getByTestId('password').fill(DEMO_PASSWORD);
+    await page.getByTestId('sign-in').click();
+    await page.getByTestId('welcome').waitFor();
+    const times: number[] = [];
+    for (let r = 0; r < rounds + 1; r++) {
+      const id = await timingStudy(url, lab, session);
+      await page.goto(`${url}/studies/${id}/findings`);
+      const run = page.getByTestId('run-analysis');
+      await run.waitFor();
+      const click = performance.now();
+      await run.click();
+      await page.getByTestId('verdict-panel').waitFor({ state: 'visible', timeout: 60_000 });
+      times.push(performance.now() - click);
+    }
+    const [first, ...rest] = times;
+    const sorted = rest.sort((a, b) => a - b);
+    return { p50: round1(percentile(sorted, 50)), p95: round1(percentile(sorted, 95)), firstMs: round1(first) };
+  } finally {
+    await browser.close();
+  }
+}
+
+interface Measured { tree: string; alone: RouteFigures[]; mix: { figures: RouteFigures[]; total: number; perSecond: number }; analyses: AnalysisFigures; page: { p50: number; p95: number; firstMs: number } | null }
 
 async function measure(tree: string, databaseUrl: string, lab: Lab, o: Options): Promise<Measured> {
   log(`starting the API of ${tree}`);
@@ -325,7 +372,9 @@ async function measure(tree: string, databaseUrl: string, lab: Lab, o: Options):
     const mix = await drive(api.url, list, cookies, o.users, o.seconds);
     log(`  ${o.analyses} analyses of 120 pairs`);
     const timing = await analyses(api.url, lab, sessions[0], o.analyses);
-    return { tree, alone, mix, analyses: timing };
+    log('  the page in Chromium: click on Run to findings drawn');
+    const page = await pageTimings(tree, api.url, lab, sessions[0], Math.min(o.analyses, 8));
+    return { tree, alone, mix, analyses: timing, page };
   } finally {
     await stopApi(api.child);
   }
@@ -350,6 +399,7 @@ function report(all: Measured[], o: Options, seeded: string): string {
     const a = m.analyses;
     out.push(`  analysis of 120 pairs: first after start ${a.firstMs} ms; then POST to done p50 ${a.postToDone.p50} ms, p95 ${a.postToDone.p95} ms (${a.rounds} runs)`);
     out.push(a.clickToFindings ? `  click to findings (POST, pushed "done", results and study read): p50 ${a.clickToFindings.p50} ms, p95 ${a.clickToFindings.p95} ms` : '  click to findings: this API pushes no events');
+    out.push(m.page ? `  the page in Chromium, click on Run to findings drawn (120 pairs): p50 ${m.page.p50} ms, p95 ${m.page.p95} ms (first ${m.page.firstMs} ms)` : '  the page: not measured (no built client in this checkout, or no Chromium)');
     out.push(a.eventLoop ? `  API event-loop delay while analyses ran: p99 ${a.eventLoop.p99} ms, max ${a.eventLoop.max} ms` : '  API event-loop delay: not reported by this API');
     out.push('');
   }
