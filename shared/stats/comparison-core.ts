@@ -11,9 +11,6 @@ import { judgedInterval, narrowerThanStep } from './resolution';
 import { regression, type RegressionResult } from './regression';
 import { streamFor } from './rng';
 
-/** Above this many pairs Passing–Bablok's n(n − 1)/2 slopes take too much memory and time per resample. */
-export const PASSING_BABLOK_MAX_PAIRS = 3000;
-
 const NONE: Estimate = { estimate: NaN, ci: null };
 
 /** What the core run produced, beside the summary the result shows. */
@@ -64,10 +61,6 @@ function fitRegression(x: Float64Array, y: Float64Array, o: ResolvedComparisonOp
   }
   if (x.every((v) => v === x[0])) {
     warnings.push('Regression is not estimated: the comparative values (x) have no spread.');
-    return null;
-  }
-  if (o.regression === 'passing-bablok' && x.length > PASSING_BABLOK_MAX_PAIRS) {
-    warnings.push(`Passing–Bablok is limited to ${PASSING_BABLOK_MAX_PAIRS} pairs here (it sorts n(n − 1)/2 pairwise slopes and walks them in every resample); use Deming for ${x.length} pairs.`);
     return null;
   }
   if (o.regression === 'weighted-deming' && !x.every((v, i) => v + y[i] > 0)) {

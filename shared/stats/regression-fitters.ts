@@ -1,6 +1,6 @@
 import { demingFromSums, olsFromSums, type LineFit } from './deming';
 import { pairSums } from './pair-sums';
-import { slopeTable, type SlopeTable } from './slope-table';
+import { slopeOrder, type SlopeOrder } from './slope-selection';
 import { weightedPassingBablok } from './passing-bablok-weighted';
 import { weightedDeming } from './weighted-deming';
 
@@ -11,13 +11,14 @@ export type LineFitter = (multiplicity: Int32Array) => LineFit;
 
 /**
  * One fitter per method, each reusing its buffers across calls, so that the bootstrap loop allocates
- * nothing: Passing–Bablok reads the slope table sorted once (passing-bablok-weighted.ts); Deming and
- * ordinary least squares use weighted sums (pair-sums.ts); weighted Deming iterates (weighted-deming.ts).
+ * nothing: Passing–Bablok selects weighted ranks of slopes prepared once (passing-bablok-weighted.ts,
+ * slope-selection.ts); Deming and ordinary least squares use weighted sums (pair-sums.ts); weighted
+ * Deming iterates (weighted-deming.ts).
  */
-export function lineFitter(method: RegressionMethod, x: Float64Array, y: Float64Array, lambda: number, table?: SlopeTable): LineFitter {
+export function lineFitter(method: RegressionMethod, x: Float64Array, y: Float64Array, lambda: number, order?: SlopeOrder): LineFitter {
   switch (method) {
     case 'passing-bablok': {
-      const slopes = table ?? slopeTable(x, y);
+      const slopes = order ?? slopeOrder(x, y);
       const scratch = new Float64Array(x.length);
       return (m) => weightedPassingBablok(slopes, x, y, m, scratch);
     }

@@ -5,7 +5,7 @@ import { jackknifeInterval } from './jackknife';
 import { cusumLinearity } from './cusum-linearity';
 import { passingBablok } from './passing-bablok';
 import { lineFitter, type RegressionMethod } from './regression-fitters';
-import { slopeTable, type SlopeTable } from './slope-table';
+import { slopeOrder, type SlopeOrder } from './slope-selection';
 
 /**
  * Regression of the candidate (y) on the comparative method (x), with predicted bias at decision levels:
@@ -41,8 +41,8 @@ export interface RegressionResult {
 
 export function regression(x: Float64Array, y: Float64Array, options: RegressionOptions): RegressionResult {
   const n = x.length;
-  const table = options.method === 'passing-bablok' ? slopeTable(x, y) : undefined;
-  const fit = lineFitter(options.method, x, y, options.lambda, table);
+  const slopes = options.method === 'passing-bablok' ? slopeOrder(x, y) : undefined;
+  const fit = lineFitter(options.method, x, y, options.lambda, slopes);
   const full = fit(new Int32Array(n).fill(1));
   if (!Number.isFinite(full.slope)) throw new RangeError('regression requires spread in x and a defined slope');
   const levels = options.decisionLevels;
@@ -86,11 +86,11 @@ export function regression(x: Float64Array, y: Float64Array, options: Regression
     undefinedResamples,
     bcaFailed,
   };
-  return table ? withRankCis(result, x, y, options.level, table) : result;
+  return slopes ? withRankCis(result, x, y, options.level, slopes) : result;
 }
 
-function withRankCis(result: RegressionResult, x: Float64Array, y: Float64Array, level: number, table: SlopeTable): RegressionResult {
-  const pb = passingBablok(x, y, level, table);
+function withRankCis(result: RegressionResult, x: Float64Array, y: Float64Array, level: number, slopes: SlopeOrder): RegressionResult {
+  const pb = passingBablok(x, y, level, slopes);
   const linearity = cusumLinearity(x, y, pb.slope, pb.intercept);
   return {
     ...result,

@@ -10,6 +10,7 @@ import { reportedDecimals } from './precision';
  * of two exact integers, so slopes equal in decimal (0.3/0.1 and 0.6/0.2) are equal doubles and a slope is
  * −1 exactly when Δy = −Δx. Where the integers would pass 2^52 the values carry about as many digits as a
  * double holds, and their binary differences are the reported precision.
+ * O(n²) time and memory: used for few rows and beyond slope-selection.ts's ranges, and as its reference.
  */
 export interface SlopeTable {
   slopes: Float64Array;
@@ -65,7 +66,7 @@ export function slopeTable(x: ArrayLike<number>, y: ArrayLike<number>): SlopeTab
 }
 
 /** The values as integers of their last reported decimal, or null where that is not exact below 2^52. */
-function asIntegers(values: ArrayLike<number>, decimals: number): Float64Array | null {
+export function asIntegers(values: ArrayLike<number>, decimals: number): Float64Array | null {
   if (decimals > 22) return null;
   const scale = 10 ** decimals;
   const out = new Float64Array(values.length);
