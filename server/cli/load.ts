@@ -352,7 +352,7 @@ async function pageTimings(tree: string, url: string, lab: Lab, session: { cooki
   }
 }
 
-interface Measured { tree: string; alone: RouteFigures[]; mix: { figures: RouteFigures[]; total: number; perSecond: number }; analyses: AnalysisFigures; page: { p50: number; p95: number; firstMs: number } | null }
+interface Measured { tree: string; alone: RouteFigures[]; mix: { figures: RouteFigures[]; total: number; perSecond: number }; analyses: AnalysisFigures | null; page: { p50: number; p95: number; firstMs: number } | null }
 
 async function measure(tree: string, databaseUrl: string, lab: Lab, o: Options): Promise<Measured> {
   log(`starting the API of ${tree}`);
@@ -371,9 +371,13 @@ async function measure(tree: string, databaseUrl: string, lab: Lab, o: Options):
     log(`  ${o.users} users for ${o.seconds} s`);
     const mix = await drive(api.url, list, cookies, o.users, o.seconds);
     log(`  ${o.analyses} analyses of 120 pairs`);
-    const timing = await analyses(api.url, lab, sessions[0], o.analyses);
+    const failed = (what: string) => (err: unknown) => {
+      log(`  ${what} failed: ${(err as Error).message}`);
+      return null;
+    };
+    const timing = await analyses(api.url, lab, sessions[0], o.analyses).catch(failed('the analyses'));
     log('  the page in Chromium: click on Run to findings drawn');
-    const page = await pageTimings(tree, api.url, lab, sessions[0], Math.min(o.analyses, 8));
+    const page = timing ? await pageTimings(tree, api.url, lab, sessions[0], Math.min(o.analyses, 8)).catch(failed('the page')) : null;
     return { tree, alone, mix, analyses: timing, page };
   } finally {
     await stopApi(api.child);
@@ -397,6 +401,10 @@ function report(all: Measured[], o: Options, seeded: string): string {
     const errors = m.mix.figures.reduce((s, f) => s + Object.entries(f.notOk).filter(([st]) => Number(st) >= 500).reduce((t, [, n]) => t + n, 0), 0);
     out.push(`  all routes: ${m.mix.perSecond} requests/s; worst route p95 ${all95} ms; ${errors} answers 5xx`);
     const a = m.analyses;
+    if (!a) {
+      out.push('  analyses: not measured (see the log above)', '');
+      continue;
+    }
     out.push(`  analysis of 120 pairs: first after start ${a.firstMs} ms; then POST to done p50 ${a.postToDone.p50} ms, p95 ${a.postToDone.p95} ms (${a.rounds} runs)`);
     out.push(a.clickToFindings ? `  click to findings (POST, pushed "done", results and study read): p50 ${a.clickToFindings.p50} ms, p95 ${a.clickToFindings.p95} ms` : '  click to findings: this API pushes no events');
     out.push(m.page ? `  the page in Chromium, click on Run to findings drawn (120 pairs): p50 ${m.page.p50} ms, p95 ${m.page.p95} ms (first ${m.page.firstMs} ms)` : '  the page: not measured (no built client in this checkout, or no Chromium)');

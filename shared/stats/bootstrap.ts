@@ -1,3 +1,4 @@
+import { medianFromCounts, positionOfRank } from './counts-stats';
 import type { Xor128 } from './rng';
 
 /** Limits on the number of resamples (the issue's contract: default 10,000, allowed 1,000 to 200,000). */
@@ -33,6 +34,44 @@ export function forEachResample(
     if (onProgress && (b + 1) % step === 0) onProgress((b + 1) / resamples);
   }
   onProgress?.(1);
+}
+
+/**
+ * The median of every resample, as forEachResample with medianFromCounts gives it (the same draws, the same
+ * values in the same order) but in one loop with no call through a visitor per resample, for the median CI
+ * (differenceBias; `npm run bench`'s median-ci). For even n the draws are tallied by halves while they are
+ * counted (Xor128.fillCountsUpperHalf), which gives counts[0] + … + counts[n/2 − 1], so the two middle order
+ * statistics are found by walking from the middle (positionOfRank: about √n/2 steps) rather than from an end
+ * (n/2 steps); for odd n no position boundary falls at u = 1/2 and medianFromCounts reads each resample.
+ * `visit`, when given, is called after each median with the same counts (the caller's other statistics of the
+ * same resamples). Replicates are written into `replicates` (length >= B). Memory: one Int32Array of n.
+ */
+export function medianReplicates(
+  sorted: Float64Array, settings: ResampleSettings, replicates = new Float64Array(settings.resamples),
+  visit?: (counts: Int32Array, b: number) => void,
+): Float64Array {
+  const n = sorted.length;
+  if (n < 1) throw new RangeError('medianReplicates requires at least 1 value');
+  const counts = new Int32Array(n);
+  const { resamples, stream, onProgress } = settings;
+  const step = Math.max(1, Math.floor(resamples / 50));
+  const half = n >> 1;
+  const even = n % 2 === 0;
+  for (let b = 0; b < resamples; b++) {
+    if (even) {
+      const below = n - stream.fillCountsUpperHalf(counts, n);
+      const lower = positionOfRank(counts, half, below, half);
+      const upper = positionOfRank(counts, half, below, half + 1);
+      replicates[b] = lower === upper ? sorted[lower] : (sorted[lower] + sorted[upper]) / 2;
+    } else {
+      stream.fillCounts(counts, n);
+      replicates[b] = medianFromCounts(sorted, counts, n);
+    }
+    if (visit) visit(counts, b);
+    if (onProgress && (b + 1) % step === 0) onProgress((b + 1) / resamples);
+  }
+  onProgress?.(1);
+  return replicates;
 }
 
 /**

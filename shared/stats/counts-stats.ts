@@ -35,6 +35,26 @@ export function quantileFromCounts(sorted: Float64Array, counts: Int32Array, n: 
   return below + fraction * (orderStatisticFromCounts(sorted, counts, n, lowerRank + 1) - below);
 }
 
+/**
+ * The 0-based position of the value at 1-based rank `rank` (1 <= rank <= total of counts), walking from
+ * position `split` when below = counts[0] + … + counts[split − 1] is known (0 <= split <= n): down when the
+ * rank lies below split, up otherwise. The same position as a walk from the low end, in as many steps as the
+ * rank's position is away from split.
+ */
+export function positionOfRank(counts: Int32Array, split: number, below: number, rank: number): number {
+  let k = split;
+  let seen = below;
+  if (seen >= rank) {
+    do {
+      k--;
+      seen -= counts[k];
+    } while (seen >= rank);
+    return k;
+  }
+  while ((seen += counts[k]) < rank) k++;
+  return k;
+}
+
 export function medianFromCounts(sorted: Float64Array, counts: Int32Array, n: number): number {
   const half = n >> 1;
   if (n % 2 === 1) return orderStatisticFromCounts(sorted, counts, n, half + 1);

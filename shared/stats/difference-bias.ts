@@ -1,4 +1,4 @@
-import { forEachResample, type ProgressFn, progressSpan } from './bootstrap';
+import { medianReplicates, type ProgressFn, progressSpan } from './bootstrap';
 import { bcaFallbackWarning, summariseReplicates, type BootstrapEstimate, type IntervalMethod } from './bootstrap-estimate';
 import { medianFromCounts, momentsFromCounts } from './counts-stats';
 import { histogram, type Histogram } from './histogram';
@@ -48,8 +48,7 @@ export function differenceBias(differences: Float64Array, s: DifferenceBiasSetti
   const reps = { mean: new Float64Array(B), median: new Float64Array(B), sd: new Float64Array(B), lower: new Float64Array(B), upper: new Float64Array(B) };
   const moments = new Float64Array(2);
   const centre = sorted[n >> 1];
-  forEachResample(n, { resamples: B, stream: streamFor(s.seed, 'differences'), onProgress: progressSpan(s.onProgress, 0, 0.5) }, (counts, b) => {
-    reps.median[b] = medianFromCounts(sorted, counts, n);
+  medianReplicates(sorted, { resamples: B, stream: streamFor(s.seed, 'differences'), onProgress: progressSpan(s.onProgress, 0, 0.5) }, reps.median, (counts, b) => {
     momentsFromCounts(sorted, counts, n, centre, moments);
     reps.mean[b] = moments[0];
     reps.sd[b] = moments[1];
