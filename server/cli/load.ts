@@ -6,7 +6,8 @@
  * pairs, `--big` of them with 2,000 pairs, each with a finished analysis), starts the API as its own process
  * (as `npm start` runs it), signs in `--users` people, and drives it with autocannon:
  *   1. each read route alone (one connection, a few seconds): p50/p95/p99;
- *   2. all users at once for `--seconds`, each cycling worklist → studies list → a study → its history:
+ *   2. all users at once for `--seconds`, each cycling worklist → studies list → a study → its history,
+ *      once as fast as answers come (a closed loop) and once paced at two requests a second per user:
  *      requests/s and p50/p95/p99 per route, and every status other than 200;
  *   3. analyses of a 120-pair study, one after another: POST to done (the state as stored, read every
  *      10 ms) and, where the server pushes events, click to findings (POST, the pushed "done", the results
@@ -39,6 +40,8 @@ interface AutocannonInstance extends Promise<{ requests: { total: number }; dura
 
 const ROOT = path.resolve(__dirname, '../..');
 const LIMIT_MINUTES = 25;
+/** The paced phase: each user asks this often (a page every second is a busy reader; the closed loop asks as fast as answers come). */
+const PACED_PER_SECOND = 2;
 
 interface Options { users: number; seconds: number; studies: number; big: number; against: string | null; json: boolean; analyses: number }
 
@@ -205,7 +208,7 @@ function routes(lab: Lab): Route[] {
 }
 
 /** autocannon over the given routes, each connection cycling through them in order with its own sign-in. */
-async function drive(url: string, list: Route[], cookies: string[], connections: number, seconds: number): Promise<{ figures: RouteFigures[]; total: number; perSecond: number }> {
+async function drive(url: string, list: Route[], cookies: string[], connections: number, seconds: number, perUserPerSecond?: number): Promise<{ figures: RouteFigures[]; total: number; perSecond: number }> {
   let nextCookie = 0;
   const requests = list.map((r) => ({
     method: 'GET',
@@ -217,7 +220,7 @@ async function drive(url: string, list: Route[], cookies: string[], connections:
   const times: number[][] = list.map(() => []);
   const notOk: Record<string, number>[] = list.map(() => ({}));
   const seen = new WeakMap<object, number>();
-  const instance = autocannon({ url, connections, duration: seconds, requests, timeout: 60 });
+  const instance = autocannon({ url, connections, duration: seconds, requests, timeout: 60, ...(perUserPerSecond ? { connectionRate: perUserPerSecond } : {}) });
   instance.on('response', (client, status, _bytes, ms) => {
     const k = seen.get(client) ?? 0;
     seen.set(client, k + 1);
@@ -352,7 +355,7 @@ async function pageTimings(tree: string, url: string, lab: Lab, session: { cooki
   }
 }
 
-interface Measured { tree: string; alone: RouteFigures[]; mix: { figures: RouteFigures[]; total: number; perSecond: number }; analyses: AnalysisFigures | null; page: { p50: number; p95: number; firstMs: number } | null }
+interface Measured { tree: string; alone: RouteFigures[]; mix: { figures: RouteFigures[]; total: number; perSecond: number }; paced: { figures: RouteFigures[]; total: number; perSecond: number }; analyses: AnalysisFigures | null; page: { p50: number; p95: number; firstMs: number } | null }
 
 async function measure(tree: string, databaseUrl: string, lab: Lab, o: Options): Promise<Measured> {
   log(`starting the API of ${tree}`);
@@ -370,6 +373,8 @@ async function measure(tree: string, databaseUrl: string, lab: Lab, o: Options):
     }
     log(`  ${o.users} users for ${o.seconds} s`);
     const mix = await drive(api.url, list, cookies, o.users, o.seconds);
+    log(`  ${o.users} users for ${o.seconds} s, each asking ${PACED_PER_SECOND} times a second`);
+    const paced = await drive(api.url, list, cookies, o.users, o.seconds, PACED_PER_SECOND);
     log(`  ${o.analyses} analyses of 120 pairs`);
     const failed = (what: string) => (err: unknown) => {
       log(`  ${what} failed: ${(err as Error).message}`);
@@ -378,7 +383,7 @@ async function measure(tree: string, databaseUrl: string, lab: Lab, o: Options):
     const timing = await analyses(api.url, lab, sessions[0], o.analyses).catch(failed('the analyses'));
     log('  the page in Chromium: click on Run to findings drawn');
     const page = timing ? await pageTimings(tree, api.url, lab, sessions[0], Math.min(o.analyses, 8)).catch(failed('the page')) : null;
-    return { tree, alone, mix, analyses: timing, page };
+    return { tree, alone, mix, paced, analyses: timing, page };
   } finally {
     await stopApi(api.child);
   }
@@ -400,6 +405,10 @@ function report(all: Measured[], o: Options, seeded: string): string {
     const all95 = Math.max(...m.mix.figures.map((f) => f.p95));
     const errors = m.mix.figures.reduce((s, f) => s + Object.entries(f.notOk).filter(([st]) => Number(st) >= 500).reduce((t, [, n]) => t + n, 0), 0);
     out.push(`  all routes: ${m.mix.perSecond} requests/s; worst route p95 ${all95} ms; ${errors} answers 5xx`);
+    const p95 = Math.max(...m.paced.figures.map((f) => f.p95));
+    const p99 = Math.max(...m.paced.figures.map((f) => f.p99));
+    const pacedErrors = m.paced.figures.reduce((t, f) => t + Object.entries(f.notOk).filter(([st]) => Number(st) >= 500).reduce((u, [, k]) => u + k, 0), 0);
+    out.push(`  paced, each user ${PACED_PER_SECOND} requests a second: ${m.paced.perSecond} requests/s; ${m.paced.figures.map((f) => `${f.route} p95 ${f.p95}`).join(', ')}; worst p95 ${p95} ms, p99 ${p99} ms; ${pacedErrors} answers 5xx`);
     const a = m.analyses;
     if (!a) {
       out.push('  analyses: not measured (see the log above)', '');

@@ -51,6 +51,8 @@ describe('studies', () => {
     const page = await tech.agent.get('/api/v1/studies').query({ q: tag, sort: 'title', order: 'asc', pageSize: 2, page: 2 }).expect(200);
     expect(page.body.total).toBe(3);
     expect(page.body.items.map((s: { title: string }) => s.title)).toEqual([`${tag} 2`]);
+    const past = await tech.agent.get('/api/v1/studies').query({ q: tag, pageSize: 2, page: 5 }).expect(200);
+    expect(past.body).toEqual({ items: [], total: 3 });
     const cedar = await signedIn(h, 'tech@cedarpoint.example');
     const theirs = await cedar.agent.get('/api/v1/studies').query({ q: tag }).expect(200);
     expect(theirs.body.total).toBe(0);
