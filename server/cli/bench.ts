@@ -190,7 +190,7 @@ function targets(rows: Row[], c: CProgram): string {
   ].join('\n');
 }
 
-/** Fresh processes per size for the C ratio: V8 places the loop's code differently in each, and its speed follows. */
+/** Fresh processes per size for the C ratio: the engine's loop runs at one of two speeds in a given process (same V8 optimisation trace). */
 const RATIO_PROCESSES = 5;
 
 /** `--ratio-only N BINARY`: one fresh process's median-ci engine and C times at n = N, as JSON (used by main). */
@@ -215,7 +215,7 @@ function ratioSpread(c: CProgram): Spread[] {
 
 function spreadBlock(spread: Spread[]): string {
   if (!spread.length) return '';
-  return ['median-ci engine/C ratio in fresh processes (V8 places the loop differently in each; the speed has two modes):',
+  return ['median-ci engine/C ratio in fresh processes (the engine loop runs at one of two speeds in a given process):',
     ...spread.map((s) => `  n=${s.n}: ${s.ratios.map((r) => `${r.toFixed(2)}x`).join(', ')}; median ${s.median.toFixed(2)}x${s.same ? '' : ' (CI or SE differed in a run)'}`),
     ...spread.map((s) => `target: median-ci n=${s.n} within ${C_TARGET}x of the tight C loop, median of ${s.ratios.length} processes: ${s.median.toFixed(2)}x ${s.median < C_TARGET && s.same ? 'met' : 'NOT met'}; slowest process ${s.ratios.at(-1)!.toFixed(2)}x`),
   ].join('\n');
