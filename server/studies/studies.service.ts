@@ -1,4 +1,4 @@
-import { and, asc, desc, eq, gte, ilike, inArray, isNotNull, lte, or, sql, SQL } from 'drizzle-orm';
+import { and, asc, desc, eq, gte, ilike, inArray, lte, or, sql, SQL } from 'drizzle-orm';
 import { StudySettings, type CreateStudyBody, type Study, type StudyListQuery, type StudyPage, type UpdateStudyBody, type Worklist } from '../../shared/schemas';
 import { recordAudit } from '../audit/audit';
 import { actorOf, SignedInUser } from '../auth/session-user';
@@ -116,19 +116,23 @@ export async function listStudies(db: Database, me: SignedInUser, q: StudyListQu
 const escapeLike = (s: string) => s.replace(/[\\%_]/g, (c) => `\\${c}`);
 
 export async function worklist(db: Database, me: SignedInUser): Promise<Worklist> {
-  const mine = and(eq(studies.laboratoryId, me.laboratoryId), eq(studies.createdBy, me.id));
-  const lab = eq(studies.laboratoryId, me.laboratoryId);
-  const recent = (w: SQL | undefined, limit = 20) => db.select().from(studies).where(w).orderBy(desc(studies.updatedAt)).limit(limit);
   const isDirector = me.roles.includes('director');
-  const [drafts, returned, awaiting, signed] = await Promise.all([
-    recent(and(mine, eq(studies.state, 'draft'), sql`${studies.returnedAt} IS NULL`)),
-    recent(and(mine, eq(studies.state, 'draft'), isNotNull(studies.returnedAt))),
-    isDirector ? recent(and(lab, eq(studies.state, 'awaiting-signoff'))) : Promise.resolve([]),
-    recent(and(lab, eq(studies.state, 'signed')), 10),
-  ]);
-  // One summary pass over the four lists together (a study is in at most one of them).
-  const all = await summarise(db, [...drafts, ...returned, ...awaiting, ...signed]);
-  const part = (rows: typeof drafts) => rows.map((r) => all.find((x) => x.id === r.id)!);
-  return { drafts: part(drafts), returned: part(returned), awaitingSignature: part(awaiting), recentlySigned: part(signed) };
+  // The four lists' studies in one statement (each list newest first, with its own limit), then summarised
+  // in one pass; a study is in at most one list, told apart by its state, author and return.
+  const ids = sql`
+    SELECT id FROM (SELECT id FROM ${studies} WHERE laboratory_id = ${me.laboratoryId} AND created_by = ${me.id} AND state = 'draft' AND returned_at IS NULL ORDER BY updated_at DESC LIMIT 20) drafts
+    UNION ALL SELECT id FROM (SELECT id FROM ${studies} WHERE laboratory_id = ${me.laboratoryId} AND created_by = ${me.id} AND state = 'draft' AND returned_at IS NOT NULL ORDER BY updated_at DESC LIMIT 20) returned
+    UNION ALL SELECT id FROM (SELECT id FROM ${studies} WHERE laboratory_id = ${me.laboratoryId} AND state = 'awaiting-signoff' AND ${isDirector ? sql`TRUE` : sql`FALSE`} ORDER BY updated_at DESC LIMIT 20) awaiting
+    UNION ALL SELECT id FROM (SELECT id FROM ${studies} WHERE laboratory_id = ${me.laboratoryId} AND state = 'signed' ORDER BY updated_at DESC LIMIT 10) signed`;
+  const rows = await db.select().from(studies).where(sql`${studies.id} IN (${ids})`).orderBy(desc(studies.updatedAt), desc(studies.id));
+  const all = await summarise(db, rows);
+  const part = (keep: (r: (typeof rows)[number]) => boolean) => rows.filter(keep).map((r) => all.find((x) => x.id === r.id)!);
+  const mine = (r: (typeof rows)[number]) => r.createdBy === me.id && r.state === 'draft';
+  return {
+    drafts: part((r) => mine(r) && r.returnedAt === null),
+    returned: part((r) => mine(r) && r.returnedAt !== null),
+    awaitingSignature: part((r) => r.state === 'awaiting-signoff'),
+    recentlySigned: part((r) => r.state === 'signed'),
+  };
 }
 

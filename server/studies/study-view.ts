@@ -1,4 +1,4 @@
-import { eq, sql } from 'drizzle-orm';
+import { sql } from 'drizzle-orm';
 import { StudySettings, type FindingsStatus, type Study, type StudyKind, type StudyState, type StudySummary } from '../../shared/schemas';
 import type { Executor } from '../db/client';
 import { analyses, analytes, instruments, users } from '../db/schema';
@@ -17,22 +17,24 @@ async function knownInputs(db: Executor, rows: StudyRow[]): Promise<Known> {
   return out;
 }
 
+type FindingsRow = { studyId: number; latestId: number | null; latestState: string | null; latestHash: string | null; currentId: number | null };
+
 /**
  * Where the findings of each study stand: its latest run, and whether a finished run was made from the
- * current rows and settings (the stored input hash; no row is loaded). One query for any number of studies.
+ * current rows and settings (the stored input hash; no row is loaded).
  */
-async function findingsFor(db: Executor, ids: number[], known: Known): Promise<Map<number, Findings>> {
+const findingsSql = (ids: number[], known: Known) => sql`
+  SELECT s.id AS "studyId", l.id AS "latestId", l.state AS "latestState", l.input_hash AS "latestHash",
+         (SELECT c.id FROM ${analyses} c WHERE c.study_id = s.id AND c.state = 'done' AND c.input_hash = s.hash ORDER BY c.id DESC LIMIT 1) AS "currentId"
+    FROM unnest(${intArray(ids)}::int[], ${`{${ids.map((id) => known.get(id)!.hash).join(',')}}`}::text[]) AS s(id, hash)
+    LEFT JOIN LATERAL (SELECT a.id, a.state, a.input_hash FROM ${analyses} a WHERE a.study_id = s.id ORDER BY a.id DESC LIMIT 1) l ON true`;
+
+function findingsFrom(rows: FindingsRow[], known: Known): Map<number, Findings> {
   const out = new Map<number, Findings>();
-  if (!ids.length) return out;
-  const { rows } = await db.execute<{ studyId: number; latestId: number | null; latestState: string | null; latestHash: string | null; currentId: number | null }>(sql`
-    SELECT s.id AS "studyId", l.id AS "latestId", l.state AS "latestState", l.input_hash AS "latestHash",
-           (SELECT c.id FROM ${analyses} c WHERE c.study_id = s.id AND c.state = 'done' AND c.input_hash = s.hash ORDER BY c.id DESC LIMIT 1) AS "currentId"
-      FROM unnest(${intArray(ids)}::int[], ${`{${ids.map((id) => known.get(id)!.hash).join(',')}}`}::text[]) AS s(id, hash)
-      LEFT JOIN LATERAL (SELECT a.id, a.state, a.input_hash FROM ${analyses} a WHERE a.study_id = s.id ORDER BY a.id DESC LIMIT 1) l ON true`);
   for (const r of rows) {
     if (r.latestId === null) { out.set(r.studyId, { status: 'none', latestId: null, currentId: null }); continue; }
     const status: FindingsStatus =
-      r.latestState === 'queued' || r.latestState === 'running' ? r.latestState
+      r.latestState === 'queued' || r.latestState === 'running' ? (r.latestState as FindingsStatus)
         : r.currentId !== null ? 'current'
           : r.latestState === 'failed' && r.latestHash === known.get(r.studyId)!.hash ? 'failed'
             : 'out-of-date';
@@ -42,57 +44,66 @@ async function findingsFor(db: Executor, ids: number[], known: Known): Promise<M
 }
 
 export async function findingsOfMany(db: Executor, rows: StudyRow[]): Promise<Map<number, Findings>> {
-  return findingsFor(db, rows.map((r) => r.id), await knownInputs(db, rows));
+  if (!rows.length) return new Map();
+  const known = await knownInputs(db, rows);
+  const { rows: found } = await db.execute<FindingsRow>(findingsSql(rows.map((r) => r.id), known));
+  return findingsFrom(found, known);
 }
 
 export async function findingsOf(db: Executor, study: StudyRow): Promise<Findings> {
   return (await findingsOfMany(db, [study])).get(study.id)!;
 }
 
-/** The names a summary shows (analytes, the laboratory's instruments, creators), in one query. */
-async function namesFor(db: Executor, rows: StudyRow[]) {
-  const { rows: names } = await db.execute<{ kind: 'analyte' | 'instrument' | 'user'; id: number; name: string }>(sql`
-    SELECT 'analyte' AS kind, id, name FROM ${analytes} WHERE id = ANY(${intArray(rows.map((r) => r.analyteId))}::int[])
-    UNION ALL SELECT 'instrument', id, name FROM ${instruments} WHERE laboratory_id = ${rows[0].laboratoryId}
-    UNION ALL SELECT 'user', id, name FROM ${users} WHERE id = ANY(${intArray(rows.map((r) => r.createdBy))}::int[])`);
-  const of = (kind: string) => new Map(names.filter((n) => n.kind === kind).map((n) => [n.id, n.name]));
-  return { analytes: of('analyte'), instruments: of('instrument'), users: of('user') };
-}
+type Named = { id: number; name: string };
+type AnalyteNamed = Named & { unit: string; canBeNegative: boolean };
 
-interface Summarised { summaries: StudySummary[]; findings: Map<number, Findings>; instruments: Map<number, string> }
+interface Summarised { summaries: StudySummary[]; findings: Map<number, Findings>; instruments: Map<number, string>; analytes: Map<number, AnalyteNamed> }
 
+/**
+ * Summaries with the names they show (analytes with their unit, the laboratory's instruments, creators) and
+ * where their findings stand, in one statement whatever the number of studies: each part a JSON aggregate.
+ */
 async function summariseAll(db: Executor, rows: StudyRow[]): Promise<Summarised> {
-  if (!rows.length) return { summaries: [], findings: new Map(), instruments: new Map() };
-  // One after another: inside a transaction all queries share one connection.
+  if (!rows.length) return { summaries: [], findings: new Map(), instruments: new Map(), analytes: new Map() };
   const known = await knownInputs(db, rows);
-  const names = await namesFor(db, rows);
-  const findings = await findingsFor(db, rows.map((r) => r.id), known);
+  const { rows: [parts] } = await db.execute<{ analytes: AnalyteNamed[]; instruments: Named[]; users: Named[]; findings: FindingsRow[] }>(sql`
+    SELECT
+      (SELECT coalesce(json_agg(json_build_object('id', id, 'name', name, 'unit', unit, 'canBeNegative', can_be_negative)), '[]')
+         FROM ${analytes} WHERE id = ANY(${intArray(rows.map((r) => r.analyteId))}::int[])) AS analytes,
+      (SELECT coalesce(json_agg(json_build_object('id', id, 'name', name)), '[]') FROM ${instruments} WHERE laboratory_id = ${rows[0].laboratoryId}) AS instruments,
+      (SELECT coalesce(json_agg(json_build_object('id', id, 'name', name)), '[]') FROM ${users} WHERE id = ANY(${intArray(rows.map((r) => r.createdBy))}::int[])) AS users,
+      (SELECT coalesce(json_agg(f), '[]') FROM (${findingsSql(rows.map((r) => r.id), known)}) f) AS findings`);
+  const byId = <T extends Named>(list: T[]) => new Map(list.map((n) => [n.id, n]));
+  const analyteMap = byId(parts.analytes);
+  const instrumentNames = new Map(parts.instruments.map((n) => [n.id, n.name]));
+  const userNames = new Map(parts.users.map((n) => [n.id, n.name]));
+  const findings = findingsFrom(parts.findings, known);
   const name = (map: Map<number, string>, id: number | null) => (id === null ? '' : map.get(id) ?? '');
   const summaries = rows.map((r): StudySummary => ({
     id: r.id, kind: r.kind as StudyKind, title: r.title,
-    analyte: { id: r.analyteId, name: name(names.analytes, r.analyteId) },
+    analyte: { id: r.analyteId, name: analyteMap.get(r.analyteId)?.name ?? '' },
     instruments: r.kind === 'method-comparison'
-      ? `${name(names.instruments, r.comparativeInstrumentId) || '?'} → ${name(names.instruments, r.candidateInstrumentId) || '?'}`
-      : name(names.instruments, r.instrumentId),
+      ? `${name(instrumentNames, r.comparativeInstrumentId) || '?'} → ${name(instrumentNames, r.candidateInstrumentId) || '?'}`
+      : name(instrumentNames, r.instrumentId),
     n: known.get(r.id)!.included,
     state: r.state as StudyState,
     superseded: r.supersededById !== null,
     findings: findings.get(r.id)!.status,
     updatedAt: r.updatedAt.toISOString(),
-    createdBy: { id: r.createdBy, name: name(names.users, r.createdBy) },
+    createdBy: { id: r.createdBy, name: name(userNames, r.createdBy) },
   }));
-  return { summaries, findings, instruments: names.instruments };
+  return { summaries, findings, instruments: instrumentNames, analytes: analyteMap };
 }
 
-/** Study rows → summaries, with analyte, instruments, n and findings status, in three queries whatever their number. */
+/** Study rows → summaries, with analyte, instruments, n and findings status, in one statement whatever their number. */
 export async function summarise(db: Executor, rows: StudyRow[]): Promise<StudySummary[]> {
   return (await summariseAll(db, rows)).summaries;
 }
 
 export async function studyView(db: Executor, row: StudyRow): Promise<Study> {
-  const { summaries: [summary], findings, instruments: lab } = await summariseAll(db, [row]);
+  const { summaries: [summary], findings, instruments: lab, analytes: named } = await summariseAll(db, [row]);
   const f = findings.get(row.id)!;
-  const [analyte] = await db.select({ unit: analytes.unit, canBeNegative: analytes.canBeNegative }).from(analytes).where(eq(analytes.id, row.analyteId));
+  const analyte = named.get(row.analyteId)!;
   const inst = (id: number | null) => (id === null || !lab.has(id) ? null : { id, name: lab.get(id)! });
   return {
     ...summary,
