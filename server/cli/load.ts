@@ -237,7 +237,7 @@ async function drive(url: string, list: Route[], cookies: string[], connections:
   return { figures, total: result.requests.total, perSecond: round1(result.requests.total / seconds) };
 }
 
-interface AnalysisFigures { rounds: number; firstMs: number; postToDone: { p50: number; p95: number }; clickToFindings: { p50: number; p95: number } | null; eventLoop: { p99: number; max: number } | null }
+interface AnalysisFigures { rounds: number; firstMs: number; untilDone: { p50: number; p95: number }; clickToFindings: { p50: number; p95: number } | null; eventLoop: { p99: number; max: number } | null }
 
 /** Reads server-sent events until an event of the analysis says it is done; resolves with the time then. */
 async function pushedDone(url: string, cookie: string, id: number): Promise<number | null> {
@@ -277,7 +277,7 @@ async function analyses(url: string, lab: Lab, session: { cookie: string; xsrf: 
   const headers = { 'content-type': 'application/json', cookie: session.cookie, 'x-xsrf-token': session.xsrf };
   const study = { id: await timingStudy(url, lab, session) };
   await fetch(`${url}/api/v1/health`);
-  const postToDone: number[] = [];
+  const untilDone: number[] = [];
   const clickToFindings: number[] = [];
   let pushes = true;
   let firstMs = NaN;
@@ -305,13 +305,13 @@ async function analyses(url: string, lab: Lab, session: { cookie: string; xsrf: 
       if (r > 0) clickToFindings.push(performance.now() - click);
     }
     if (r === 0) firstMs = done - click;
-    else postToDone.push(done - click);
+    else untilDone.push(done - click);
   }
   const health = await (await fetch(`${url}/api/v1/health`)).json() as { eventLoopDelayMs?: { p99: number; max: number } };
   const sorted = (v: number[]) => [...v].sort((a, b) => a - b);
   const pick = (v: number[]) => ({ p50: round1(percentile(sorted(v), 50)), p95: round1(percentile(sorted(v), 95)) });
   return {
-    rounds, firstMs: round1(firstMs), postToDone: pick(postToDone), clickToFindings: pushes && clickToFindings.length ? pick(clickToFindings) : null,
+    rounds, firstMs: round1(firstMs), untilDone: pick(untilDone), clickToFindings: pushes && clickToFindings.length ? pick(clickToFindings) : null,
     eventLoop: health.eventLoopDelayMs ? { p99: health.eventLoopDelayMs.p99, max: health.eventLoopDelayMs.max } : null,
   };
 }
@@ -414,7 +414,7 @@ function report(all: Measured[], o: Options, seeded: string): string {
       out.push('  analyses: not measured (see the log above)', '');
       continue;
     }
-    out.push(`  analysis of 120 pairs: first after start ${a.firstMs} ms; then POST to done p50 ${a.postToDone.p50} ms, p95 ${a.postToDone.p95} ms (${a.rounds} runs)`);
+    out.push(`  analysis of 120 pairs: first after start ${a.firstMs} ms; then POST to done p50 ${a.untilDone.p50} ms, p95 ${a.untilDone.p95} ms (${a.rounds} runs)`);
     out.push(a.clickToFindings ? `  click to findings (POST, pushed "done", results and study read): p50 ${a.clickToFindings.p50} ms, p95 ${a.clickToFindings.p95} ms` : '  click to findings: this API pushes no events');
     out.push(m.page ? `  the page in Chromium, click on Run to findings drawn (120 pairs): p50 ${m.page.p50} ms, p95 ${m.page.p95} ms (first ${m.page.firstMs} ms)` : '  the page: not measured (no built client in this checkout, or no Chromium)');
     out.push(a.eventLoop ? `  API event-loop delay while analyses ran: p99 ${a.eventLoop.p99} ms, max ${a.eventLoop.max} ms` : '  API event-loop delay: not reported by this API');
