@@ -111,6 +111,48 @@ describe('sign-in and sessions', () => {
   });
 });
 
+describe('the account behind a session', () => {
+  /** The SQL the app sends while `run` runs (the app and the test share one pool). */
+  async function queriesDuring(run: () => Promise<unknown>): Promise<string[]> {
+    const pool = h.database.pool as unknown as { query: (...args: unknown[]) => unknown };
+    const original = pool.query;
+    const seen: string[] = [];
+    pool.query = function (this: unknown, ...args: unknown[]) {
+      const q = args[0] as string | { text: string };
+      seen.push(typeof q === 'string' ? q : q.text);
+      return original.apply(this, args);
+    };
+    try {
+      await run();
+    } finally {
+      pool.query = original;
+    }
+    return seen;
+  }
+
+  it('reads the session and its account in one statement, the account as it is now', async () => {
+    const u = await makeUser(['technologist']);
+    const s = await signedIn(h, u.email, 'a-long-test-password');
+    const sent = await queriesDuring(() => s.agent.get('/api/v1/session').expect(200));
+    expect(sent.filter((q) => /\bsession\b/.test(q) && /\busers\b/.test(q))).toHaveLength(1);
+    expect(sent.filter((q) => /from "users"/i.test(q))).toHaveLength(0);
+    // A role given or taken away counts from the next request, not from the next sign-in.
+    await h.database.db.update(users).set({ roles: ['technologist', 'director'] }).where(eq(users.id, u.id));
+    expect((await s.agent.get('/api/v1/session').expect(200)).body.roles).toEqual(['technologist', 'director']);
+  });
+
+  it('ends a deactivated user\'s live session at its next request', async () => {
+    const u = await makeUser(['technologist']);
+    const s = await signedIn(h, u.email, 'a-long-test-password');
+    await s.agent.get('/api/v1/worklist').expect(200);
+    await h.database.db.update(users).set({ active: false }).where(eq(users.id, u.id));
+    await s.agent.get('/api/v1/worklist').expect(401);
+    await s.agent.get('/api/v1/session').expect(401);
+    const again = await anonymous(h);
+    await again.agent.post('/api/v1/session').set('X-XSRF-TOKEN', again.xsrf).send({ email: u.email, password: 'a-long-test-password' }).expect(401);
+  });
+});
+
 describe('idle time-out', () => {
   let short: Harness;
   beforeAll(async () => { short = await startHarness({ SESSION_IDLE_MINUTES: '0.02' }); });

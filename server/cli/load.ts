@@ -64,9 +64,9 @@ const log = (line: string) => process.stderr.write(`[load] ${line}\n`);
 
 // ---------------------------------------------------------------- the laboratory
 
-interface Lab { studyIds: number[]; bigIds: number[]; emails: string[]; analyteId: number; lineIds: number[] }
+export interface Lab { studyIds: number[]; bigIds: number[]; emails: string[]; analyteId: number; lineIds: number[] }
 
-async function seedLaboratory(db: Database, o: Options): Promise<Lab> {
+export async function seedLaboratory(db: Database, o: Options): Promise<Lab> {
   const [lab] = await db.select().from(laboratories).limit(1);
   const [glucose] = await db.select().from(analytes).where(eq(analytes.name, 'Glucose'));
   const lines = (await db.select().from(instruments).where(eq(instruments.laboratoryId, lab.id))).sort((a, b) => a.id - b.id);
@@ -135,7 +135,7 @@ async function freePort(): Promise<number> {
   });
 }
 
-async function startApi(tree: string, databaseUrl: string): Promise<{ url: string; child: ChildProcess }> {
+export async function startApi(tree: string, databaseUrl: string): Promise<{ url: string; child: ChildProcess }> {
   const port = await freePort();
   const child = spawn(process.execPath, [require.resolve('tsx/cli'), path.join(tree, 'server/main.ts')], {
     cwd: tree, stdio: ['ignore', 'pipe', 'pipe'],
@@ -156,7 +156,7 @@ async function startApi(tree: string, databaseUrl: string): Promise<{ url: strin
   return { url: `http://127.0.0.1:${port}`, child };
 }
 
-function stopApi(child: ChildProcess): Promise<void> {
+export function stopApi(child: ChildProcess): Promise<void> {
   return new Promise((resolve) => {
     if (child.exitCode !== null) return resolve();
     child.once('exit', () => resolve());
@@ -165,7 +165,7 @@ function stopApi(child: ChildProcess): Promise<void> {
   });
 }
 
-async function signIn(url: string, email: string): Promise<{ cookie: string; xsrf: string }> {
+export async function signIn(url: string, email: string): Promise<{ cookie: string; xsrf: string }> {
   const jar = new Map<string, string>();
   const keep = (res: Response) => {
     for (const c of res.headers.getSetCookie()) {
@@ -192,7 +192,7 @@ const round1 = (v: number) => Math.round(v * 10) / 10;
 
 interface Route { name: string; path: () => string }
 
-function routes(lab: Lab): Route[] {
+export function routes(lab: Lab): Route[] {
   let k = 0;
   // Half the studies opened are the 2,000-pair ones, half the others (a deterministic walk).
   const study = () => {
@@ -208,7 +208,7 @@ function routes(lab: Lab): Route[] {
 }
 
 /** autocannon over the given routes, each connection cycling through them in order with its own sign-in. */
-async function drive(url: string, list: Route[], cookies: string[], connections: number, seconds: number, perUserPerSecond?: number): Promise<{ figures: RouteFigures[]; total: number; perSecond: number }> {
+export async function drive(url: string, list: Route[], cookies: string[], connections: number, seconds: number, perUserPerSecond?: number): Promise<{ figures: RouteFigures[]; total: number; perSecond: number }> {
   let nextCookie = 0;
   const requests = list.map((r) => ({
     method: 'GET',

@@ -105,7 +105,12 @@ export const studies = pgTable('studies', {
   inputHash: text('input_hash'),
   /** Included rows, kept with the input hash. */
   includedCount: integer('included_count'),
-}, (t) => [index('studies_lab_state_idx').on(t.laboratoryId, t.state), index('studies_lab_updated_idx').on(t.laboratoryId, t.updatedAt)]);
+}, (t) => [
+  // The worklist's lists: a laboratory's studies in one state, and one author's, newest first.
+  index('studies_lab_state_updated_idx').on(t.laboratoryId, t.state, t.updatedAt),
+  index('studies_lab_author_state_idx').on(t.laboratoryId, t.createdBy, t.state, t.updatedAt),
+  index('studies_lab_updated_idx').on(t.laboratoryId, t.updatedAt),
+]);
 
 export const uploads = pgTable('uploads', {
   id: serial('id').primaryKey(),
