@@ -2,6 +2,7 @@ import { expect, request, test, type APIRequestContext, type Download, type Page
 import { createHash } from 'node:crypto';
 import { mkdirSync, readFileSync, statSync } from 'node:fs';
 import path from 'node:path';
+import { laboratoryDate, laboratoryTime } from '../shared/types/lab-time';
 
 const SCREENSHOTS = path.resolve(__dirname, '../.test-output/screenshots');
 const PASSWORD = 'parallax-demo';
@@ -141,7 +142,7 @@ test.describe('the quality officer audits a study the laboratory signed', () => 
     await expect(row.getByTestId('verdict')).toContainText(/Within goal|Inconclusive|Exceeds goal/);
     // Times are the laboratory's, and the page names the zone once above the table.
     await expect(page.getByTestId('archive-zone')).toHaveText(/^Times are ([A-Za-z_]+\/[A-Za-z_/]+|UTC) time, the laboratory's zone\.$/);
-    await expect(row).toContainText(/\d{1,2} [A-Z][a-z]{2} \d{4}, \d\d:\d\d/);
+    await expect(row).toContainText(/\d{4}-\d\d-\d\d \d\d:\d\d/);
     await shoot(page, 'archive');
     const [download] = await Promise.all([page.waitForEvent('download', { timeout: 30_000 }), page.getByTestId('archive-download').click()]);
     await expectXlsx(download);
@@ -222,6 +223,79 @@ test.describe('the quality officer audits a study the laboratory signed', () => 
     await shoot(page, 'history');
     await signed.getByRole('link', { name: `Study ${id}` }).click();
     await expect(page.getByTestId('record-title')).toHaveText(title);
+  });
+
+  test('finds the study by the verification code printed on its signed PDF, typed as printed or in lower case without separators', async ({ page }) => {
+    const signatures: { meaning: string; verificationCode: string }[] = await (await page.request.get(`/api/v1/studies/${id}/signatures`)).json();
+    const code = signatures.filter((s) => s.meaning !== 'plan-approved').at(-1)!.verificationCode;
+    expect(code).toMatch(/^PX-[A-Z2-9]{4}-[A-Z2-9]{4}$/);
+    await page.getByTestId('nav-archive').click();
+    const search = page.getByTestId('archive-q');
+    await expect(page.locator('mat-form-field').filter({ has: search })).toContainText('Title, purpose or verification code');
+    const row = page.getByTestId(`archive-row-${id}`);
+    await search.fill(code);
+    await expect(page).toHaveURL(new RegExp(`[?&]q=${code}`));
+    await expect(page.getByTestId('archive-count')).toHaveText('1 study matches');
+    await expect(row).toContainText(title);
+    const typed = code.replace(/-/g, '').toLowerCase();
+    await search.fill(typed);
+    await expect(page).toHaveURL(new RegExp(`[?&]q=${typed}`));
+    await expect(page.getByTestId('archive-count')).toHaveText('1 study matches');
+    await expect(row).toContainText('Accepted for patient testing');
+    await shoot(page, 'archive-code-search');
+  });
+
+  test("filters the laboratory history by the laboratory's days, yyyy-mm-dd, and shows its times with the zone named", async ({ page }) => {
+    const session: { laboratory: { timeZone: string } } = await (await page.request.get('/api/v1/session')).json();
+    const zone = session.laboratory.timeZone;
+    const events: { action: string; at: string }[] = await (await page.request.get(`/api/v1/studies/${id}/history`)).json();
+    const signedAt = events.find((e) => e.action === 'study.signed')!.at;
+    const day = laboratoryDate(signedAt, zone);
+    await page.getByTestId('nav-history').click();
+    await expect(page.getByTestId('history-zone')).toHaveText(`Dates and times are the laboratory's, in ${zone}.`);
+    await page.getByTestId('history-study').fill(String(id));
+    await page.getByTestId('history-from').fill(day);
+    await page.getByTestId('history-to').fill(day);
+    await expect(page).toHaveURL(new RegExp(`from=${day}`));
+    await expect(page).toHaveURL(new RegExp(`to=${day}`));
+    await expect(page.getByTestId('history-from')).toHaveValue(day);
+    const signed = page.locator('[data-action="study.signed"]');
+    await expect(signed).toHaveCount(1);
+    await expect(signed.locator('time')).toHaveText(laboratoryTime(signedAt, zone, { seconds: true }));
+    await expect(signed.locator('time')).toHaveText(new RegExp(`^${day} \\d\\d:\\d\\d:\\d\\d ${zone} \\(UTC[+−]\\d\\d:\\d\\d\\)$`));
+    // The whole year shows in the date fields.
+    for (const field of ['history-from', 'history-to']) {
+      const box = page.getByTestId(field);
+      expect(await box.evaluate((input: HTMLInputElement) => input.scrollWidth <= input.clientWidth)).toBe(true);
+    }
+    await shoot(page, 'lab-history-local-times');
+    // The calendar opens on the chosen day and writes the day it is given back as yyyy-mm-dd.
+    await page.locator('mat-form-field').filter({ has: page.getByTestId('history-to') }).locator('mat-datepicker-toggle button').click();
+    await expect(page.locator('mat-calendar')).toBeVisible();
+    await shoot(page, 'lab-history-calendar');
+    await page.keyboard.press('Escape');
+  });
+
+  test("lists studies changed on the laboratory's days, read and written as yyyy-mm-dd", async ({ page }) => {
+    const session: { laboratory: { timeZone: string } } = await (await page.request.get('/api/v1/session')).json();
+    const zone = session.laboratory.timeZone;
+    const study: { updatedAt: string } = await (await page.request.get(`/api/v1/studies/${id}`)).json();
+    const day = laboratoryDate(study.updatedAt, zone);
+    await page.getByTestId('nav-studies').click();
+    await page.getByTestId('filter-from').fill(day);
+    await page.getByTestId('filter-from').press('Tab');
+    await page.getByTestId('filter-to').fill(day);
+    await page.getByTestId('filter-to').press('Tab');
+    await expect(page).toHaveURL(new RegExp(`from=${day}`));
+    await expect(page).toHaveURL(new RegExp(`to=${day}`));
+    await expect(page.getByTestId('study-table')).toContainText(title);
+    await expect(page.getByTestId('study-table').locator('th').last()).toHaveText(new RegExp(`Last change \\(${zone}\\)`));
+    await expect(page.getByTestId('study-table')).toContainText(laboratoryTime(study.updatedAt, zone, { zone: false }));
+    for (const field of ['filter-from', 'filter-to']) {
+      await expect(page.getByTestId(field)).toHaveValue(day);
+      expect(await page.getByTestId(field).evaluate((input: HTMLInputElement) => input.scrollWidth <= input.clientWidth)).toBe(true);
+    }
+    await shoot(page, 'study-list-dates');
   });
 
   test('cannot open the laboratory settings, which are for administrators', async ({ page }) => {

@@ -101,3 +101,120 @@ test('a technologist compares two chemistry lines: pastes 40 pairs, fixes a bad 
   }
   await fullShot(page, 'findings.png');
 });
+
+/** A new glucose comparison of line 2 (candidate) against line 1 (comparative), saved; the page is on its Specimens tab. */
+async function newGlucoseComparison(page: Page, title: string): Promise<void> {
+  await page.getByTestId('nav-studies').click();
+  await page.getByTestId('study-new').click();
+  await page.getByTestId('setup-title').fill(title);
+  await choose(page, page.getByTestId('setup-analyte'), /^Glucose \(mmol\/L\)/);
+  await expect(page.getByTestId('setup-unit')).toHaveValue('mmol/L');
+  await choose(page, page.getByTestId('setup-comparative'), 'Chemistry line 1');
+  await choose(page, page.getByTestId('setup-candidate'), 'Chemistry line 2');
+  await page.getByTestId('setup-save').click();
+  await expect(page).toHaveURL(/\/studies\/\d+\/specimens$/);
+}
+
+test('the specimen grid keeps spreadsheet habits: undo and redo, Enter and Tab, excluded rows and repeated labels shown', async ({
+  page, context, baseURL,
+}) => {
+  test.setTimeout(150_000);
+  mkdirSync(SCREENSHOTS, { recursive: true });
+  await context.grantPermissions(['clipboard-read', 'clipboard-write'], { origin: baseURL });
+  await signIn(page);
+  await newGlucoseComparison(page, `Glucose: grid habits (${Date.now()})`);
+  const header = (column: string): Locator => page.locator(`.ag-header-cell[col-id="${column}"]`);
+  const tooltip = page.locator('.ag-tooltip:not(.ag-tooltip-hiding)');
+
+  // The result headers say which method and unit; the instrument shows on hover.
+  await expect(header('comparative')).toContainText('Comparative (mmol/L)');
+  await expect(header('candidate')).toContainText('Candidate (mmol/L)');
+  await header('candidate').hover();
+  await expect(tooltip).toHaveText('Candidate method: Chemistry line 2');
+
+  // Five rows pasted; row 5 repeats row 2's label in other case and with a space, and both are marked at once.
+  const block = ['HB-001\t4.1\t4.2', 'HB-002\t5.6\t5.7', 'HB-003\t7.9\t8.1', 'HB-004\t11.2\t11.4', ' hb-002\t6.3\t6.2'].join('\n');
+  await page.evaluate((text) => navigator.clipboard.writeText(text), block);
+  await cell(page, 0, 'label').click();
+  await page.keyboard.press('Control+V');
+  await expect(page.getByTestId('row-count')).toHaveText('5 rows');
+  await expect(page.locator('[role="gridcell"][col-id="label"].cell-repeated')).toHaveCount(2);
+  await expect(cell(page, 1, 'label')).toHaveClass(/cell-repeated/);
+  await expect(cell(page, 4, 'label')).toHaveClass(/cell-repeated/);
+  await cell(page, 4, 'label').hover();
+  await expect(tooltip).toHaveText('Label repeated on rows 2 and 5');
+
+  // The paste is one step: Ctrl+Z takes all five rows away, Ctrl+Y brings them back.
+  await page.keyboard.press('Control+Z');
+  await expect(page.getByTestId('row-count')).toHaveText('0 rows');
+  await expect(page.locator('[role="gridcell"].cell-repeated')).toHaveCount(0);
+  await page.keyboard.press('Control+Y');
+  await expect(page.getByTestId('row-count')).toHaveText('5 rows');
+  await expect(cell(page, 3, 'candidate')).toHaveText('11.4');
+
+  // A typed value: Ctrl+Z puts the old one back, Ctrl+Y (and Ctrl+Shift+Z) the new one; the undone state is what is saved.
+  const typed = cell(page, 0, 'candidate');
+  await typed.click();
+  await page.keyboard.type('4.9');
+  await page.keyboard.press('Enter');
+  await expect(typed).toHaveText('4.9');
+  await page.keyboard.press('Control+Z');
+  await expect(typed).toHaveText('4.2');
+  await page.keyboard.press('Control+Y');
+  await expect(typed).toHaveText('4.9');
+  await page.keyboard.press('Control+Z');
+  await expect(typed).toHaveText('4.2');
+  await page.keyboard.press('Control+Shift+Z');
+  await expect(typed).toHaveText('4.9');
+  await page.keyboard.press('Control+Z');
+  await expect(typed).toHaveText('4.2');
+  await expect(page.getByTestId('save-state')).toHaveText('Saved', { timeout: 20_000 });
+  await page.reload();
+  await expect(cell(page, 0, 'candidate')).toHaveText('4.2');
+  await expect(page.getByTestId('row-count')).toHaveText('5 rows');
+
+  // Tab at the end of a row goes on to the first field of the next row.
+  await cell(page, 3, 'note').click();
+  await page.keyboard.press('Tab');
+  await expect(cell(page, 4, 'label')).toHaveClass(/ag-cell-focus/);
+
+  // Enter on the last row adds a row and moves to it.
+  await cell(page, 4, 'note').click();
+  await page.keyboard.type('run 2');
+  await page.keyboard.press('Enter');
+  await expect(page.locator('[role="row"][row-index="5"]')).toHaveCount(1);
+  await expect(cell(page, 5, 'note')).toHaveClass(/ag-cell-focus/);
+  await page.keyboard.type('HB-006 to follow');
+  await page.keyboard.press('Enter');
+  await expect(cell(page, 5, 'note')).toHaveText('HB-006 to follow');
+  await cell(page, 5, 'label').click();
+  for (const value of ['HB-006', '9.4', '9.6']) {
+    await page.keyboard.type(value);
+    await page.keyboard.press('Tab');
+  }
+  await expect(cell(page, 5, 'candidate')).toHaveText('9.6');
+
+  // Row 3 excluded with a long reason: its results are struck through and dimmed, the reason is read in full.
+  await cell(page, 2, 'excluded').locator('input').click();
+  const reason = 'Haemolysed on arrival; the candidate line flagged it and there was no volume left to repeat the measurement';
+  await cell(page, 2, 'exclusionReason').click();
+  await page.keyboard.type(reason);
+  await page.keyboard.press('Enter');
+  await expect(cell(page, 2, 'exclusionReason')).toHaveText(reason);
+  await expect(page.locator('[role="row"][row-index="2"]').first()).toHaveClass(/row-excluded/);
+  await expect(cell(page, 2, 'comparative')).toHaveCSS('text-decoration-line', 'line-through');
+  await expect(cell(page, 2, 'candidate')).toHaveCSS('text-decoration-line', 'line-through');
+  await expect(cell(page, 1, 'candidate')).toHaveCSS('text-decoration-line', 'none');
+  const reasonBox = await cell(page, 2, 'exclusionReason').boundingBox();
+  const plainBox = await cell(page, 1, 'exclusionReason').boundingBox();
+  expect(reasonBox!.height).toBeGreaterThan(plainBox!.height);
+  await cell(page, 2, 'candidate').hover();
+  await expect(tooltip).toHaveText(`Excluded: ${reason}`);
+  await expect(page.getByTestId('save-state')).toHaveText('Saved', { timeout: 20_000 });
+  await page.mouse.move(0, 0);
+  await expect(page.locator('.ag-tooltip')).toHaveCount(0);
+
+  await cell(page, 1, 'label').hover();
+  await expect(tooltip).toHaveText('Label repeated on rows 2 and 5');
+  await page.screenshot({ path: path.join(SCREENSHOTS, 'grid-habits.png') });
+});

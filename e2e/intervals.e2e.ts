@@ -88,6 +88,13 @@ test('a technologist establishes a creatinine reference interval from 120 indivi
   await expect(page.getByTestId('setup-method-text')).toContainText('at least 120');
   await expect(page.getByTestId('setup-acceptance')).toHaveValue(/^At least 120 reference individuals per partition/);
   await expect(page.getByTestId('setup-planned')).toHaveValue('120');
+  // The establishment's own guidance (DOMAIN.md: 120 per partition), and only the bootstrap settings it reads.
+  await expect(page.getByTestId('setup-planned-hint')).toHaveText(
+    'At least 120 healthy reference individuals per partition (CLSI EP28-A3c practice); a sex or age band with limits of its own needs its 120.',
+  );
+  await expect(page.getByTestId('setup-analyte-hint')).toHaveText('Brings its unit and decimals; you may change them for this study.');
+  await expect(page.getByTestId('setup-resamples')).toBeVisible();
+  await expect(page.getByTestId('setup-interval')).toHaveCount(0);
   await choose(page, page.getByTestId('setup-instrument'), 'Chemistry line 2');
   await page.getByTestId('setup-reagent-lot').fill('CRE-0912');
 
@@ -140,19 +147,30 @@ test('a technologist establishes a creatinine reference interval from 120 indivi
   await expect(page.getByTestId('interval-counts')).toHaveText('n = 119 analysed of 120 entered; 1 excluded with a reason.', { timeout: 120_000 });
 });
 
+const SOURCE = "Manufacturer's insert for the potassium reagent, edition 2026-03";
+
 test('a technologist verifies a stated potassium interval with 20 individuals, one outside', async ({ page }) => {
   test.setTimeout(120_000);
   await signIn(page);
   const title = `Potassium: transference of the stated interval (${Date.now()})`;
   await startStudy(page, /Reference interval: verify/, title, /^Potassium/);
   await expect(page.getByTestId('setup-acceptance')).toHaveValue(/at most 2 of 20/);
-  await expect(page.getByTestId('setup-level')).toContainText('90 %');
+  // The verification's own guidance (DOMAIN.md: 20 individuals, at most 2 outside), and no bootstrap settings: the count uses none.
+  await expect(page.getByTestId('setup-planned-hint')).toHaveText(
+    '20 local healthy individuals; the stated interval is accepted when at most 2 of them fall outside it (CLSI EP28-A3c practice).',
+  );
+  await expect(page.getByTestId('setup-planned')).toHaveValue('20');
+  await expect(page.getByTestId('setup-bootstrap')).toHaveCount(0);
+  await expect(page.getByTestId('setup-level')).toHaveCount(0);
+  await expect(page.getByTestId('setup-seed')).toHaveCount(0);
+  await expect(page.getByTestId('setup-analysis-note')).toContainText('there is no bootstrap');
   await choose(page, page.getByTestId('setup-instrument'), 'Chemistry line 2');
   await page.getByTestId('setup-stated-lower').fill('3.5');
   await page.getByTestId('setup-stated-upper').fill('5.1');
+  await fullShot(page, 'setup-verification-guidance.png');
   await page.getByTestId('setup-save').click();
   await expect(page.getByText('Check the marked fields.')).toBeVisible();
-  await page.getByTestId('setup-stated-source').fill("Manufacturer's insert for the potassium reagent, edition 2026-03");
+  await page.getByTestId('setup-stated-source').fill(SOURCE);
   await page.getByTestId('setup-save').click();
   await expect(page).toHaveURL(/\/studies\/\d+\/specimens$/);
 
@@ -164,6 +182,7 @@ test('a technologist verifies a stated potassium interval with 20 individuals, o
   await expect(page.getByTestId('verify-outside')).toHaveText('0 below and 1 above the stated interval 3.5 to 5.1.');
   await expect(page.getByTestId('verify-power')).toContainText('of the time');
   await expect(page.getByTestId('verify-advice')).toHaveCount(0);
+  await expect(page.getByTestId('verify-source')).toHaveText(SOURCE);
   await expectPainted(page.getByTestId('plot-strip').locator('canvas'));
   await fullShot(page, 'interval-verify.png');
 });

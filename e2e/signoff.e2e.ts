@@ -9,6 +9,9 @@ const SCREENSHOTS = path.join(OUT, 'screenshots');
 const PASSWORD = 'parallax-demo';
 const TECH = 'tech@valeharbor.example';
 const DIRECTOR = 'director@valeharbor.example';
+/** Technologist and director at once. */
+const LEAD = 'lead@valeharbor.example';
+const NOTE = 'Row 7 was haemolysed on the candidate run and is excluded with that reason; the high end is the part to read first.';
 const CAUTION =
   'Decision support only. These findings do not by themselves make a verification compliant: final acceptance follows local ' +
   'accreditation rules and the laboratory director’s professional judgement. They hold only for the specimen types, measuring ' +
@@ -45,9 +48,12 @@ class ApiUser {
 
 interface StudyAnswer { id: number; version: number; state: string; timeZone?: string }
 
-/** A glucose comparison of 40 invented pairs across 3–20 mmol/L (row 7 excluded with a reason), analysed; submitted when asked. */
-async function preparedStudy(baseURL: string, title: string, submit: boolean): Promise<number> {
-  const tech = await ApiUser.signIn(baseURL, TECH);
+/**
+ * A glucose comparison of 40 invented pairs across 3–20 mmol/L (row 7 excluded with a reason), analysed; submitted when asked.
+ * `author` creates it and enters its rows (the technologist unless named).
+ */
+async function preparedStudy(baseURL: string, title: string, submit: boolean, author = TECH): Promise<number> {
+  const tech = await ApiUser.signIn(baseURL, author);
   const analytes = await tech.read<{ id: number; name: string; unit: string }[]>('/api/v1/analytes');
   const instruments = await tech.read<{ id: number }[]>('/api/v1/instruments');
   const glucose = analytes.find((a) => a.name === 'Glucose' && a.unit === 'mmol/L') ?? analytes.find((a) => a.name === 'Glucose');
@@ -94,7 +100,8 @@ async function shot(page: Page, name: string, whole = false): Promise<void> {
   await expect(page.locator('mat-progress-bar')).toHaveCount(0);
   await page.evaluate(async () => {
     await document.fonts.ready;
-    await Promise.all(document.getAnimations().map((a) => a.finished));
+    // An animation cancelled meanwhile (a field's error replacing its hint) rejects its promise: it is over too.
+    await Promise.all(document.getAnimations().map((a) => a.finished.catch(() => undefined)));
   });
   if (whole) {
     const height = await page.evaluate(() => (document.querySelector('mat-sidenav-content')?.scrollHeight ?? document.body.scrollHeight) + 64);
@@ -121,23 +128,34 @@ test('the technologist submits a study; the director refuses a wrong password, t
   await expect(bar.getByTestId('signoff-state')).toHaveText('Draft');
   await expect(bar.getByTestId('step-approve-plan')).toHaveCount(0);
   await shot(tech, 'signoff-bar-draft');
+  // Submitting asks first, says the study is locked for the director, and takes a note for the director.
   await bar.getByTestId('step-submit').click();
+  const submitDialog = tech.getByRole('dialog');
+  await expect(submitDialog.getByTestId('submit-what')).toContainText('Submitting locks the study for the director');
+  await submitDialog.getByTestId('submit-note').fill(NOTE);
+  await shot(tech, 'submit-dialog');
+  await submitDialog.getByTestId('submit-confirm').click();
+  await expect(submitDialog).toHaveCount(0);
   await expect(bar.getByTestId('signoff-state')).toHaveText('Awaiting the director’s signature');
   await expect(tech.getByTestId('study-state')).toHaveText('Awaiting sign-off');
   await expect(bar.locator('button')).toHaveCount(0);
   await tech.context().close();
 
-  // The director finds it under "Awaiting my signature" and opens the review from the study page.
+  // The director finds it under "Awaiting my signature"; its link opens the review.
   const director = await pageOf(browser, baseURL!, DIRECTOR);
   const waiting = director.getByTestId('wl-awaitingSignature').getByTestId(`wl-study-${id}`);
   await expect(waiting).toContainText(title);
   await waiting.getByRole('link', { name: title }).click();
-  await director.getByTestId('signoff-bar').getByTestId('step-open-review').click();
   await expect(director).toHaveURL(new RegExp(`/studies/${id}/review$`));
+  await expect(director.getByTestId('who-may-sign')).toHaveText('You may sign it. Any director but Tomas Reyes, who entered its rows, may sign it.');
   await expect(director.getByTestId('review-title')).toHaveText(title);
   await expect(director.getByTestId('verdict-panel')).toBeVisible();
   await expect(director.getByTestId('review-caution')).toContainText(CAUTION);
   await expect(director.getByTestId('plan-Source of the allowable bias')).not.toContainText('Not given');
+  const note = director.getByTestId('submission-note');
+  await expect(note.getByTestId('submission-note-from')).toHaveText(/^Note from \S/);
+  await expect(note.getByTestId('submission-note-text')).toHaveText(NOTE);
+  await shot(director, 'review-with-note');
   await expect(director.getByTestId('plan-approval')).toContainText('No plan approval');
   await expect(director.getByTestId('excluded-7')).toContainText('Haemolysed on the candidate run');
   await expect(director.getByTestId('study-history')).toContainText('Submitted');
@@ -169,7 +187,7 @@ test('the technologist submits a study; the director refuses a wrong password, t
   await expect(block).toContainText('Dr. Imani Okafor');
   await expect(block).toContainText('one exclusion explained');
   const session = (await (await director.request.get('/api/v1/session')).json()) as { laboratory: { timeZone: string } };
-  await expect(block).toContainText(`(${session.laboratory.timeZone}, GMT`);
+  await expect(block).toContainText(`${session.laboratory.timeZone} (UTC`);
   await expect(block.getByTestId('content-hash')).toHaveText(/^[0-9a-f]{64}$/);
   await expect(block.getByTestId('verification-code')).not.toBeEmpty();
   await expect(director.getByTestId('review-state')).toContainText('Signed');
@@ -282,4 +300,64 @@ test('the director returns a study with a comment, the technologist reads it, an
   await shot(director, 'review-moved-criteria');
   await tech.context().close();
   await director.context().close();
+});
+
+test('a technologist-director is offered only what they may sign, the review says who may sign before any dialog, and a refused signature reads in words', async ({
+  browser, baseURL,
+}) => {
+  test.setTimeout(300_000);
+  const stamp = Date.now();
+  const othersTitle = `Entered by the technologist: glucose (${stamp})`;
+  const ownTitle = `Entered by the lead: glucose (${stamp})`;
+  const others = await preparedStudy(baseURL!, othersTitle, true);
+  const own = await preparedStudy(baseURL!, ownTitle, true, LEAD);
+
+  // Under "Awaiting my signature": the technologist's study, not the one whose rows the lead entered.
+  const lead = await pageOf(browser, baseURL!, LEAD);
+  const awaiting = lead.getByTestId('wl-awaitingSignature');
+  await expect(awaiting.getByTestId(`wl-study-${others}`)).toContainText(othersTitle);
+  await expect(awaiting.getByTestId(`wl-study-${own}`)).toHaveCount(0);
+  await expect(lead.getByTestId('worklist')).not.toContainText(ownTitle);
+  await shot(lead, 'worklist-tech-director');
+
+  // The link opens the review, which says who may sign; the exclusion's reason is shown where it is mentioned.
+  await awaiting.getByRole('link', { name: othersTitle }).click();
+  await expect(lead).toHaveURL(new RegExp(`/studies/${others}/review$`));
+  await expect(lead.getByTestId('who-may-sign')).toHaveText('You may sign it. Any director but Tomas Reyes, who entered its rows, may sign it.');
+  const sensitivity = lead.getByTestId('sensitivity-panel');
+  await expect(sensitivity).toContainText('One row is excluded, for this reason:');
+  await expect(sensitivity.getByTestId('exclusion-reason-7')).toHaveText('Row 7 (SO-007): Haemolysed on the candidate run');
+  await expect(lead.locator('main')).not.toContainText('Specimens tab');
+  await sensitivity.scrollIntoViewIfNeeded();
+  await sensitivity.screenshot({ path: path.join(SCREENSHOTS, 'review-exclusion-reasons.png') });
+
+  // Its own study: the refusal and its reason before any dialog, and no Sign button; returning stays possible.
+  await lead.goto(`/studies/${own}/review`);
+  await expect(lead.getByTestId('review-title')).toHaveText(ownTitle);
+  await expect(lead.getByTestId('who-may-sign')).toHaveText('You entered rows of this study; this laboratory requires another director to sign it (segregation of duties).');
+  await expect(lead.getByTestId('open-sign')).toHaveCount(0);
+  await expect(lead.getByTestId('open-return')).toBeVisible();
+  await expect(lead.getByRole('dialog')).toHaveCount(0);
+  await shot(lead, 'review-who-may-sign');
+
+  // A wrong password at signing the other study is refused, and recorded on that study in words.
+  await lead.goto(`/studies/${others}/review`);
+  await lead.getByTestId('open-sign').click();
+  const dialog = lead.getByRole('dialog');
+  await dialog.getByTestId('meaning-accepted').click();
+  await dialog.getByTestId('sign-password').fill('not-the-password');
+  await dialog.getByTestId('sign-confirm').click();
+  await expect(dialog.getByTestId('password-error')).toHaveText('The password is wrong');
+  await dialog.getByRole('button', { name: 'Cancel' }).click();
+  await expect(dialog).toHaveCount(0);
+  await lead.goto(`/history?studyId=${others}`);
+  const refused = lead.locator('[data-action="signature.refused"]');
+  await expect(refused).toHaveCount(1);
+  await expect(refused).toContainText('Signature refused: wrong password');
+  await expect(refused).toContainText('Priya Nair');
+  await expect(refused).toContainText('wrong passwords in a row: 1');
+  await expect(refused.getByRole('link', { name: `Study ${others}` })).toBeVisible();
+  await expect(lead.locator('main')).not.toContainText('wrong-password');
+  await shot(lead, 'lab-history-signature-refused');
+  await lead.context().close();
 });

@@ -12,6 +12,7 @@ const Env = z.object({
   SESSION_IDLE_MINUTES: z.coerce.number().positive().default(30),
   COOKIE_SECURE: z.enum(['0', '1']).default('0'),
   SIGN_IN_RATE_LIMIT: z.coerce.number().int().positive().default(30),
+  PASSWORD_RESET_RATE_LIMIT: z.coerce.number().int().positive().default(20),
   CLIENT_DIR: z.string().optional(),
   ANALYSIS_STALE_SECONDS: z.coerce.number().int().min(2).max(3600).default(30),
   ANALYSIS_THREADS: z.coerce.number().int().min(1).max(64).optional(),
@@ -28,6 +29,8 @@ export type Config = {
   sessionIdleMs: number;
   cookieSecure: boolean;
   signInRateLimit: number;
+  /** Requests for a password link one address may make per hour (each e-mail gets 3 an hour whatever this is). */
+  passwordResetRateLimit: number;
   clientDir: string | undefined;
   /** A running analysis without a heartbeat for this long lost its process and is re-queued (once). */
   analysisStaleSeconds: number;
@@ -55,6 +58,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     sessionIdleMs: e.SESSION_IDLE_MINUTES * 60_000,
     cookieSecure: e.COOKIE_SECURE === '1',
     signInRateLimit: e.SIGN_IN_RATE_LIMIT,
+    passwordResetRateLimit: e.PASSWORD_RESET_RATE_LIMIT,
     clientDir: e.CLIENT_DIR,
     analysisStaleSeconds: e.ANALYSIS_STALE_SECONDS,
     analysisThreads: e.ANALYSIS_THREADS,

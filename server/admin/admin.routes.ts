@@ -5,7 +5,7 @@ import type { RouteSpec } from '../http/routes';
 import { listMail } from './admin.repository';
 import { analyteCatalog, instrumentCatalog } from './catalog.service';
 import { getLaboratory, updateLaboratory } from './laboratory.service';
-import { inviteUser, listLabUsers, resendInvitation, unlockLabUser, updateLabUser } from './users.service';
+import { inviteUser, listLabUsers, resendInvitation, sendPasswordReset, unlockLabUser, updateLabUser } from './users.service';
 import { mailView } from './views';
 
 const ADMIN = ['admin'] as const;
@@ -44,6 +44,13 @@ export function adminRoutes(ctx: AppContext): RouteSpec[] {
       method: 'post', path: '/users/:id/invitation', access: ADMIN,
       handler: async (req, res) => {
         await resendInvitation(ctx, req.user!, id(req.params));
+        res.status(204).end();
+      },
+    },
+    {
+      method: 'post', path: '/users/:id/password-link', access: ADMIN,
+      handler: async (req, res) => {
+        await sendPasswordReset(ctx, req.user!, id(req.params));
         res.status(204).end();
       },
     },

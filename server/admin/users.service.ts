@@ -61,3 +61,17 @@ export async function resendInvitation(ctx: AppContext, me: SignedInUser, id: nu
   });
   ctx.mail.kick();
 }
+
+/** An administrator sends a user a one-time link (1 hour) to choose a new password; older unused links stop working. */
+export async function sendPasswordReset(ctx: AppContext, me: SignedInUser, id: number): Promise<void> {
+  await ctx.db.transaction(async (tx) => {
+    const user = await findUserInLab(tx, me.laboratoryId, id);
+    if (!user) throw notFound('User');
+    if (!user.active) throw new AppError('invalid_request', `${user.name} is deactivated; reactivate the account before sending a password link`);
+    if (!user.passwordHash) throw new AppError('invalid_request', `${user.name} has not chosen a password yet; send the invitation again instead`);
+    const lab = await findLaboratory(tx, me.laboratoryId);
+    await sendPasswordLink(tx, user, lab.name, ctx.config.publicUrl, { purpose: 'reset', sender: me.name });
+    await recordAudit(tx, actorOf(me), { action: 'password-reset.sent', entity: 'user', entityId: id, after: { email: user.email } });
+  });
+  ctx.mail.kick();
+}

@@ -10,6 +10,7 @@ import { findStudy } from '../studies/studies.repository';
 import { assertEditable } from '../studies/study-rules';
 import { StudySettings, type Analysis } from '../../shared/schemas';
 import { missingResults } from './run-analysis';
+import { withRecordedWords } from './recorded-words';
 import type { AnalysisJobs } from './analysis-jobs';
 
 type AnalysisRow = Omit<typeof analyses.$inferSelect, 'input'>;
@@ -61,8 +62,9 @@ export async function analyseNow(db: Database, jobs: AnalysisJobs, me: SignedInU
 }
 
 export async function getAnalysis(db: Database, me: SignedInUser, id: number): Promise<Analysis> {
-  const [row] = await db.select({ a: withoutInput, studyHash: studies.inputHash }).from(analyses).innerJoin(studies, eq(studies.id, analyses.studyId))
+  const [row] = await db.select({ a: withoutInput, studyHash: studies.inputHash, settings: studies.settings }).from(analyses).innerJoin(studies, eq(studies.id, analyses.studyId))
     .where(and(eq(analyses.id, id), eq(studies.laboratoryId, me.laboratoryId)));
   if (!row) throw notFound('Analysis');
-  return analysisView(db, row.a, row.studyHash ?? undefined);
+  const view = await analysisView(db, row.a, row.studyHash ?? undefined);
+  return { ...view, results: withRecordedWords(view.results, row.settings) };
 }

@@ -1,5 +1,8 @@
+import { eq } from 'drizzle-orm';
 import seedrandom from 'seedrandom';
-import { analytes, instruments } from '../db/schema';
+import { analyses, analytes, instruments } from '../db/schema';
+import { flat, pdfPages } from '../reports/testing/pdf-text';
+import { binary } from '../test/harness';
 import { waitForAnalysis } from '../test/fixtures';
 import { Harness, signedIn, startHarness } from '../test/harness';
 
@@ -71,5 +74,44 @@ describe('reference-interval studies', () => {
     const bad = (await run(tech, fails.id)).results;
     expect(bad).toMatchObject({ outside: 3, accepted: false });
     expect(bad.advice).toMatch(/20 more/);
+  });
+
+  it("serves a verification's findings with the source of the stated interval as Setup holds it, also after a record-only change", async () => {
+    const tech = await signedIn(h, 'tech@valeharbor.example');
+    const source = 'Invented package insert for the potassium reagent, edition 4 (2026)';
+    const study = await intervalStudy(tech, 'interval-verify', { statedLower: 3.5, statedUpper: 5.1, statedSource: source });
+    const twenty = Array.from({ length: 20 }, (_, i) => ({ label: `S${i + 1}`, value: (3.6 + i * 0.07).toFixed(2) }));
+    await tech.agent.put(`/api/v1/studies/${study.id}/specimens`).set('X-XSRF-TOKEN', tech.xsrf).send({ version: study.version, rows: twenty }).expect(200);
+    const done = await run(tech, study.id);
+    expect(done.state).toBe('done');
+    expect(done.results.stated).toEqual({ lower: 3.5, upper: 5.1, source });
+
+    // The source is a record-only setting: changing it leaves the findings current, and they name the new one.
+    const now = (await tech.agent.get(`/api/v1/studies/${study.id}`).expect(200)).body;
+    const edition5 = 'Invented package insert for the potassium reagent, edition 5 (2027)';
+    await tech.agent.patch(`/api/v1/studies/${study.id}`).set('X-XSRF-TOKEN', tech.xsrf).send({ version: now.version, settings: { statedSource: edition5 } }).expect(200);
+    const after = (await tech.agent.get(`/api/v1/studies/${study.id}`).expect(200)).body;
+    expect(after).toMatchObject({ findings: 'current', currentAnalysisId: done.id });
+    const served = (await tech.agent.get(`/api/v1/analyses/${done.id}`).expect(200)).body;
+    expect(served.results.stated).toEqual({ lower: 3.5, upper: 5.1, source: edition5 });
+
+    // The stored results stay as the engine made them (a signature binds them; a re-run compares them).
+    const [stored] = await h.database.db.select({ results: analyses.results }).from(analyses).where(eq(analyses.id, done.id));
+    expect((stored.results as { stated: unknown }).stated).toEqual({ lower: 3.5, upper: 5.1, source: '' });
+  });
+
+  it("prints the source of the stated interval in the PDF's findings of the analysis the job made", async () => {
+    const tech = await signedIn(h, 'tech@valeharbor.example');
+    const source = 'Invented multicentre study of adult outpatients, 2025, table 3';
+    const study = await intervalStudy(tech, 'interval-verify', { statedLower: 3.5, statedUpper: 5.1, statedSource: source, decimals: 1 });
+    const twenty = Array.from({ length: 20 }, (_, i) => ({ label: `P${i + 1}`, value: (3.6 + i * 0.07).toFixed(1) }));
+    twenty[4].value = '5.3';
+    await tech.agent.put(`/api/v1/studies/${study.id}/specimens`).set('X-XSRF-TOKEN', tech.xsrf).send({ version: study.version, rows: twenty }).expect(200);
+    expect((await run(tech, study.id)).results).toMatchObject({ n: 20, outside: 1, accepted: true });
+    const pdf = await tech.agent.get(`/api/v1/studies/${study.id}/report.pdf`).buffer(true).parse(binary).expect(200);
+    const text = flat(pdfPages(pdf.body as Buffer));
+    // In the findings, beside the stated interval (the plan names it too, before its rule).
+    expect(text).toContain(`Stated interval 3.5 to 5.1 mmol/L Source of the stated interval ${source} Values tested (n) 20`);
+    expect(text).toContain(`Source of the stated interval ${source} Rule the engine applies`);
   });
 });

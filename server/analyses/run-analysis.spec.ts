@@ -28,3 +28,29 @@ describe('runAnalysis and the engine 1.2 contract', () => {
     expect(() => runAnalysis(comparison(excluded))).toThrow(`row ${excluded[7].position}: the comparative result 2e-200 is outside`);
   });
 });
+
+describe('runAnalysis and repeated labels', () => {
+  const relabel = (rows: Row[], labels: Record<number, string>): Row[] => rows.map((r, i) => (labels[i] ? { ...r, label: labels[i] } : r));
+  const values = (): Row[] => Array.from({ length: 24 }, (_, i) => ({ ...row(i + 1, 0, 0), comparative: null, candidate: null, comparativeText: null, candidateText: null, value: 4 + (i % 12) * 0.1, valueText: (4 + (i % 12) * 0.1).toFixed(1) }));
+  const interval = (kind: string, rows: Row[]): AnalysisInput => ({ kind, settings: { ...settings(1), statedLower: 3.5, statedUpper: 5.5, statedSource: 'invented' }, rows });
+  const warning = (names: string, rows: number) =>
+    `${names} more than once among the analysed rows (${rows} rows): a specimen entered twice counts twice in every estimate; check the labels, or exclude the extra rows with a reason.`;
+
+  it('names the labels that analysed rows repeat first among the warnings of every kind of study', () => {
+    const pairs = relabel(sodium(), { 1: ' s-3', 9: 'S-10', 10: 'S-10' });
+    const compared = runAnalysis(comparison(pairs)) as { warnings: string[] };
+    expect(compared.warnings[0]).toBe(warning('Labels S-3, S-10 appear', 5));
+    for (const kind of ['interval-establish', 'interval-verify']) {
+      const result = runAnalysis(interval(kind, relabel(values(), { 5: 'S-1' }))) as { warnings: string[] };
+      expect(result.warnings[0]).toBe(warning('Label S-1 appears', 2));
+    }
+  });
+
+  it('says nothing when an excluded row carries the repeated label', () => {
+    const pairs = sodium();
+    pairs[1] = { ...row(pairs[1].position, 140, 141, true), label: pairs[0].label };
+    const result = runAnalysis(comparison(pairs)) as { warnings: string[] };
+    expect(result.warnings.filter((w) => w.includes('more than once'))).toEqual([]);
+    expect((runAnalysis(interval('interval-verify', values())) as { warnings: string[] }).warnings.filter((w) => w.includes('more than once'))).toEqual([]);
+  });
+});

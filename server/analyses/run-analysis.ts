@@ -5,6 +5,7 @@ import { engineInfo } from '../../shared/stats/engine';
 import { magnitudeProblem } from '../../shared/stats/magnitude';
 import { verifyInterval } from '../../shared/stats/verify-interval';
 import { StudySettings } from '../../shared/schemas';
+import { repeatedLabels, repeatedLabelsSentence } from '../../shared/types/repeated-labels';
 import type { AnalysisInput } from '../specimens/input-hash';
 
 export type Progress = (fraction: number) => void;
@@ -37,6 +38,17 @@ export function outOfRangeResults(input: AnalysisInput): string[] {
   return out;
 }
 
+/**
+ * The result with a first warning naming the labels two or more analysed (included) rows carry, when any do
+ * (repeated-labels.ts): "Labels S01, S07 appear more than once among the analysed rows (4 rows): …".
+ */
+export function withRepeatedLabels<T extends { warnings: string[] }>(result: T, used: Row[]): T {
+  const repeats = repeatedLabelsSentence(repeatedLabels(used), ' among the analysed rows');
+  if (!repeats) return result;
+  const warning = `${repeats}: a specimen entered twice counts twice in every estimate; check the labels, or exclude the extra rows with a reason.`;
+  return { ...result, warnings: [warning, ...result.warnings] };
+}
+
 /** Maps 1-based analysed-row numbers back to the grid's row positions. */
 const toPositions = (numbers: number[], used: Row[]) => numbers.map((k) => used[k - 1]?.position).filter((p): p is number => p !== undefined);
 
@@ -53,7 +65,7 @@ function comparison(input: AnalysisInput, onProgress: Progress) {
     },
     onProgress,
   );
-  return { ...result, outlierPositions: toPositions(result.outliers, used) };
+  return { ...withRepeatedLabels(result, used), outlierPositions: toPositions(result.outliers, used) };
 }
 
 function establish(input: AnalysisInput, onProgress: Progress) {
@@ -64,7 +76,7 @@ function establish(input: AnalysisInput, onProgress: Progress) {
     { resamples: s.resamples, seed: s.seed, level: s.confidenceLevel, method: s.intervalMethod, percentiles: s.percentiles, partitionFields: s.partitionFields, decimals: s.decimals },
     onProgress,
   );
-  return { ...result, outlierPositions: toPositions(result.outliers, used) };
+  return { ...withRepeatedLabels(result, used), outlierPositions: toPositions(result.outliers, used) };
 }
 
 function verify(input: AnalysisInput) {
@@ -73,7 +85,7 @@ function verify(input: AnalysisInput) {
   const used = input.rows.filter((r) => !r.excluded && has(r.value));
   const result = verifyInterval(used.map((r) => r.value!), { lower: s.statedLower, upper: s.statedUpper }, s.decimals);
   const outsidePositions = used.filter((r) => r.value! < s.statedLower! || r.value! > s.statedUpper!).map((r) => r.position);
-  return { ...result, excludedCount: input.rows.length - used.length, outsidePositions, stated: { lower: s.statedLower, upper: s.statedUpper, source: s.statedSource }, caution: CAUTION, engine: engineInfo(s.seed, s.resamples) };
+  return { ...withRepeatedLabels(result, used), excludedCount: input.rows.length - used.length, outsidePositions, stated: { lower: s.statedLower, upper: s.statedUpper, source: s.statedSource }, caution: CAUTION, engine: engineInfo(s.seed, s.resamples) };
 }
 
 /** Runs the statistics engine for one stored input (called in a worker thread). */

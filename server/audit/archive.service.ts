@@ -2,6 +2,8 @@ import { sql, SQL } from 'drizzle-orm';
 import type { ArchiveItem, ArchivePage, ArchiveQuery } from '../../shared/schemas';
 import type { SignedInUser } from '../auth/session-user';
 import type { Database } from '../db/client';
+import { labDaysFilter, labTimeZone } from '../db/lab-zone';
+import { typedVerificationCode } from '../signoff/content-hash';
 
 /**
  * The quality officer's search over every study of the laboratory. The verdict is read from the
@@ -38,7 +40,7 @@ const SORTS: Record<ArchiveQuery['sort'], SQL> = {
   title: sql`title`, signedAt: sql`sig_at`, createdAt: sql`created_at`, state: sql`state`, kind: sql`kind`,
 };
 
-function filters(me: SignedInUser, q: ArchiveQuery): SQL {
+async function filters(db: Database, me: SignedInUser, q: ArchiveQuery): Promise<SQL> {
   const parts: SQL[] = [sql`laboratory_id = ${me.laboratoryId}`];
   if (q.kind) parts.push(sql`kind = ${q.kind}`);
   if (q.state) parts.push(sql`state = ${q.state}`);
@@ -46,11 +48,20 @@ function filters(me: SignedInUser, q: ArchiveQuery): SQL {
   if (q.instrumentId) parts.push(sql`${q.instrumentId} IN (comparative_instrument_id, candidate_instrument_id, instrument_id)`);
   if (q.verdict) parts.push(sql`verdict = ${q.verdict}`);
   if (q.signerId) parts.push(sql`signer_id = ${q.signerId}`);
-  if (q.signedFrom) parts.push(sql`sig_at >= ${`${q.signedFrom}T00:00:00Z`}::timestamptz`);
-  if (q.signedTo) parts.push(sql`sig_at <= ${`${q.signedTo}T23:59:59.999Z`}::timestamptz`);
-  if (q.createdFrom) parts.push(sql`created_at >= ${`${q.createdFrom}T00:00:00Z`}::timestamptz`);
-  if (q.createdTo) parts.push(sql`created_at <= ${`${q.createdTo}T23:59:59.999Z`}::timestamptz`);
-  if (q.q) parts.push(sql`(title ILIKE ${`%${q.q}%`} OR purpose ILIKE ${`%${q.q}%`})`);
+  if (q.signedFrom || q.signedTo || q.createdFrom || q.createdTo) {
+    // Dates mean the laboratory's days.
+    const zone = await labTimeZone(db, me.laboratoryId);
+    const signed = labDaysFilter(sql`sig_at`, { from: q.signedFrom, to: q.signedTo }, zone);
+    const created = labDaysFilter(sql`created_at`, { from: q.createdFrom, to: q.createdTo }, zone);
+    if (signed) parts.push(signed);
+    if (created) parts.push(created);
+  }
+  if (q.q) {
+    // The verification code printed on any of the study's signed PDFs finds it, typed as printed or not.
+    const code = typedVerificationCode(q.q);
+    const byCode = code ? sql` OR EXISTS (SELECT 1 FROM signatures v WHERE v.study_id = judged.id AND v.verification_code = ${code})` : sql``;
+    parts.push(sql`(title ILIKE ${`%${q.q}%`} OR purpose ILIKE ${`%${q.q}%`}${byCode})`);
+  }
   return sql.join(parts, sql` AND `);
 }
 
@@ -63,7 +74,7 @@ const item = (r: Row): ArchiveItem => ({
 });
 
 export async function searchArchive(db: Database, me: SignedInUser, q: ArchiveQuery): Promise<ArchivePage> {
-  const where = filters(me, q);
+  const where = await filters(db, me, q);
   const order = q.order === 'asc' ? sql`ASC NULLS LAST` : sql`DESC NULLS LAST`;
   const rows = await db.execute(sql`${BASE} SELECT * FROM judged WHERE ${where} ORDER BY ${SORTS[q.sort]} ${order}, id DESC LIMIT ${q.pageSize} OFFSET ${(q.page - 1) * q.pageSize}`);
   const total = await db.execute(sql`${BASE} SELECT count(*)::int AS total FROM judged WHERE ${where}`);

@@ -61,7 +61,7 @@ describe('archive', () => {
     expect(book.worksheets.map((w) => w.name)).toEqual(['Study', 'Rows', 'Results', 'Signatures', 'Audit history']);
     expect(book.getWorksheet('Rows')!.rowCount).toBe(41);
     expect(book.getWorksheet('Signatures')!.getRow(2).getCell(2).value).toBe('Dr. Imani Okafor');
-    const history = book.getWorksheet('Audit history')!.getColumn(3).values as string[];
+    const history = book.getWorksheet('Audit history')!.getColumn(4).values as string[]; // after the laboratory time and the UTC instant
     expect(history).toEqual(expect.arrayContaining(['Submitted for sign-off', 'Signed: accepted for patient testing']));
   });
 });

@@ -3,6 +3,9 @@ import type { Executor } from '../db/client';
 import { auditChainHeads, auditCheckpoints, auditEvents } from '../db/schema';
 import { auditKey } from './audit-key';
 import { chainOf, eventHash, GENESIS_HASH, headMac } from './audit';
+import { labTimeZone } from '../db/lab-zone';
+import { laboratoryTime } from '../../shared/types/lab-time';
+import { plural } from '../../shared/types/plural';
 
 export interface ChainReport {
   chain: string;
@@ -13,8 +16,6 @@ export interface ChainReport {
   hashAt: (position: number) => string | undefined;
 }
 
-const when = (d: Date) => d.toISOString().replace('T', ' ').slice(0, 16) + ' UTC';
-const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? one : many}`;
 
 /**
  * Walks one history chain in order and says what is wrong with it, in words:
@@ -32,6 +33,9 @@ export async function verifyChain(db: Executor, laboratoryId: number | null): Pr
   const events = await db.select().from(auditEvents)
     .where(laboratoryId === null ? isNull(auditEvents.laboratoryId) : eq(auditEvents.laboratoryId, laboratoryId))
     .orderBy(asc(auditEvents.id));
+  // Times in the problems are the laboratory's (the chain of events outside any laboratory reads UTC).
+  const zone = laboratoryId === null ? 'UTC' : await labTimeZone(db, laboratoryId);
+  const when = (d: Date) => laboratoryTime(d, zone);
   const problems: string[] = [];
   let previous = GENESIS_HASH;
   let keyed = false;
@@ -46,7 +50,7 @@ export async function verifyChain(db: Executor, laboratoryId: number | null): Pr
     previous = hash;
   }
   if (keyed) problems.push(...(await headProblems(db, chain, events)));
-  problems.push(...(await checkpointProblems(db, chain, events)));
+  problems.push(...(await checkpointProblems(db, chain, events, when)));
   return { chain, events: events.length, problems, hashAt: (p) => events[p - 1]?.hash };
 }
 
@@ -68,7 +72,7 @@ async function headProblems(db: Executor, chain: string, events: EventRow[]): Pr
   return [];
 }
 
-async function checkpointProblems(db: Executor, chain: string, events: EventRow[]): Promise<string[]> {
+async function checkpointProblems(db: Executor, chain: string, events: EventRow[], when: (d: Date) => string): Promise<string[]> {
   const out: string[] = [];
   for (const cp of await db.select().from(auditCheckpoints).where(eq(auditCheckpoints.chain, chain)).orderBy(asc(auditCheckpoints.id))) {
     const at = events[cp.length - 1];

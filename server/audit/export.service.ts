@@ -1,8 +1,11 @@
 import ExcelJS from 'exceljs';
 import { desc, eq } from 'drizzle-orm';
 import { StudySettings, type ArchiveQuery } from '../../shared/schemas';
+import { withRecordedWords } from '../analyses/recorded-words';
 import type { SignedInUser } from '../auth/session-user';
 import type { Database } from '../db/client';
+import { labTimeZone } from '../db/lab-zone';
+import { laboratoryTime } from '../../shared/types/lab-time';
 import { analyses } from '../db/schema';
 import { listSignatures } from '../signoff/report.service';
 import { loadRows } from '../specimens/input-hash';
@@ -29,6 +32,15 @@ function sheet(wb: ExcelJS.Workbook, name: string, columns: [string, string, num
   return ws;
 }
 
+/**
+ * Every time is exported twice, side by side: as the laboratory reads it, with its zone named
+ * ("2026-12-02 09:14 America/Halifax (UTC−04:00)"), and as the UTC instant in ISO 8601.
+ */
+const timeColumns = (header: string, key: string): [string, string, number][] => [[`${header} (laboratory time)`, `${key}Local`, 38], [`${header} (UTC)`, key, 26]];
+function localTimes<T extends object>(row: T, keys: (keyof T & string)[], zone: string): Record<string, string> {
+  return Object.fromEntries(keys.map((k) => [`${k}Local`, laboratoryTime(row[k] as string | null, zone)]));
+}
+
 const buffer = async (wb: ExcelJS.Workbook) => Buffer.from(await wb.xlsx.writeBuffer());
 
 function newBook(): ExcelJS.Workbook {
@@ -41,12 +53,13 @@ function newBook(): ExcelJS.Workbook {
 /** The archive result list (same filters as the page, every match, not one page). */
 export async function exportArchive(db: Database, me: SignedInUser, q: ArchiveQuery): Promise<Buffer> {
   const all = await searchArchive(db, me, { ...q, page: 1, pageSize: 100_000 });
+  const zone = await labTimeZone(db, me.laboratoryId);
   const wb = newBook();
   sheet(wb, 'Studies', [
     ['Study', 'id', 8], ['Kind', 'kind', 20], ['Title', 'title', 44], ['Analyte', 'analyte', 16], ['Instruments', 'instruments', 32], ['n', 'n', 6],
-    ['State', 'state', 16], ['Verdict', 'verdict', 14], ['Signed by', 'signerName', 22], ['Meaning', 'meaning', 14], ['Signed at (UTC)', 'signedAt', 22],
-    ['Created (UTC)', 'createdAt', 22], ['Superseded', 'superseded', 11], ['Supersedes', 'supersedesId', 11],
-  ], all.items.map((i) => ({ ...i, superseded: i.superseded ? 'yes' : 'no' })));
+    ['State', 'state', 16], ['Verdict', 'verdict', 14], ['Signed by', 'signerName', 22], ['Meaning', 'meaning', 14], ...timeColumns('Signed at', 'signedAt'),
+    ...timeColumns('Created', 'createdAt'), ['Superseded', 'superseded', 11], ['Supersedes', 'supersedesId', 11],
+  ], all.items.map((i) => ({ ...i, ...localTimes(i, ['signedAt', 'createdAt'], zone), superseded: i.superseded ? 'yes' : 'no' })));
   return buffer(wb);
 }
 
@@ -62,7 +75,7 @@ function flatten(v: unknown, path = '', out: { field: string; value: unknown }[]
 /** One study's whole record: settings, rows with exclusions and reasons, results, signatures, history. */
 export async function exportStudy(db: Database, me: SignedInUser, studyId: number): Promise<Buffer> {
   const row = await findStudy(db, me.laboratoryId, studyId);
-  const study = await studyView(db, row);
+  const study = await studyView(db, row, me);
   const wb = newBook();
   const about = [
     ['Study', study.id], ['Kind', study.kind], ['Title', study.title], ['Purpose', study.purpose], ['Analyte', `${study.analyte.name} (${study.analyteUnit})`],
@@ -82,10 +95,11 @@ export async function exportStudy(db: Database, me: SignedInUser, studyId: numbe
   sheet(wb, 'Results', [['Field', 'field', 50], ['Value', 'value', 40]], [
     { field: 'analysis', value: analysis?.id ?? '(none)' }, { field: 'engine version', value: analysis?.engineVersion ?? '' },
     { field: 'seed', value: analysis?.seed ?? '' }, { field: 'resamples', value: analysis?.resamples ?? '' }, { field: 'input hash', value: analysis?.inputHash ?? '' },
-    ...flatten(analysis?.results ?? {}),
+    ...flatten(withRecordedWords(analysis?.results ?? {}, row.settings)),
   ]);
-  sheet(wb, 'Signatures', [['Meaning', 'meaningWords', 30], ['Signed by', 'signerName', 24], ['Signed at (UTC)', 'signedAt', 24], ['Comment', 'comment', 40], ['Content hash', 'contentHash', 70], ['Verification code', 'verificationCode', 16], ['PDF SHA-256', 'pdfSha256', 70]], signatureRows);
+  const zone = await labTimeZone(db, me.laboratoryId);
+  sheet(wb, 'Signatures', [['Meaning', 'meaningWords', 30], ['Signed by', 'signerName', 24], ...timeColumns('Signed at', 'signedAt'), ['Comment', 'comment', 40], ['Content hash', 'contentHash', 70], ['Verification code', 'verificationCode', 16], ['PDF SHA-256', 'pdfSha256', 70]], signatureRows.map((s) => ({ ...s, ...localTimes(s, ['signedAt'], zone) })));
   const history = await studyHistory(db, me, studyId);
-  sheet(wb, 'Audit history', [['Time (UTC)', 'at', 24], ['Who', 'userName', 22], ['What', 'headline', 50], ['Details', 'details', 90]], history.map((h) => ({ ...h, details: h.details.join('\n') })));
+  sheet(wb, 'Audit history', [...timeColumns('Time', 'at'), ['Who', 'userName', 22], ['What', 'headline', 50], ['Details', 'details', 90]], history.map((h) => ({ ...h, ...localTimes(h, ['at'], zone), details: h.details.join('\n') })));
   return buffer(wb);
 }

@@ -1,7 +1,8 @@
-import { and, asc, desc, eq, gte, like, lte, sql, SQL } from 'drizzle-orm';
+import { and, asc, desc, eq, like, sql, SQL } from 'drizzle-orm';
 import { describeEvent } from '../../shared/types/audit-words';
 import type { SignedInUser } from '../auth/session-user';
 import type { Database } from '../db/client';
+import { inLabDays } from '../db/lab-zone';
 import { auditEvents, users } from '../db/schema';
 import { findStudy } from '../studies/studies.repository';
 import type { AuditQuery, HistoryEvent, HistoryPage, Person } from '../../shared/schemas';
@@ -17,14 +18,14 @@ export async function studyHistory(db: Database, me: SignedInUser, studyId: numb
   return rows.map(view);
 }
 
-/** The laboratory-wide history, filtered by user, action, study and date, newest first. */
+/** The laboratory-wide history, filtered by user, action, study and the laboratory's days, newest first. */
 export async function labHistory(db: Database, me: SignedInUser, q: AuditQuery): Promise<HistoryPage> {
   const where: SQL[] = [eq(auditEvents.laboratoryId, me.laboratoryId)];
   if (q.userId) where.push(eq(auditEvents.userId, q.userId));
   if (q.studyId) where.push(eq(auditEvents.studyId, q.studyId));
   if (q.action) where.push(like(auditEvents.action, `${q.action.replace(/[\\%_]/g, '')}%`));
-  if (q.from) where.push(gte(auditEvents.at, new Date(`${q.from}T00:00:00Z`)));
-  if (q.to) where.push(lte(auditEvents.at, new Date(`${q.to}T23:59:59.999Z`)));
+  const days = await inLabDays(db, me.laboratoryId, auditEvents.at, q);
+  if (days) where.push(days);
   const rows = await db.select().from(auditEvents).where(and(...where)).orderBy(desc(auditEvents.id)).limit(q.pageSize).offset((q.page - 1) * q.pageSize);
   const [{ total }] = await db.select({ total: sql<number>`count(*)::int` }).from(auditEvents).where(and(...where));
   return { items: rows.map(view), total };

@@ -10,6 +10,7 @@ import { contentHashOf, signedContent } from '../signoff/content-hash';
 import { recordAudit } from './audit';
 import { sha256Hex } from './canonical-json';
 import { verifyChain, type ChainReport } from './chain';
+import { plural } from '../../shared/types/plural';
 
 /**
  * Re-checks a signed study from what is stored: the content hash over rows, settings and results
@@ -69,7 +70,7 @@ async function historyCheck(db: Executor, laboratoryId: number, studyId: number,
   if (!eventMatches) return { name, passed: false, detail: 'The history has no signing event with this content hash.' };
   return {
     name, passed: true,
-    detail: `All ${chain.events} events of the laboratory's history are intact, keyed and chained up to its signed newest event${sig.chainLength ? `; event ${sig.chainLength}, which the signature was made after, is unchanged` : ''}; the signing event holds the same content hash.`,
+    detail: `All ${plural(chain.events, 'event')} of the laboratory's history are intact, keyed and chained up to its signed newest event${sig.chainLength ? `; event ${sig.chainLength}, which the signature was made after, is unchanged` : ''}; the signing event holds the same content hash.`,
   };
 }
 
@@ -84,7 +85,7 @@ export async function checkChains(db: Database, me: SignedInUser): Promise<Chain
     const chain = await verifyChain(db, lab);
     checks.push(chain.problems.length
       ? { name, passed: false, detail: `${chain.problems.length === 1 ? 'One problem' : `${chain.problems.length} problems`} in ${whose}: ${problemWords(chain)}.` }
-      : { name, passed: true, detail: `All ${chain.events} events of ${whose} are intact, keyed and chained up to its signed newest event; every checkpoint still matches.` });
+      : { name, passed: true, detail: `All ${plural(chain.events, 'event')} of ${whose} are intact, keyed and chained up to its signed newest event; every checkpoint still matches.` });
   }
   const passed = checks.every((c) => c.passed);
   await db.transaction((tx) => recordAudit(tx, actorOf(me), { action: 'history.checked', entity: 'audit', after: { passed, failed: checks.filter((c) => !c.passed).map((c) => c.name) } }));

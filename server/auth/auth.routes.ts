@@ -1,6 +1,6 @@
 import type { Request, Response } from 'express';
 import type { PassportStatic } from 'passport';
-import { ChangePasswordBody, SetPasswordBody, SignInBody, TokenParams } from '../../shared/schemas';
+import { ChangePasswordBody, PASSWORD_RESET_ANSWER, PasswordResetBody, SetPasswordBody, SignInBody, TokenParams, type PasswordResetAnswer } from '../../shared/schemas';
 import { recordAudit } from '../audit/audit';
 import { SignInLimits } from './sign-in-limits';
 import type { AppContext } from '../context';
@@ -9,6 +9,8 @@ import { parseRequest } from '../http/parse-request';
 import type { RouteSpec } from '../http/routes';
 import { changeOwnPassword, describeSession } from './auth.service';
 import { describeLink, usePasswordLink } from './password-links';
+import { requestPasswordReset } from './password-resets';
+import { ResetLimits } from './reset-limits';
 
 const logIn = (req: Request, user: Express.User) =>
   new Promise<void>((resolve, reject) => req.login(user, (err) => (err ? reject(err) : resolve())));
@@ -25,6 +27,7 @@ const authenticate = (passport: PassportStatic, req: Request, res: Response) =>
 
 export function authRoutes(ctx: AppContext, passport: PassportStatic): RouteSpec[] {
   const limits = new SignInLimits(ctx.pool, ctx.db, ctx.config.signInRateLimit);
+  const resetLimits = new ResetLimits(ctx.pool, ctx.db, ctx.config.passwordResetRateLimit);
   return [
     {
       method: 'get', path: '/session', access: 'public',
@@ -67,6 +70,17 @@ export function authRoutes(ctx: AppContext, passport: PassportStatic): RouteSpec
       },
     },
     {
+      // "Forgot your password?": the same 202 and the same words whether or not the e-mail has an account.
+      method: 'post', path: '/password-resets', access: 'public', sessionless: true,
+      handler: async (req, res) => {
+        const { email } = parseRequest(PasswordResetBody, req.body, 'body');
+        const address = req.ip ?? '';
+        await resetLimits.consume(address, email);
+        await requestPasswordReset(ctx, email, address);
+        res.status(202).json({ message: PASSWORD_RESET_ANSWER } satisfies PasswordResetAnswer);
+      },
+    },
+    {
       method: 'get', path: '/password-links/:token', access: 'public',
       handler: async (req, res) => {
         const { token } = parseRequest(TokenParams, req.params, 'params');
@@ -78,7 +92,8 @@ export function authRoutes(ctx: AppContext, passport: PassportStatic): RouteSpec
       handler: async (req, res) => {
         const { token } = parseRequest(TokenParams, req.params, 'params');
         const body = parseRequest(SetPasswordBody, req.body, 'body');
-        await usePasswordLink(ctx.db, token, body.password);
+        const email = await usePasswordLink(ctx.db, token, body.password);
+        await limits.succeeded(email); // the new password starts with a clean count of failed sign-ins
         res.status(204).end();
       },
     },

@@ -1,5 +1,5 @@
 import type { ChangePasswordBody, Role, SessionUser } from '../../shared/schemas';
-import { recordAudit } from '../audit/audit';
+import { recordAudit, type AuditInput } from '../audit/audit';
 import type { Database, Executor } from '../db/client';
 import { AppError } from '../http/app-error';
 import { endSessions, findLaboratory, findUserByEmail, findUserById, updateUser } from './auth.repository';
@@ -43,12 +43,18 @@ export async function verifySignIn(db: Database, email: string, password: string
   return outcome;
 }
 
-/** Counts a wrong password (at sign-in or at signing) and locks the account at the fifth. */
-export async function registerFailure(tx: Executor, user: UserRow, address: string, where: string): Promise<void> {
+/**
+ * Counts a wrong password (at sign-in or at signing) and locks the account at the fifth. The failure is
+ * audited as `<where>.wrong-password` on the user, or, when `where` is a function (a refused signature),
+ * as the event it makes from the count, e.g. on the study being signed.
+ */
+export async function registerFailure(tx: Executor, user: UserRow, address: string, where: string | ((failures: number) => AuditInput)): Promise<void> {
   const next = afterFailure(user.failedSignIns);
   await updateUser(tx, user.id, next);
   const actor = { id: user.id, name: user.name, laboratoryId: user.laboratoryId };
-  await recordAudit(tx, actor, { action: `${where}.wrong-password`, entity: 'user', entityId: user.id, after: { address, failures: next.failedSignIns } });
+  await recordAudit(tx, actor, typeof where === 'function'
+    ? where(next.failedSignIns)
+    : { action: `${where}.wrong-password`, entity: 'user', entityId: user.id, after: { address, failures: next.failedSignIns } });
   if (next.lockedUntil) {
     await recordAudit(tx, actor, { action: 'user.locked', entity: 'user', entityId: user.id, after: { lockedUntil: next.lockedUntil.toISOString(), failures: next.failedSignIns } });
   }

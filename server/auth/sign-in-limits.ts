@@ -3,6 +3,7 @@ import { RateLimiterPostgres, RateLimiterRes } from 'rate-limiter-flexible';
 import { recordAudit } from '../audit/audit';
 import type { Database } from '../db/client';
 import { AppError } from '../http/app-error';
+import { plural } from '../../shared/types/plural';
 
 const WINDOW_SECONDS = 15 * 60;
 
@@ -30,7 +31,7 @@ export class SignInLimits {
     const minutes = Math.max(1, Math.ceil(Math.max(...over.map((r) => r.msBeforeNext)) / 60_000));
     const which = over.length === 2 ? 'from this address and for this account' : a && over[0] === a ? 'from this address' : 'for this account';
     await this.db.transaction((tx) => recordAudit(tx, { id: null, name: null, laboratoryId: null }, { action: 'sign-in.rate-limited', entity: 'session', after: { address, which } }));
-    throw new AppError('too_many', `Too many failed sign-ins ${which}; wait ${minutes} minute${minutes === 1 ? '' : 's'} and try again`);
+    throw new AppError('too_many', `Too many failed sign-ins ${which}; wait ${plural(minutes, 'minute')} and try again`);
   }
 
   /** Counts one failure against the address and the account. */

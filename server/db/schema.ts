@@ -42,6 +42,8 @@ export const passwordLinks = pgTable('password_links', {
   id: serial('id').primaryKey(),
   userId: integer('user_id').notNull().references(() => users.id),
   tokenHash: text('token_hash').notNull(),
+  /** 'invitation' (an administrator's new account, 72 hours) or 'reset' (a forgotten password, 1 hour). */
+  purpose: text('purpose').notNull().default('invitation'),
   expiresAt: stamp('expires_at').notNull(),
   usedAt: stamp('used_at'),
   createdAt: created(),
@@ -95,6 +97,10 @@ export const studies = pgTable('studies', {
   signedAt: stamp('signed_at'),
   returnedAt: stamp('returned_at'),
   returnComment: text('return_comment'),
+  /** The technologist's note for the director with the submission now awaiting sign-off; cleared on return (the history keeps it). */
+  submissionNote: text('submission_note'),
+  /** Who submitted the study last. */
+  submittedBy: integer('submitted_by').references(() => users.id),
   /** Set when the director approved the plan (a signature with meaning 'plan-approved'). */
   planApprovedAt: stamp('plan_approved_at'),
   /**

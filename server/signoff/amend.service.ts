@@ -6,11 +6,11 @@ import type { AppContext } from '../context';
 import { signatures, specimens, studies } from '../db/schema';
 import { AppError } from '../http/app-error';
 import { loadRows, storeInputHash } from '../specimens/input-hash';
-import { findStudy } from '../studies/studies.repository';
+import { findStudy, type StudyRow } from '../studies/studies.repository';
 import { PLAN_FIELDS } from '../studies/study-settings';
 import { studyView } from '../studies/study-view';
 import { contentHashOf, verificationCode } from './content-hash';
-import { confirmPassword, step } from './signoff.service';
+import { confirmPassword, step, studyAttempt } from './signoff.service';
 
 /** Copies a signed study into a new draft that records what it supersedes. */
 export function amendStudy(ctx: AppContext, me: SignedInUser, id: number, reason: string): Promise<Study> {
@@ -20,7 +20,7 @@ export function amendStudy(ctx: AppContext, me: SignedInUser, id: number, reason
     if (old.supersededById) throw new AppError('conflict', `This study is already superseded by study ${old.supersededById}`);
     const pending = await tx.select({ id: studies.id }).from(studies).where(eq(studies.supersedesId, id));
     if (pending.length) throw new AppError('conflict', `An amendment of this study already exists (study ${pending[0].id})`);
-    const { id: _id, createdAt: _c, updatedAt: _u, submittedAt: _s, signedAt: _g, returnedAt: _r, returnComment: _rc, planApprovedAt: _p, supersededById: _sb, ...copy } = old;
+    const { id: _id, createdAt: _c, updatedAt: _u, submittedAt: _s, signedAt: _g, returnedAt: _r, returnComment: _rc, submissionNote: _sn, submittedBy: _sby, planApprovedAt: _p, supersededById: _sb, ...copy } = old;
     const [row] = await tx.insert(studies).values({ ...copy, title: `${old.title} (amendment)`, state: 'draft', version: 1, supersedesId: id, createdBy: me.id }).returning();
     const rows = await loadRows(tx, id);
     if (rows.length) {
@@ -30,16 +30,21 @@ export function amendStudy(ctx: AppContext, me: SignedInUser, id: number, reason
     await storeInputHash(tx, row.id);
     await recordAudit(tx, actorOf(me), { action: 'study.amended', entity: 'study', entityId: row.id, studyId: row.id, reason, after: { supersedes: id, rows: rows.length } });
     await recordAudit(tx, actorOf(me), { action: 'study.amendment-started', entity: 'study', entityId: id, studyId: id, reason, after: { amendment: row.id } });
-    return studyView(tx, row);
+    return studyView(tx, row, me);
   });
+}
+
+function draftForPlan(study: StudyRow): StudyRow {
+  if (study.state !== 'draft') throw new AppError('conflict', 'The plan can only be approved while the study is a draft');
+  return study;
 }
 
 /** The director approves the plan before data: an electronic signature of its own. */
 export async function approvePlan(ctx: AppContext, me: SignedInUser, id: number, body: PlanApprovalBody, address: string): Promise<Study> {
-  await confirmPassword(ctx, me, body.password, address, 'plan-approval');
+  draftForPlan(await findStudy(ctx.db, me.laboratoryId, id));
+  await confirmPassword(ctx, me, body.password, address, studyAttempt(id, 'plan-approved'));
   return step(ctx, async (tx) => {
-    const study = await findStudy(tx, me.laboratoryId, id, true);
-    if (study.state !== 'draft') throw new AppError('conflict', 'The plan can only be approved while the study is a draft');
+    const study = draftForPlan(await findStudy(tx, me.laboratoryId, id, true));
     const plan = Object.fromEntries(PLAN_FIELDS.map((f) => [f, (study.settings as Record<string, unknown>)[f]]));
     const contentHash = contentHashOf({ studyId: id, kind: study.kind, analyteId: study.analyteId, plan });
     const signedAt = new Date();
@@ -48,6 +53,6 @@ export async function approvePlan(ctx: AppContext, me: SignedInUser, id: number,
     }).returning({ id: signatures.id });
     const [row] = await tx.update(studies).set({ planApprovedAt: signedAt, version: study.version + 1, updatedAt: signedAt }).where(eq(studies.id, id)).returning();
     await recordAudit(tx, actorOf(me), { action: 'plan.approved', entity: 'signature', entityId: sig.id, studyId: id, after: { plan, contentHash, comment: body.comment } });
-    return studyView(tx, row);
+    return studyView(tx, row, me);
   });
 }

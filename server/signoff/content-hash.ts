@@ -39,3 +39,14 @@ export function verificationCode(hash: string): string {
   }
   return `PX-${out.slice(0, 4)}-${out.slice(4)}`;
 }
+
+/**
+ * A verification code as a person may type it back, in its printed form ("PX-7K3M-Q9TD"): case,
+ * spaces and separators do not matter, and the "PX" may be left out. Null when the text cannot be a code.
+ */
+export function typedVerificationCode(text: string): string | null {
+  let key = text.toUpperCase().replace(/[^A-Z0-9]/g, '');
+  if (key.length === 10 && key.startsWith('PX')) key = key.slice(2);
+  if (key.length !== 8 || [...key].some((c) => !ALPHABET.includes(c))) return null;
+  return `PX-${key.slice(0, 4)}-${key.slice(4)}`;
+}

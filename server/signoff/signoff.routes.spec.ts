@@ -1,6 +1,6 @@
 import { eq, sql } from 'drizzle-orm';
 import { auditEvents, laboratories, mailMessages, signatures, specimens, studies, users } from '../db/schema';
-import { analysedComparison, createComparison, inventedPairs } from '../test/fixtures';
+import { analysedComparison, createComparison, inventedPairs, waitForAnalysis } from '../test/fixtures';
 import { binary, Harness, signedIn, startHarness } from '../test/harness';
 
 let h: Harness;
@@ -32,6 +32,26 @@ describe('submission and review', () => {
     expect(stale.body.issues[0]).toMatchObject({ path: 'findings', message: expect.stringMatching(/out of date/) });
   });
 
+  it('refuses to submit while included rows repeat a label, naming the labels, and excluding one of each pair resolves it', async () => {
+    const tech = await signedIn(h, 'tech@valeharbor.example');
+    const study = await createComparison(h, tech);
+    const rows = inventedPairs(40).map((r, i) => (i === 20 ? { ...r, label: 'S003' } : i === 30 ? { ...r, label: ' s011' } : r));
+    const saved = await tech.agent.put(`/api/v1/studies/${study.id}/specimens`).set('X-XSRF-TOKEN', tech.xsrf).send({ version: study.version, rows }).expect(200);
+    const analyse = async () => waitForAnalysis(tech, (await post(tech, `/studies/${study.id}/analyses`).expect(202)).body.id);
+    const analysed = await analyse();
+    expect(analysed.results.warnings[0]).toBe('Labels S003, S011 appear more than once among the analysed rows (4 rows): a specimen entered twice counts twice in every estimate; check the labels, or exclude the extra rows with a reason.');
+    const refused = await post(tech, `/studies/${study.id}/submit`).expect(400);
+    const problem = 'Labels S003, S011 appear more than once among the included rows (4 rows); give each specimen its own label, or exclude the extra rows with a reason';
+    expect(refused.body.issues).toEqual([{ path: 'rows', message: problem }]);
+    expect(refused.body.error).toBe(`The study cannot be submitted yet: ${problem}`);
+
+    const excluded = rows.map((r, i) => (i === 20 || i === 30 ? { ...r, excluded: true, exclusionReason: 'the same specimen entered twice' } : r));
+    await tech.agent.put(`/api/v1/studies/${study.id}/specimens`).set('X-XSRF-TOKEN', tech.xsrf).send({ version: saved.body.version, rows: excluded }).expect(200);
+    const again = await analyse();
+    expect(again.results.warnings.filter((w: string) => w.includes('more than once'))).toEqual([]);
+    expect((await post(tech, `/studies/${study.id}/submit`).expect(200)).body.state).toBe('awaiting-signoff');
+  });
+
   it('submits, locks the rows, mails the directors, and the director returns it with a required comment', async () => {
     const tech = await signedIn(h, 'tech@valeharbor.example');
     const study = await analysedComparison(h, tech, `Review ${Date.now()}`);
@@ -61,7 +81,7 @@ describe('electronic signature', () => {
     const wrong = await post(director, `/studies/${study.id}/sign`, { meaning: 'accepted', password: 'not-mine' }).expect(400);
     expect(wrong.body.issues[0].path).toBe('password');
     const [me] = await h.database.db.select().from(users).where(eq(users.email, 'director@valeharbor.example'));
-    expect((await h.database.db.select().from(auditEvents).where(eq(auditEvents.userId, me.id))).map((e) => e.action)).toContain('signature.wrong-password');
+    expect((await h.database.db.select().from(auditEvents).where(eq(auditEvents.userId, me.id))).map((e) => e.action)).toContain('signature.refused');
     const signed = await post(director, `/studies/${study.id}/sign`, { meaning: 'accepted', comment: 'Fit for use', password: 'parallax-demo' }).expect(200);
     expect(signed.body.state).toBe('signed');
     const [sig] = await h.database.db.select().from(signatures).where(eq(signatures.studyId, study.id));

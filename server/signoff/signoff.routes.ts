@@ -1,4 +1,4 @@
-import { AmendBody, PlanApprovalBody, ReturnBody, SignBody } from '../../shared/schemas';
+import { AmendBody, PlanApprovalBody, ReturnBody, SignBody, SubmitBody } from '../../shared/schemas';
 import type { AppContext } from '../context';
 import { parseRequest } from '../http/parse-request';
 import type { RouteSpec } from '../http/routes';
@@ -12,7 +12,10 @@ const DIRECTOR = ['director'] as const;
 
 export function signoffRoutes(ctx: AppContext): RouteSpec[] {
   return [
-    { method: 'post', path: '/studies/:id/submit', access: EDITORS, handler: async (req, res) => res.json(await submitStudy(ctx, req.user!, studyId(req.params))) },
+    {
+      method: 'post', path: '/studies/:id/submit', access: EDITORS,
+      handler: async (req, res) => res.json(await submitStudy(ctx, req.user!, studyId(req.params), parseRequest(SubmitBody, req.body, 'body').note)),
+    },
     {
       method: 'post', path: '/studies/:id/return', access: DIRECTOR,
       handler: async (req, res) => res.json(await returnStudy(ctx, req.user!, studyId(req.params), parseRequest(ReturnBody, req.body, 'body').comment)),

@@ -3,6 +3,7 @@ import { show } from '../../shared/types/audit-words';
 import { StudySettings, type StudyKind, type StudyState } from '../../shared/schemas';
 import type { Executor } from '../db/client';
 import { analyses, analytes, auditEvents, instruments, laboratories, signatures } from '../db/schema';
+import { withRecordedWords } from '../analyses/recorded-words';
 import { renderStudyReport } from '../reports/render-report';
 import type { Amendment, InstrumentInfo, ReportResults, StudyReport } from '../reports/report-model';
 import { loadRows } from '../specimens/input-hash';
@@ -46,7 +47,7 @@ export async function renderStudyPdf(db: Executor, study: StudyRow, analysisId: 
     settings: StudySettings.parse(study.settings),
     engineVersion: analysis?.engineVersion ?? '',
     rows: (await loadRows(db, study.id)).map(rowView),
-    results: (analysis?.results as ReportResults | undefined) ?? null,
+    results: (withRecordedWords(analysis?.results, study.settings) as ReportResults | undefined) ?? null,
     amendments: await amendmentsOf(db, study.id),
     planApproval: plan ? { signerName: plan.signerName, signedAt: plan.signedAt, comment: plan.comment } : null,
     signature: signing.draft || !signing.signedAt

@@ -1,4 +1,5 @@
 import { StudySettings } from '../../shared/schemas';
+import { repeatedLabels, repeatedLabelsSentence } from '../../shared/types/repeated-labels';
 import type { Executor } from '../db/client';
 import { loadRows } from '../specimens/input-hash';
 import type { StudyRow } from '../studies/studies.repository';
@@ -14,6 +15,9 @@ export async function submissionProblems(db: Executor, study: StudyRow): Promise
   }
   const rows = await loadRows(db, study.id);
   for (const r of rows) if (r.excluded && !r.exclusionReason) problems.push({ path: `rows.${r.position - 1}.exclusionReason`, message: `row ${r.position}: excluded without a reason` });
+  // Unresolved repeats: two or more included rows with one label (trimmed, any case); excluding a row resolves its repeat.
+  const repeats = repeatedLabelsSentence(repeatedLabels(rows), ' among the included rows');
+  if (repeats) problems.push({ path: 'rows', message: `${repeats}; give each specimen its own label, or exclude the extra rows with a reason` });
   if (study.kind === 'method-comparison') {
     if (!s.decisionLevels.length) problems.push({ path: 'settings.decisionLevels', message: 'Name at least one medical decision level' });
     if (s.allowableBiasAbsolute === null && s.allowableBiasPercent === null) problems.push({ path: 'settings.allowableBiasAbsolute', message: 'Set the allowable bias' });

@@ -23,7 +23,7 @@ const withCandidate = (candidate: unknown, comma = false) => {
 /** The study is untouched: version 1, no rows, no save audited. */
 async function expectNothingSaved(s: Session, studyId: number) {
   const got = await s.agent.get(`/api/v1/studies/${studyId}/specimens`).expect(200);
-  expect(got.body).toEqual({ version: 1, rows: [] });
+  expect(got.body).toEqual({ version: 1, rows: [], warnings: [] });
   const events = await h.database.db.select().from(auditEvents).where(eq(auditEvents.studyId, studyId));
   expect(events.filter((e) => e.action === 'specimens.saved')).toEqual([]);
 }

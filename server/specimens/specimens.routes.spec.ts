@@ -34,7 +34,20 @@ describe('specimen rows', () => {
       { path: 'rows.5.exclusionReason', message: 'row 6: excluded without a reason; give the reason' },
     ]));
     const got = await tech.agent.get(`/api/v1/studies/${study.id}/specimens`).expect(200);
-    expect(got.body).toEqual({ version: 1, rows: [] });
+    expect(got.body).toEqual({ version: 1, rows: [], warnings: [] });
+  });
+
+  it('warns of labels that included rows repeat, naming them, until an exclusion resolves each repeat', async () => {
+    const tech = await signedIn(h, 'tech@valeharbor.example');
+    const study = await createComparison(h, tech);
+    const rows = inventedPairs(10).map((r, i) => ({ ...r, label: i === 4 ? 's001 ' : i === 8 ? 'S007' : r.label }));
+    const saved = await tech.agent.put(`/api/v1/studies/${study.id}/specimens`).set('X-XSRF-TOKEN', tech.xsrf).send({ version: 1, rows }).expect(200);
+    const twice = 'Labels S001, S007 appear more than once (4 rows); give each specimen its own label, or exclude the extra rows with a reason';
+    expect(saved.body.warnings).toEqual([twice]);
+    expect((await tech.agent.get(`/api/v1/studies/${study.id}/specimens`).expect(200)).body.warnings).toEqual([twice]);
+    const resolved = rows.map((r, i) => (i === 4 ? { ...r, excluded: true, exclusionReason: 'entered twice' } : r));
+    const once = await tech.agent.put(`/api/v1/studies/${study.id}/specimens`).set('X-XSRF-TOKEN', tech.xsrf).send({ version: 2, rows: resolved }).expect(200);
+    expect(once.body.warnings).toEqual(['Label S007 appears more than once (2 rows); give each specimen its own label, or exclude the extra rows with a reason']);
   });
 
   it('audits each changed cell with its before and after value, and answers 409 to a stale version', async () => {

@@ -4,6 +4,8 @@ import { recordAudit } from '../audit/audit';
 import { actorOf, SignedInUser } from '../auth/session-user';
 import type { Database, Tx } from '../db/client';
 import { analytes, specimens } from '../db/schema';
+import { repeatedLabels, repeatedLabelsSentence } from '../../shared/types/repeated-labels';
+import { plural } from '../../shared/types/plural';
 import { AppError } from '../http/app-error';
 import { bumpVersion, findStudy, StudyRow } from '../studies/studies.repository';
 import { assertEditable, assertPlanApproved } from '../studies/study-rules';
@@ -23,9 +25,19 @@ export const asClean = (r: StoredRow): CleanRow => ({
   sex: r.sex, ageBand: r.ageBand, excluded: r.excluded, exclusionReason: r.exclusionReason, note: r.note,
 });
 
+/**
+ * The rows as the API answers them, with their warnings: labels that two or more included rows carry
+ * (repeated-labels.ts; an excluded row's label is resolved and not counted).
+ */
+export function rowsAnswer(version: number, stored: StoredRow[]): SpecimenRows {
+  const repeats = repeatedLabelsSentence(repeatedLabels(stored));
+  const warnings = repeats ? [`${repeats}; give each specimen its own label, or exclude the extra rows with a reason`] : [];
+  return { version, rows: stored.map(rowView), warnings };
+}
+
 export async function getRows(db: Database, me: SignedInUser, studyId: number): Promise<SpecimenRows> {
   const study = await findStudy(db, me.laboratoryId, studyId);
-  return { version: study.version, rows: (await loadRows(db, study.id)).map(rowView) };
+  return rowsAnswer(study.version, await loadRows(db, study.id));
 }
 
 /**
@@ -37,7 +49,7 @@ export async function cleanRowsFor(tx: Tx, study: StudyRow, raw: Record<string, 
   const decimalMark = (study.settings as Partial<StudySettings> | null)?.decimalMark ?? 'auto';
   const { rows, issues } = validateRows(study.kind, raw, analyte.canBeNegative, decimalMark);
   if (issues.length) {
-    throw new AppError('invalid_request', issues.length === 1 ? issues[0].message : `${issues[0].message} (and ${issues.length - 1} more problems)`, issues);
+    throw new AppError('invalid_request', issues.length === 1 ? issues[0].message : `${issues[0].message} (and ${plural(issues.length - 1, 'more problem', 'more problems')})`, issues);
   }
   return rows;
 }
@@ -68,7 +80,7 @@ export async function writeRows(
     action, entity: 'specimens', entityId: study.id, studyId: study.id,
     before: { rowCount: before.length, version }, after: { rowCount: rows.length, version: updated.version, ...diff },
   });
-  return { version: updated.version, rows: (await loadRows(tx, study.id)).map(rowView) };
+  return rowsAnswer(updated.version, await loadRows(tx, study.id));
 }
 
 const sameRow = (a: CleanRow, b: CleanRow | undefined) => !!b && JSON.stringify(a) === JSON.stringify(b);

@@ -1,8 +1,9 @@
-import { and, asc, desc, eq, gte, ilike, inArray, lte, or, sql, SQL } from 'drizzle-orm';
+import { and, asc, desc, eq, ilike, inArray, or, sql, SQL } from 'drizzle-orm';
 import { StudySettings, type CreateStudyBody, type Study, type StudyListQuery, type StudyPage, type UpdateStudyBody, type Worklist } from '../../shared/schemas';
 import { recordAudit } from '../audit/audit';
 import { actorOf, SignedInUser } from '../auth/session-user';
 import type { Database, Tx } from '../db/client';
+import { inLabDays } from '../db/lab-zone';
 import { specimens, studies } from '../db/schema';
 import { invalid } from '../http/app-error';
 import { bumpVersion, findLabAnalyte, findLabInstrument, findStudy } from './studies.repository';
@@ -11,6 +12,7 @@ import { assertEditable } from './study-rules';
 import { initialSettings, PLAN_FIELDS } from './study-settings';
 import { studyView, summarise } from './study-view';
 import { storeInputHash } from '../specimens/input-hash';
+import { signableBy } from '../signoff/who-may-sign';
 
 async function checkRefs(tx: Tx, me: SignedInUser, kind: string, ids: { analyteId?: number; comparativeInstrumentId?: number | null; candidateInstrumentId?: number | null; instrumentId?: number | null }) {
   if (ids.analyteId !== undefined && !(await findLabAnalyte(tx, me.laboratoryId, ids.analyteId))) throw invalid('analyteId', 'Choose an analyte from the catalog');
@@ -38,7 +40,7 @@ export async function createStudy(db: Database, me: SignedInUser, body: CreateSt
     }).returning();
     await recordAudit(tx, actorOf(me), { action: 'study.created', entity: 'study', entityId: row.id, studyId: row.id, after: { ...body, settings: row.settings } });
     await storeInputHash(tx, row.id);
-    return studyView(tx, (await findStudy(tx, me.laboratoryId, row.id))!);
+    return studyView(tx, (await findStudy(tx, me.laboratoryId, row.id))!, me);
   });
 }
 
@@ -71,7 +73,7 @@ export async function updateStudy(db: Database, me: SignedInUser, id: number, bo
         before: Object.fromEntries(moved.map((m) => [m.field, m.from])), after: { ...Object.fromEntries(moved.map((m) => [m.field, m.to])), afterData: rowsEntered },
       });
     }
-    return studyView(tx, updated);
+    return studyView(tx, updated, me);
   });
 }
 
@@ -89,7 +91,7 @@ const pick = (row: typeof studies.$inferSelect, fields: string[], settingKeys?: 
 });
 
 export async function getStudy(db: Database, me: SignedInUser, id: number): Promise<Study> {
-  return studyView(db, await findStudy(db, me.laboratoryId, id));
+  return studyView(db, await findStudy(db, me.laboratoryId, id), me);
 }
 
 const SORT = { title: studies.title, updatedAt: studies.updatedAt, state: studies.state, kind: studies.kind } as const;
@@ -100,8 +102,8 @@ export async function listStudies(db: Database, me: SignedInUser, q: StudyListQu
   if (q.state) where.push(eq(studies.state, q.state));
   if (q.analyteId) where.push(eq(studies.analyteId, q.analyteId));
   if (q.instrumentId) where.push(or(eq(studies.comparativeInstrumentId, q.instrumentId), eq(studies.candidateInstrumentId, q.instrumentId), eq(studies.instrumentId, q.instrumentId))!);
-  if (q.from) where.push(gte(studies.updatedAt, new Date(`${q.from}T00:00:00Z`)));
-  if (q.to) where.push(lte(studies.updatedAt, new Date(`${q.to}T23:59:59.999Z`)));
+  const days = await inLabDays(db, me.laboratoryId, studies.updatedAt, q);
+  if (days) where.push(days);
   if (q.q) where.push(or(ilike(studies.title, `%${escapeLike(q.q)}%`), ilike(studies.purpose, `%${escapeLike(q.q)}%`))!);
   const n = sql<number>`coalesce(${studies.includedCount}, (SELECT count(*) FROM ${specimens} s WHERE s.study_id = ${studies.id} AND NOT s.excluded))`;
   const sortColumn = q.sort === 'n' ? n : SORT[q.sort];
@@ -116,13 +118,13 @@ export async function listStudies(db: Database, me: SignedInUser, q: StudyListQu
 const escapeLike = (s: string) => s.replace(/[\\%_]/g, (c) => `\\${c}`);
 
 export async function worklist(db: Database, me: SignedInUser): Promise<Worklist> {
-  const isDirector = me.roles.includes('director');
   // The four lists' studies in one statement (each list newest first, with its own limit), then summarised
-  // in one pass; a study is in at most one list, told apart by its state, author and return.
+  // in one pass; a study is in at most one list, told apart by its state, author and return. "Awaiting my
+  // signature" holds only what this person may sign (the sign-off rule, `signableBy`).
   const ids = sql`
     SELECT id FROM (SELECT id FROM ${studies} WHERE laboratory_id = ${me.laboratoryId} AND created_by = ${me.id} AND state = 'draft' AND returned_at IS NULL ORDER BY updated_at DESC LIMIT 20) drafts
     UNION ALL SELECT id FROM (SELECT id FROM ${studies} WHERE laboratory_id = ${me.laboratoryId} AND created_by = ${me.id} AND state = 'draft' AND returned_at IS NOT NULL ORDER BY updated_at DESC LIMIT 20) returned
-    UNION ALL SELECT id FROM (SELECT id FROM ${studies} WHERE laboratory_id = ${me.laboratoryId} AND state = 'awaiting-signoff' AND ${isDirector ? sql`TRUE` : sql`FALSE`} ORDER BY updated_at DESC LIMIT 20) awaiting
+    UNION ALL SELECT id FROM (SELECT id FROM ${studies} WHERE laboratory_id = ${me.laboratoryId} AND ${signableBy(me)} ORDER BY updated_at DESC LIMIT 20) awaiting
     UNION ALL SELECT id FROM (SELECT id FROM ${studies} WHERE laboratory_id = ${me.laboratoryId} AND state = 'signed' ORDER BY updated_at DESC LIMIT 10) signed`;
   const rows = await db.select().from(studies).where(sql`${studies.id} IN (${ids})`).orderBy(desc(studies.updatedAt), desc(studies.id));
   const all = await summarise(db, rows);

@@ -2,6 +2,9 @@ import { sql } from 'drizzle-orm';
 import { StudySettings, type FindingsStatus, type Study, type StudyKind, type StudyState, type StudySummary } from '../../shared/schemas';
 import type { Executor } from '../db/client';
 import { analyses, analytes, instruments, users } from '../db/schema';
+import type { SignedInUser } from '../auth/session-user';
+import { mayISign } from '../signoff/who-may-sign';
+import { submissionNoteOf } from '../signoff/submission-note';
 import { knownInput } from '../specimens/input-hash';
 import type { StudyRow } from './studies.repository';
 
@@ -100,7 +103,9 @@ export async function summarise(db: Executor, rows: StudyRow[]): Promise<StudySu
   return (await summariseAll(db, rows)).summaries;
 }
 
-export async function studyView(db: Executor, row: StudyRow): Promise<Study> {
+/** One study as the API answers it, for the person who asked (`mayISign` is theirs). */
+export async function studyView(db: Executor, row: StudyRow, me: SignedInUser): Promise<Study> {
+  const { allowed, why } = await mayISign(db, me, row);
   const { summaries: [summary], findings, instruments: lab, analytes: named } = await summariseAll(db, [row]);
   const f = findings.get(row.id)!;
   const analyte = named.get(row.analyteId)!;
@@ -121,5 +126,7 @@ export async function studyView(db: Executor, row: StudyRow): Promise<Study> {
     currentAnalysisId: f.currentId,
     createdAt: row.createdAt.toISOString(),
     returnComment: row.returnComment,
+    submissionNote: await submissionNoteOf(db, row),
+    mayISign: { allowed, why },
   };
 }

@@ -36,8 +36,11 @@ export class UploadParser {
     });
   }
 
-  /** Reads one file in a worker; resolves with the table, or rejects with an AppError a user can act on. */
-  async parse(fileName: string, bytes: Buffer): Promise<ParsedUpload> {
+  /**
+   * Reads one file in a worker; resolves with the table, or rejects with an AppError a user can act on.
+   * @param studyLabels the study's labels now: the worker checks each column's labels against them (label-checks.ts)
+   */
+  async parse(fileName: string, bytes: Buffer, studyLabels: string[] = []): Promise<ParsedUpload> {
     const { port1, port2 } = new MessageChannel();
     const abort = new AbortController();
     let timer: NodeJS.Timeout | undefined;
@@ -45,7 +48,7 @@ export class UploadParser {
     const copy = new Uint8Array(bytes); // a copy of its own, so only the file (not a shared pool) is transferred
     let result: ParseResult;
     try {
-      result = await this.pool.run({ fileName, bytes: copy, port: port2 }, { transferList: [port2, copy.buffer], signal: abort.signal });
+      result = await this.pool.run({ fileName, bytes: copy, port: port2, studyLabels }, { transferList: [port2, copy.buffer], signal: abort.signal });
     } catch (err) {
       if (abort.signal.aborted) throw refused(MESSAGES.time(this.options.timeMs));
       if ((err as { code?: string }).code === 'ERR_WORKER_OUT_OF_MEMORY') throw refused(MESSAGES.memory(this.options.memoryMb));

@@ -92,6 +92,43 @@ describe('uploads', () => {
     expect((await tech.agent.get(`/api/v1/studies/${study.id}`)).body.version).toBe(1);
   });
 
+  it('warns when a file repeats the study\'s labels and, when it repeats most of them, suggests replacing the rows', async () => {
+    const { tech, study, upload } = await setup();
+    const csv = (pairs: { label: string; comparative: string; candidate: string }[]) =>
+      Buffer.from(['Individual,Current,New,Comment', ...pairs.map((p) => `${p.label},${p.comparative},${p.candidate},`)].join('\n'));
+    const pairs = inventedPairs(45);
+    const first = (await upload('run.csv', csv(pairs)).expect(201)).body;
+    expect(first).toMatchObject({ suggestedMapping: { label: 'Individual', comparative: 'Current', candidate: 'New', note: 'Comment' }, warnings: [], labelChecks: {}, suggestedMode: 'replace' });
+    const imported = await tech.agent.post(`/api/v1/studies/${study.id}/uploads/${first.uploadId}/import`).set('X-XSRF-TOKEN', tech.xsrf)
+      .send({ version: 1, mode: 'replace', mapping: first.suggestedMapping }).expect(200);
+    expect(imported.body.warnings).toEqual([]);
+
+    const again = (await upload('run.csv', csv(pairs)).expect(201)).body;
+    const repeats = '45 rows repeat labels already in the study (S001, S002, S003, S004, S005 and 40 more)';
+    expect(again.warnings).toEqual([repeats]);
+    expect(again.labelChecks.Individual).toEqual({ warnings: [repeats], repeatsMostOfStudy: true });
+    expect(again.suggestedMode).toBe('replace');
+
+    const few = (await upload('more.csv', csv([pairs[2], ...inventedPairs(6).map((p) => ({ ...p, label: `N${p.label}` })), { ...pairs[0], label: 'NS001' }])).expect(201)).body;
+    expect(few.warnings).toEqual(['1 row repeats a label already in the study (S003)', 'Label NS001 appears more than once in the file (2 rows)']);
+    expect(few.suggestedMode).toBe('append');
+
+    const doubled = await tech.agent.post(`/api/v1/studies/${study.id}/uploads/${again.uploadId}/import`).set('X-XSRF-TOKEN', tech.xsrf)
+      .send({ version: imported.body.version, mode: 'append', mapping: again.suggestedMapping }).expect(200);
+    expect(doubled.body.rows).toHaveLength(90);
+    expect(doubled.body.warnings).toEqual(['Labels S001, S002, S003, S004, S005 and 40 more appear more than once (90 rows); give each specimen its own label, or exclude the extra rows with a reason']);
+  });
+
+  it('says which fields the suggested mapping leaves unmapped', async () => {
+    const { upload } = await setup();
+    const preview = (await upload('pairs.csv', Buffer.from('Current,New\n5.1,5.2\n6.0,6.1\n')).expect(201)).body;
+    expect(preview.suggestedMapping).toEqual({ comparative: 'Current', candidate: 'New' });
+    expect(preview.warnings).toEqual([
+      'Not mapped: specimen label — no column of the file is chosen for it; the rows come in unlabelled',
+      'Not mapped: note — no column of the file is chosen for it; the rows come in without it',
+    ]);
+  });
+
   it('refuses an import whose rows are bad, naming the file row, and keeps the grid as it was', async () => {
     const { tech, study, upload } = await setup();
     const preview = (await upload('pairs.csv', Buffer.from('id,x,y\nB1,5.1,5.2\nB2,oops,5.0\n')).expect(201)).body;

@@ -4,25 +4,28 @@ import { recordAudit } from '../audit/audit';
 import { sha256Hex } from '../audit/canonical-json';
 import { actorOf, SignedInUser } from '../auth/session-user';
 import type { Database } from '../db/client';
-import { uploads } from '../db/schema';
+import { specimens, uploads } from '../db/schema';
 import { AppError, invalid, notFound } from '../http/app-error';
 import { loadRows } from '../specimens/input-hash';
 import { asClean, cleanRowsFor, writeRows } from '../specimens/specimens.service';
 import { findStudy } from '../studies/studies.repository';
 import { assertEditable } from '../studies/study-rules';
-import { suggestMapping } from './column-mapping';
+import { suggestMapping, unmappedNotes } from './column-mapping';
 import type { ParsedTable } from './parse-file';
 import { uploadParser } from './parse-pool';
 
 /**
- * Stores the original file with its SHA-256 and answers the preview; nothing touches the rows yet.
+ * Stores the original file with its SHA-256 and answers the preview; nothing touches the rows yet. The preview
+ * warns of labels the file repeats (the study's, or its own; label-checks.ts) and of fields left unmapped, and
+ * suggests replacing the rows rather than adding after them when the file repeats most of the study's labels.
  * The file is read in a worker before any transaction opens (reading may take seconds); the study
  * is checked before reading and again, under lock, in the transaction that stores the upload.
  */
 export async function receiveUpload(db: Database, me: SignedInUser, studyId: number, file: { originalname: string; mimetype: string; buffer: Buffer } | undefined): Promise<UploadPreview> {
   if (!file) throw invalid('file', 'Choose a file to upload (field "file")');
   assertEditable(await findStudy(db, me.laboratoryId, studyId));
-  const table = await uploadParser().parse(file.originalname, file.buffer);
+  const studyLabels = (await db.select({ label: specimens.label }).from(specimens).where(eq(specimens.studyId, studyId))).map((r) => r.label);
+  const table = await uploadParser().parse(file.originalname, file.buffer, studyLabels);
   const sha256 = sha256Hex(file.buffer);
   const json = Buffer.from(table.json.buffer, table.json.byteOffset, table.json.byteLength); // UTF-8, stored as it came from the worker
   return db.transaction(async (tx) => {
@@ -33,9 +36,12 @@ export async function receiveUpload(db: Database, me: SignedInUser, studyId: num
       sha256, bytes: file.buffer, parsed: sql`convert_from(${json}, 'UTF8')::jsonb`, uploadedBy: me.id,
     }).returning({ id: uploads.id });
     await recordAudit(tx, actorOf(me), { action: 'upload.received', entity: 'upload', entityId: row.id, studyId, after: { fileName: file.originalname, size: file.buffer.length, sha256, rows: table.rowCount } });
+    const suggestedMapping = suggestMapping(study.kind, table.columns, table.sample);
+    const labels = suggestedMapping.label ? table.labelChecks[suggestedMapping.label] : undefined;
     return {
       uploadId: row.id, fileName: file.originalname, sha256, columns: table.columns, preview: table.sample.slice(0, 10), rowCount: table.rowCount,
-      suggestedMapping: suggestMapping(study.kind, table.columns, table.sample),
+      suggestedMapping, warnings: [...(labels?.warnings ?? []), ...unmappedNotes(study.kind, suggestedMapping)], labelChecks: table.labelChecks,
+      suggestedMode: studyLabels.length > 0 && !labels?.repeatsMostOfStudy ? 'append' : 'replace',
     };
   });
 }

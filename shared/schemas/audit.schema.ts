@@ -1,7 +1,8 @@
 import * as z from 'zod';
+import { CalendarDay } from './common.schema';
 import { StudyKind, StudyState } from './study.schema';
 
-const day = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date like 2026-11-30');
+const day = CalendarDay;
 
 export const HistoryEvent = z.object({
   id: z.number(), at: z.string(), userId: z.number().nullable(), userName: z.string().nullable(), studyId: z.number().nullable(),

@@ -1,8 +1,15 @@
 import * as z from 'zod';
+import { isCalendarDay } from '../types/lab-time';
 
 /** A positive integer id in a route parameter such as /users/:id. */
 export const IdParams = z.object({ id: z.coerce.number().int().positive() });
 export type IdParams = z.infer<typeof IdParams>;
+
+/** A calendar day, yyyy-mm-dd, that exists (a date filter means the laboratory's day; see shared/types/lab-time). */
+export const CalendarDay = z
+  .string()
+  .regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date like 2026-11-30')
+  .refine((text) => !/^\d{4}-\d{2}-\d{2}$/.test(text) || isCalendarDay(text), 'There is no such day; use a date like 2026-11-30');
 
 export const Email = z.string().trim().toLowerCase().email('Enter a valid e-mail address').max(200);
 

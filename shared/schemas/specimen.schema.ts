@@ -49,11 +49,23 @@ export const SpecimenRow = z.object({
   uploadId: z.number().nullable(),
 });
 export type SpecimenRow = z.infer<typeof SpecimenRow>;
-export const SpecimenRows = z.object({ version: z.number(), rows: z.array(SpecimenRow) });
+/**
+ * The rows with their version. `warnings`: what the server sees wrong that does not stop saving, e.g. labels that
+ * two or more included rows carry ("Labels S01, S07 appear more than once (4 rows); …"); the server always sends it.
+ */
+export const SpecimenRows = z.object({ version: z.number(), rows: z.array(SpecimenRow), warnings: z.array(z.string()).optional() });
 export type SpecimenRows = z.infer<typeof SpecimenRows>;
 
 export const COMPARISON_FIELDS = ['label', 'comparative', 'candidate', 'excluded', 'exclusionReason', 'note'] as const;
 export const INTERVAL_FIELDS = ['label', 'value', 'sex', 'ageBand', 'excluded', 'exclusionReason', 'note'] as const;
+
+/**
+ * What importing one file column as the specimen label would repeat: rows repeating labels the study already has
+ * ("45 rows repeat labels already in the study (…)"), labels repeated within the file ("Labels B1, B2 appear more
+ * than once in the file (4 rows)"), and whether the file repeats more than half of the study's distinct labels.
+ */
+export const LabelCheck = z.object({ warnings: z.array(z.string()), repeatsMostOfStudy: z.boolean() });
+export type LabelCheck = z.infer<typeof LabelCheck>;
 
 export const UploadPreview = z.object({
   uploadId: z.number(),
@@ -63,6 +75,12 @@ export const UploadPreview = z.object({
   preview: z.array(z.array(z.string())),
   rowCount: z.number(),
   suggestedMapping: z.record(z.string(), z.string()),
+  /** The suggested mapping's warnings: repeated labels (labelChecks of its label column), then the fields left unmapped. */
+  warnings: z.array(z.string()),
+  /** Per column, what importing it as the specimen label would repeat; a column that repeats nothing is left out. */
+  labelChecks: z.record(z.string(), LabelCheck),
+  /** "append" when the study has rows, unless the suggested label column repeats most of them; then "replace". */
+  suggestedMode: z.enum(['replace', 'append']),
 });
 export type UploadPreview = z.infer<typeof UploadPreview>;
 

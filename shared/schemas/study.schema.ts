@@ -1,4 +1,5 @@
 import * as z from 'zod';
+import { CalendarDay } from './common.schema';
 import { DECIMAL_MARKS } from './result-text';
 
 export const STUDY_KINDS = ['method-comparison', 'interval-establish', 'interval-verify'] as const;
@@ -16,7 +17,7 @@ export type StudyState = z.infer<typeof StudyState>;
 export const STUDY_STATE_LABELS: Record<StudyState, string> = { draft: 'Draft', 'awaiting-signoff': 'Awaiting sign-off', signed: 'Signed' };
 
 const num = (what: string) => z.number({ error: `${what} must be a number` }).finite(`${what} must be a finite number`);
-const day = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date like 2026-11-30');
+const day = CalendarDay;
 
 /**
  * Every study setting, with its default. A study stores the whole object; which fields matter
@@ -121,6 +122,13 @@ export const StudySummary = z.object({
 });
 export type StudySummary = z.infer<typeof StudySummary>;
 
+/**
+ * Whether the signed-in person may sign this study now, and who may sign it and why, in words. Computed on the
+ * server (`server/signoff/who-may-sign.ts`); the client shows it and never re-derives the rule.
+ */
+export const MayISign = z.object({ allowed: z.boolean(), why: z.string() });
+export type MayISign = z.infer<typeof MayISign>;
+
 export const Study = StudySummary.extend({
   purpose: z.string(),
   analyteUnit: z.string(),
@@ -136,6 +144,10 @@ export const Study = StudySummary.extend({
   canBeNegative: z.boolean(),
   createdAt: z.string(),
   returnComment: z.string().nullable(),
+  /** The note the technologist sent with the submission now awaiting sign-off (or signed with it); null without one. */
+  submissionNote: z.object({ text: z.string(), by: Ref, at: z.string().nullable() }).nullable(),
+  /** For the person who asked. */
+  mayISign: MayISign,
 });
 export type Study = z.infer<typeof Study>;
 
@@ -170,6 +182,12 @@ export const SignBody = z.object({
   password: z.string().min(1, 'Enter your password to sign'),
 });
 export type SignBody = z.infer<typeof SignBody>;
+/** `POST /studies/:id/submit`: an optional note for the director, shown on the review page and in the e-mail. */
+export const SUBMISSION_NOTE_MAX = 1000;
+export const SubmitBody = z.object({
+  note: z.string().trim().max(SUBMISSION_NOTE_MAX, `Keep the note for the director to ${SUBMISSION_NOTE_MAX.toLocaleString('en-US')} characters or fewer`).default(''),
+});
+export type SubmitBody = z.infer<typeof SubmitBody>;
 export const ReturnBody = z.object({ comment: z.string().trim().min(1, 'Say why the study goes back').max(2000) });
 export type ReturnBody = z.infer<typeof ReturnBody>;
 export const AmendBody = z.object({ reason: z.string().trim().min(1, 'Say why the signed study is amended').max(2000) });

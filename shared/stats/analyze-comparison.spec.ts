@@ -27,7 +27,7 @@ describe('analyzeComparison', () => {
     expect(JSON.stringify(data)).toBe(copy);
     expect(JSON.parse(JSON.stringify(result))).toEqual(result);
     expect(result.caution).toBe(CAUTION);
-    expect(result.engine).toMatchObject({ version: 'parallax-stats 1.3.0 (xor128)', resamples: 1000 });
+    expect(result.engine).toMatchObject({ version: 'parallax-stats 1.3.1 (xor128)', resamples: 1000 });
   });
 
   it('leaves excluded rows out, counts them, and shows the estimates with them in sensitivity', () => {
@@ -46,6 +46,7 @@ describe('analyzeComparison', () => {
     expect(result.outlierIndexes).toEqual([17]);
     expect(result.outliers).toEqual([18]);
     expect(result.n).toBe(60);
+    expect(result.warnings).toContain('Generalized ESD flags 1 possible outlier in the differences (row 18); exclude only with a documented reason.');
   });
 
   it('judges decision levels against the allowable bias', () => {

@@ -16,6 +16,16 @@ import { median } from './quantile';
 import { narrowerThanStep, resolutionStep, type ComparisonResolution } from './resolution';
 
 /**
+ * The warning for flagged differences: "Generalized ESD flags 1 possible outlier in the differences (row 7); …".
+ * (shared/stats imports nothing from outside itself, so it words its one plural here instead of using shared/types/plural.)
+ */
+function outlierWarning(indexes: readonly number[]): string {
+  const one = indexes.length === 1;
+  const rows = indexes.map((i) => i + 1).join(', ');
+  return `Generalized ESD flags ${indexes.length} possible ${one ? 'outlier' : 'outliers'} in the differences (${one ? 'row' : 'rows'} ${rows}); exclude only with a documented reason.`;
+}
+
+/**
  * Method comparison of paired specimens (x = comparative, y = candidate): the whole analysis the server
  * runs in a worker and `npm run analyze -- comparison` prints. Excluded rows are left out of the main
  * run and counted; `sensitivity` repeats the main estimates with every row included.
@@ -37,7 +47,7 @@ export function analyzeComparison(rows: ComparisonRow[], options: ComparisonOpti
     n: d.length, x: split.x, means: main.paired.means, differences: d, differenceType: o.difference, r: main.core.regression.correlation,
   })];
   if (d.length < 4) warnings.push('The outlier test needs at least 4 pairs; no outliers are flagged.');
-  if (outlierIndexes.length > 0) warnings.push(`Generalized ESD flags ${outlierIndexes.length} possible outlier(s) in the differences (rows ${outlierIndexes.map((i) => i + 1).join(', ')}); exclude only with a documented reason.`);
+  if (outlierIndexes.length > 0) warnings.push(outlierWarning(outlierIndexes));
   const sensitivity = hasExcluded
     ? { ...comparisonCore(split.allX, split.allY, o, step.increment, progressSpan(onProgress, 0.8, 1)).core, includesExcluded: true as const, excludedCount: split.excluded.length }
     : null;

@@ -23,7 +23,7 @@ export interface WarningInputs {
 
 export function comparisonWarnings(w: WarningInputs): string[] {
   const out: string[] = [];
-  if (w.n < 40) out.push(`Only ${w.n} pairs: at least 40 across the measuring range are recommended (CLSI EP09 practice).`);
+  if (w.n < 40) out.push(`Only ${w.n} ${w.n === 1 ? 'pair' : 'pairs'}: at least 40 across the measuring range are recommended (CLSI EP09 practice).`);
   const rangeRatio = narrowRange(w.x);
   if (rangeRatio !== null) out.push(`Narrow measuring range: highest/lowest comparative value is ${rangeRatio.toFixed(2)} (below 2); slope and intercept are poorly determined.`);
   if (w.r !== null && w.r < 0.975) out.push(`Correlation r = ${w.r.toFixed(4)} is below 0.975: too low for ordinary least squares; use Deming or Passing–Bablok.`);

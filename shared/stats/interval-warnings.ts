@@ -9,7 +9,7 @@ import type { LimitResult } from './reference-interval';
 export function intervalWarnings(n: number, o: ResolvedIntervalOptions, lower: LimitResult | null, upper: LimitResult | null): string[] {
   const out: string[] = [];
   if (o.method === 'nonparametric' && n < 120) {
-    out.push(`Only ${n} values: the nonparametric method needs at least 120${n >= 20 ? '; consider the robust method for 20 to 119 values' : ''}.`);
+    out.push(`Only ${n} ${n === 1 ? 'value' : 'values'}: the nonparametric method needs at least 120${n >= 20 ? '; consider the robust method for 20 to 119 values' : ''}.`);
   }
   if (o.method === 'robust' && n >= 120) out.push('With 120 or more values the nonparametric method is preferred to the robust method.');
   const width = lower?.estimate != null && upper?.estimate != null ? upper.estimate - lower.estimate : null;

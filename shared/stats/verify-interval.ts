@@ -45,7 +45,7 @@ export function verifyInterval(values: ArrayLike<number>, stated: { lower: numbe
   const outside = below + above;
   const allowedOutside = Math.floor(0.1 * n + 1e-9);
   const accepted = n > 0 && outside <= allowedOutside;
-  const warnings = n < 20 ? [`Only ${n} values: verification needs at least 20 (CLSI EP28-A3c practice).`] : [];
+  const warnings = n < 20 ? [`Only ${n} ${n === 1 ? 'value' : 'values'}: verification needs at least 20 (CLSI EP28-A3c practice).`] : [];
   const advice = accepted
     ? 'Accepted: the stated interval may be transferred.'
     : 'Not accepted: test 20 more reference individuals; if that also fails, re-examine the population and methods or establish the interval locally.';

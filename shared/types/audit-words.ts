@@ -1,3 +1,5 @@
+import { plural } from './plural';
+
 /**
  * An audit event in words, for the History tab, the laboratory history page and the exports:
  * "row 14: candidate result 5.2 → 5.4", never raw JSON. Shared by client and server.
@@ -19,6 +21,8 @@ const FIELD: Record<string, string> = {
 /** A field's name in words: allowableBiasSource → "source of the allowable bias". */
 export const fieldWords = (f: string): string => FIELD[f] ?? f.replace(/([A-Z])/g, ' $1').toLowerCase();
 const name = fieldWords;
+/** A row count in words; an event written before the count was recorded says "0 rows". */
+const rows = (n: unknown): string => plural(Number(n ?? 0), 'row');
 
 export function show(v: unknown): string {
   if (v === null || v === undefined || v === '') return '(empty)';
@@ -50,7 +54,7 @@ function rowLines(after: Obj): string[] {
   return lines.length ? lines : ['no cell changed'];
 }
 
-const HEADLINES: Record<string, (a: Obj, b: Obj) => string> = {
+const HEADLINES: Record<string, (a: Obj, b: Obj, e: AuditEventLike) => string> = {
   'study.created': (a) => `Study created: "${a.title ?? ''}"`,
   'study.updated': () => 'Setup changed',
   'study.plan-amended': (a) => `Plan changed after approval${a.afterData ? ', after data were entered' : ''}`,
@@ -60,18 +64,26 @@ const HEADLINES: Record<string, (a: Obj, b: Obj) => string> = {
   'study.amended': (a) => `Amendment started; it supersedes study ${a.supersedes} once signed`,
   'study.amendment-started': (a) => `An amendment was started as study ${a.amendment}`,
   'plan.approved': () => 'Plan approved by the director',
-  'specimens.saved': (a, b) => `Specimen rows saved (${b.rowCount ?? 0} → ${a.rowCount ?? 0} rows)`,
-  'specimens.imported.replaced': (a) => `Rows replaced from an uploaded file (${a.rowCount} rows)`,
-  'specimens.imported.appended': (a) => `Rows appended from an uploaded file (now ${a.rowCount} rows)`,
-  'upload.received': (a) => `File "${a.fileName}" uploaded (${a.rows} rows, SHA-256 ${String(a.sha256 ?? '').slice(0, 12)}…)`,
+  'specimens.saved': (a, b) => `Specimen rows saved (${b.rowCount ?? 0} → ${rows(a.rowCount)})`,
+  'specimens.imported.replaced': (a) => `Rows replaced from an uploaded file (${rows(a.rowCount)})`,
+  'specimens.imported.appended': (a) => `Rows appended from an uploaded file (now ${rows(a.rowCount)})`,
+  'upload.received': (a) => `File "${a.fileName}" uploaded (${rows(a.rows)}, SHA-256 ${String(a.sha256 ?? '').slice(0, 12)}…)`,
   'analysis.queued': (a) => `Analysis queued (seed ${a.seed}, ${show(a.resamples)} resamples, ${a.engineVersion})`,
   'analysis.done': (a) => `Analysis finished in ${show(a.durationMs)} ms`,
   'analysis.failed': (a) => `Analysis failed: ${a.error ?? 'unknown error'}`,
   'analysis.requeued': (a) => `Analysis queued again (attempt ${a.attempt}): ${a.reason}`,
   'signature.self-sign-allowed': () => 'The director signed rows they entered, as the laboratory setting allows',
+  'signature.refused': (a, _b, e) => `${a.meaning === 'plan-approved' ? 'Plan approval' : e.entity === 'study' ? 'Signature' : `Signature of ${e.entity} ${e.entityId ?? ''}`.trim()} refused: ${a.why ?? 'wrong password'}`,
+  // Wrong passwords as recorded on the user, with no study (signatures before they were recorded on the study, sign-ins, password changes).
+  'signature.wrong-password': () => 'Signature refused: wrong password',
+  'plan-approval.wrong-password': () => 'Plan approval refused: wrong password',
+  'sign-in.wrong-password': () => 'Sign-in refused: wrong password',
+  'sign-in.failed': (a) => `Sign-in refused: ${a.why ?? 'unknown e-mail'}`,
+  'sign-in.refused': (a) => `Sign-in refused: account ${a.why ?? 'locked'}`,
+  'password-change.wrong-password': () => 'Password change refused: wrong current password',
   'integrity.checked': (a) => `Integrity re-checked: ${a.passed ? 'every check passed' : `failed (${show(a.failed)})`}`,
   'history.checked': (a) => `History chains re-checked: ${a.passed ? 'intact' : `failed (${show(a.failed)})`}`,
-  'reproduce.checked': (a) => `Results re-run: ${a.identical ? 'identical' : `${a.differences} fields differ`} (engine ${a.engine})`,
+  'reproduce.checked': (a) => `Results re-run: ${a.identical ? 'identical' : `${plural(Number(a.differences ?? 0), 'field')} ${Number(a.differences) === 1 ? 'differs' : 'differ'}`} (engine ${a.engine})`,
   'laboratory.updated': () => 'Laboratory settings changed',
   'sign-in': () => 'Signed in',
   'sign-out': () => 'Signed out',
@@ -79,17 +91,35 @@ const HEADLINES: Record<string, (a: Obj, b: Obj) => string> = {
   'user.unlocked': () => 'Account unlocked',
   'user.invited': (a) => `User invited: ${a.name} <${a.email}>`,
   'password.changed': () => 'Password changed',
+  'password.set-by-link': () => 'Password chosen with the invitation link',
+  'password.reset': () => 'New password chosen with a one-time link; other sessions ended',
+  'password-reset.requested': (a) => `Password link asked for with “Forgot your password?” for ${a.email} (${a.outcome})`,
+  'password-reset.sent': (a) => `Password link sent by an administrator to ${a.email}`,
+  'password-reset.rate-limited': (a) => `Password link refused for ${a.email}: too many requests ${a.which}`,
+  'user.link-sent': () => 'Invitation sent again',
 };
+
+const MEANING_CHOSEN: Record<string, string> = { accepted: 'accepted for patient testing', 'not-accepted': 'not accepted for patient testing' };
+
+/** A refused signature: the meaning that was chosen, and how many wrong passwords in a row (the fifth locks the account). */
+function refusalLines(a: Obj): string[] {
+  const lines: string[] = [];
+  if (typeof a.meaning === 'string' && MEANING_CHOSEN[a.meaning]) lines.push(`meaning chosen: ${MEANING_CHOSEN[a.meaning]}`);
+  if (a.failures !== undefined) lines.push(`wrong passwords in a row: ${show(a.failures)}`);
+  return lines;
+}
 
 /** A headline and detail lines for one event. */
 export function describeEvent(e: AuditEventLike): { headline: string; details: string[] } {
   const a = isObj(e.after) ? e.after : {};
   const b = isObj(e.before) ? e.before : {};
-  const headline = HEADLINES[e.action]?.(a, b) ?? `${e.entity} ${e.action.split('.').slice(1).join(' ') || e.action}`;
+  const headline = HEADLINES[e.action]?.(a, b, e) ?? `${e.entity} ${e.action.split('.').slice(1).join(' ') || e.action}`;
   let details: string[];
   if (e.action.startsWith('specimens.')) details = rowLines(a);
   else if (['study.updated', 'study.plan-amended', 'user.updated', 'analyte.updated', 'instrument.updated', 'laboratory.updated'].includes(e.action)) details = changesOf(b, a).filter((l) => !l.startsWith('after data'));
+  else if (e.action === 'study.submitted' && typeof a.note === 'string') details = [`note for the director: ${a.note}`];
   else if (['study.signed', 'study.submitted', 'study.returned'].includes(e.action)) details = a.contentHash ? [`content hash ${a.contentHash}`, ...(a.comment ? [`comment: ${a.comment}`] : [])] : [];
+  else if (e.action === 'signature.refused') details = refusalLines(a);
   else details = [];
   if (e.reason) details.push(`reason: ${e.reason}`);
   return { headline, details };

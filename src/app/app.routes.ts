@@ -12,6 +12,11 @@ export const routes: Routes = [
     loadComponent: () => import('./core/auth/sign-in-page/sign-in-page').then((m) => m.SignInPage),
   },
   {
+    path: 'forgot-password',
+    title: 'Forgot your password? · Parallax',
+    loadComponent: () => import('./core/auth/forgot-password-page/forgot-password-page').then((m) => m.ForgotPasswordPage),
+  },
+  {
     path: 'set-password/:token',
     title: 'Choose a password · Parallax',
     loadComponent: () => import('./core/auth/set-password-page/set-password-page').then((m) => m.SetPasswordPage),

@@ -4,6 +4,7 @@ import type { Layout } from '../layout';
 import type { ComparisonFindings, StudyReport } from '../report-model';
 import { drawTable } from '../table';
 import { NARROW_CI_SHORT } from '../../../shared/types/resolution-words';
+import { nounFor } from '../../../shared/types/plural';
 import { VERDICT_WORDS } from '../words';
 import { decimalsOf, stepWords } from './comparison-data';
 
@@ -42,6 +43,6 @@ export function comparisonSensitivity(layout: Layout, report: StudyReport, resul
   drawTable(layout, [
     { header: 'Statistic', weight: 1.6 },
     { header: `Excluded rows left out (as analysed)`, weight: 2 },
-    { header: `All rows, ${other.excludedCount} excluded row(s) included`, weight: 2 },
+    { header: `All rows, ${integer(other.excludedCount)} ${nounFor(other.excludedCount ?? 0, 'excluded row')} included`, weight: 2 },
   ], lines.map(([label, path, f]) => [label, notes[path] ? `${f(results)}; ${NARROW_CI_SHORT}` : f(results), f(other)]));
 }

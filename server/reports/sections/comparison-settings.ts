@@ -3,11 +3,15 @@ import { integer, num, orDash, percent } from '../format';
 import type { Layout } from '../layout';
 import type { ComparisonFindings, StudyReport } from '../report-model';
 import { CI_WORDS, DIFFERENCE_WORDS, REGRESSION_WORDS } from '../words';
+import { plural } from '../../../shared/types/plural';
 
 /**
  * How the numbers were made. The engine's resolved settings are printed when there are results (they
  * are what the numbers mean); the study's settings otherwise.
  */
+/** "at most 1 outlier", "at most 3 outliers", or the engine's default when none is set. */
+const maxOutliersWords = (max: number | null | undefined): string => (typeof max === 'number' ? plural(max, 'outlier') : 'the default number of outliers');
+
 export function comparisonSettings(layout: Layout, report: StudyReport, results: ComparisonFindings | null): void {
   const s = report.settings;
   const r = results?.settings;
@@ -26,7 +30,7 @@ export function comparisonSettings(layout: Layout, report: StudyReport, results:
     ['Regression', `${REGRESSION_WORDS[regression] ?? regression}; CIs of slope and intercept: ${CI_WORDS[regressionCi] ?? regressionCi}`],
     ...(isDeming ? [['Deming error ratio', `λ = ${num(ratio, 3)}, where ${results?.settings?.demingRatioConvention ?? DEMING_RATIO_CONVENTION}`] as [string, string]] : []),
     ['Limits of agreement', `mean difference ± ${num(r?.loaMultiplier ?? s.loaMultiplier, 2)} SD of the differences`],
-    ['Outlier test', `Generalized ESD (Rosner 1983) on the differences, α = ${num(r?.esdAlpha ?? s.esdAlpha, 3)}, at most ${results?.outlierTest?.maxOutliers ?? s.esdMax ?? 'the default number of'} outliers; flags only`],
+    ['Outlier test', `Generalized ESD (Rosner 1983) on the differences, α = ${num(r?.esdAlpha ?? s.esdAlpha, 3)}, at most ${maxOutliersWords(results?.outlierTest?.maxOutliers ?? s.esdMax)}; flags only`],
     ['Engine', engine ? `${engine.version}; generator ${engine.generator}` : orDash(report.engineVersion)],
   ]);
 }

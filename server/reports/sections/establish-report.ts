@@ -8,6 +8,7 @@ import { COLOR } from '../theme';
 import { amendments } from './amendments';
 import { isNumber } from './comparison-data';
 import { establishFindings } from './establish-findings';
+import { plural } from '../../../shared/types/plural';
 import { establishScreening } from './establish-screening';
 import { intervalPlan } from './interval-plan';
 import { intervalRows, exclusions } from './specimen-rows';
@@ -41,7 +42,7 @@ function valuesHistogram(layout: Layout, report: StudyReport, results: Establish
   const [box] = plotRow(layout, 1, 200);
   const unit = report.analyte.unit;
   histogramPlot(layout.doc, box, {
-    title: `Histogram of ${values.length} values`, xLabel: unit ? `${report.analyte.name} (${unit})` : report.analyte.name,
+    title: `Histogram of ${plural(values.length, 'value')}`, xLabel: unit ? `${report.analyte.name} (${unit})` : report.analyte.name,
     bins: valueBins(values),
     markers: limits.map((l) => ({ value: l.estimate, color: COLOR.warm })),
     bands: limits.flatMap((l) => (l.ci ? [{ span: l.ci, color: COLOR.warm }] : [])),

@@ -1,7 +1,7 @@
 import { num, orDash, withUnit } from '../format';
 import type { Layout } from '../layout';
 import type { StudyReport } from '../report-model';
-import { laboratoryTime } from '../time-zone';
+import { laboratoryTime } from '../../../shared/types/lab-time';
 import { decimalsOf } from './comparison-data';
 
 /** "0.3 mmol/L or 5% of the level, whichever is greater", as the engine applies it. */

@@ -2,7 +2,7 @@ import type { Layout } from '../layout';
 import type { StudyReport } from '../report-model';
 import { drawText, measure } from '../text';
 import { COLOR, SIZE } from '../theme';
-import { laboratoryTime } from '../time-zone';
+import { laboratoryTime } from '../../../shared/types/lab-time';
 import { MEANING_WORDS } from '../words';
 import { planApprovalWords } from './plan';
 

@@ -1,10 +1,11 @@
 import { integer, orDash } from '../format';
+import { plural } from '../../../shared/types/plural';
 import type { Layout } from '../layout';
 import type { InstrumentInfo, StudyReport } from '../report-model';
 import { drawTable } from '../table';
 import { drawText } from '../text';
 import { COLOR, SIZE } from '../theme';
-import { laboratoryTime } from '../time-zone';
+import { laboratoryTime } from '../../../shared/types/lab-time';
 import { KIND_TITLES, REPORT_TITLES, STATE_WORDS } from '../words';
 
 /** The first lines: laboratory, kind of study, title, identity and state. */
@@ -36,7 +37,7 @@ export function studyBlock(layout: Layout, report: StudyReport): void {
     ['Analyte', report.analyte.unit ? `${report.analyte.name} (${report.analyte.unit})` : report.analyte.name],
     ['Kind of study', KIND_TITLES[report.study.kind]],
     ['Runs', runs],
-    ['Specimens', `${integer(report.rows.length)} rows entered${s.plannedSpecimens ? `; ${integer(s.plannedSpecimens)} planned` : ''}`],
+    ['Specimens', `${plural(report.rows.length, 'row')} entered${s.plannedSpecimens ? `; ${integer(s.plannedSpecimens)} planned` : ''}`],
     ['Purpose', orDash(report.study.purpose)],
     ['Statistics engine', orDash(report.engineVersion)],
   ]);

@@ -1,4 +1,4 @@
-import { integer, num, withUnit } from '../format';
+import { integer, num, orDash, withUnit } from '../format';
 import type { Layout } from '../layout';
 import { plotRow } from '../plots/plot-box';
 import { stripPlot } from '../plots/strip-plot';
@@ -8,6 +8,7 @@ import { amendments } from './amendments';
 import { cautionCallout } from './caution';
 import { decimalsOf, isNumber } from './comparison-data';
 import { intervalPlan } from './interval-plan';
+import { nounFor, plural } from '../../../shared/types/plural';
 import { exclusions, intervalRows } from './specimen-rows';
 import { warningsList } from './warnings';
 
@@ -31,10 +32,11 @@ export function verifyReport(layout: Layout, report: StudyReport, results: Verif
   layout.heading('Verification of the stated interval', 230);
   layout.callout(results.advice ?? '', {
     fill: results.accepted ? '#e3efe5' : '#f6e0e0', edge: results.accepted ? COLOR.good : COLOR.bad,
-    title: `${results.accepted ? 'Accepted' : 'Not accepted'}: ${integer(results.outside)} of ${integer(results.n)} values outside the stated interval (at most ${integer(results.allowedOutside)} allowed)`,
+    title: `${results.accepted ? 'Accepted' : 'Not accepted'}: ${integer(results.outside)} of ${integer(results.n)} ${nounFor(results.n ?? 0, 'value')} outside the stated interval (at most ${integer(results.allowedOutside)} allowed)`,
   });
   layout.keyValues([
     ['Stated interval', withUnit(`${num(lower, d)} to ${num(upper, d)}`, unit)],
+    ['Source of the stated interval', orDash(results.stated?.source || report.settings.statedSource)],
     ['Values tested (n)', `${integer(results.n)}${results.excludedCount ? `; ${integer(results.excludedCount)} excluded` : ''}`],
     ['Outside the interval', `${integer(results.outside)} (${integer(results.below)} below, ${integer(results.above)} above); at most ${integer(results.allowedOutside)} allowed`],
     ['Binomial probability', `P = ${num(results.probability, 3)} of ${integer(results.outside)} or more outside if the stated interval fits this population (95% coverage)`],
@@ -45,7 +47,7 @@ export function verifyReport(layout: Layout, report: StudyReport, results: Verif
   if (values.length) {
     layout.heading('Values against the stated interval', 150);
     const [box] = plotRow(layout, 1, 140);
-    stripPlot(layout.doc, box, { title: `${values.length} local values`, xLabel: unit ? `${report.analyte.name} (${unit})` : report.analyte.name, values, lower, upper });
+    stripPlot(layout.doc, box, { title: plural(values.length, 'local value'), xLabel: unit ? `${report.analyte.name} (${unit})` : report.analyte.name, values, lower, upper });
   }
   warningsList(layout, results.warnings);
   exclusions(layout, report);

@@ -26,6 +26,9 @@ import { MatIconModule } from '@angular/material/icon';
       color: var(--mat-sys-on-error-container);
       font: var(--mat-sys-body-medium);
     }
+    .banner mat-icon {
+      flex: none;
+    }
     .banner.info {
       background: var(--mat-sys-secondary-container);
       color: var(--mat-sys-on-secondary-container);

@@ -13,6 +13,7 @@ export function fieldError(errors: ValidationErrors | null | undefined, label = 
   if (errors['min']) return `Use ${errors['min'].min} or more.`;
   if (errors['max']) return `Use ${errors['max'].max} or less.`;
   if (errors['mismatch']) return 'The two passwords are not the same.';
+  if (errors['matDatepickerParse']) return 'Write a day as yyyy-mm-dd, such as 2026-11-30.';
   return `${label} is not valid.`;
 }
 

@@ -4,6 +4,7 @@ import { Observable } from 'rxjs';
 import type {
   ChangePasswordBody,
   PasswordLinkInfo,
+  PasswordResetAnswer,
   SessionUser,
   SignInBody,
 } from '../../../../shared/schemas';
@@ -27,6 +28,11 @@ export class AuthApi {
 
   changePassword(body: ChangePasswordBody): Observable<void> {
     return this.http.put<void>('/api/v1/session/password', body);
+  }
+
+  /** "Forgot your password?": the answer is the same whether or not the e-mail has an account. */
+  requestPasswordReset(email: string): Observable<PasswordResetAnswer> {
+    return this.http.post<PasswordResetAnswer>('/api/v1/password-resets', { email });
   }
 
   passwordLink(token: string): Observable<PasswordLinkInfo> {

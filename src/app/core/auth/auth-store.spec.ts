@@ -3,6 +3,7 @@ import { firstValueFrom } from 'rxjs';
 import { apiError, httpController, provideTestHttp } from '../../../testing/http';
 import { sessionUser } from '../../../testing/session-users';
 import { ApiError } from '../http/api-error';
+import { Notices } from '../notify/notices';
 import { AuthStore } from './auth-store';
 
 describe('AuthStore', () => {
@@ -43,6 +44,25 @@ describe('AuthStore', () => {
     await result;
     expect(store.hasAnyRole(['director'])).toBe(true);
     expect(store.hasAnyRole(['admin', 'quality'])).toBe(false);
+  });
+
+  it('drops a notice left from the last session when the next person signs in', async () => {
+    const notices = TestBed.inject(Notices);
+    notices.post('You are signed out.');
+    const result = firstValueFrom(store.signIn({ email: 'ada@valeharbor.example', password: 'secret' }));
+    httpController().expectOne('/api/v1/session').flush(sessionUser(['technologist']));
+    await result;
+    expect(notices.message()).toBeNull();
+    expect(notices.take()).toBeNull();
+  });
+
+  it('keeps a waiting notice when sign-in is refused (the sign-in page still shows it)', async () => {
+    const notices = TestBed.inject(Notices);
+    notices.post('You are signed out.');
+    const result = firstValueFrom(store.signIn({ email: 'ada@valeharbor.example', password: 'wrong' }));
+    httpController().expectOne('/api/v1/session').flush(apiError('E-mail or password is wrong'), { status: 401, statusText: 'Unauthorized' });
+    await expect(result).rejects.toBeInstanceOf(ApiError);
+    expect(notices.message()).toBe('You are signed out.');
   });
 
   it('passes on the server’s words when sign-in is refused, and stays signed out', async () => {

@@ -1,6 +1,7 @@
 import { Injectable, computed, inject, signal } from '@angular/core';
 import { Observable, catchError, firstValueFrom, map, of, tap } from 'rxjs';
 import type { Role, SessionUser, SignInBody } from '../../../../shared/schemas';
+import { Notices } from '../notify/notices';
 import { AuthApi } from './auth-api';
 
 interface AuthState {
@@ -13,6 +14,7 @@ interface AuthState {
 @Injectable({ providedIn: 'root' })
 export class AuthStore {
   private readonly api = inject(AuthApi);
+  private readonly notices = inject(Notices);
   private readonly state = signal<AuthState>({ user: null, checked: false });
 
   readonly user = computed(() => this.state().user);
@@ -33,8 +35,14 @@ export class AuthStore {
     return firstValueFrom(probe);
   }
 
+  /** Signs in; a notice still waiting from before ("You are signed out.") is dropped, not shown to the new session. */
   signIn(body: SignInBody): Observable<SessionUser> {
-    return this.api.signIn(body).pipe(tap((user) => this.state.set({ user, checked: true })));
+    return this.api.signIn(body).pipe(
+      tap((user) => {
+        this.notices.clear();
+        this.state.set({ user, checked: true });
+      }),
+    );
   }
 
   signOut(): Observable<void> {

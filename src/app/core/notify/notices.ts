@@ -13,6 +13,11 @@ export class Notices {
     this.current.set(text);
   }
 
+  /** Drops a waiting message unread: at sign-in, so one person's notice never greets the next. */
+  clear(): void {
+    this.current.set(null);
+  }
+
   /** Returns the waiting message, if any, and removes it. */
   take(): string | null {
     const text = this.current();

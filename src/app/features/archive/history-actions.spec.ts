@@ -6,6 +6,9 @@ describe('actionIcon', () => {
     expect(actionIcon('study.created')).toBe('description');
     expect(actionIcon('sign-in.failed')).toBe('login');
     expect(actionIcon('signature.self-sign-allowed')).toBe('person_pin');
+    expect(actionIcon('signature.refused')).toBe('gpp_bad');
+    expect(actionIcon('password-reset.requested')).toBe('lock_reset');
+    expect(actionIcon('password.reset')).toBe('key');
   });
 
   it('gives a plain dot to an action it does not know', () => {

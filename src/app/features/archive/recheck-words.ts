@@ -1,4 +1,5 @@
 import type { ChainCheckReport, IntegrityReport, ReproduceReport } from '../../../../shared/schemas';
+import { plural } from '../../../../shared/types/plural';
 
 /** One line a re-check result opens with: an icon and words that say passed or failed on their own. */
 export interface Outcome {
@@ -14,7 +15,7 @@ const outcome = (passed: boolean, headline: string): Outcome => ({
 
 export function integrityOutcome(report: IntegrityReport): Outcome {
   const failed = report.checks.filter((c) => !c.passed).length;
-  const of = `${report.checks.length} check${report.checks.length === 1 ? '' : 's'}`;
+  const of = plural(report.checks.length, 'check');
   return report.passed && failed === 0
     ? outcome(true, `All ${of} passed: nothing changed since signing.`)
     : outcome(false, `${failed || 'Some'} of ${of} failed: the stored record no longer matches what was signed.`);
@@ -29,7 +30,7 @@ export function chainOutcome(report: ChainCheckReport): Outcome {
 }
 
 export function reproduceOutcome(report: ReproduceReport): Outcome {
-  const fields = `${report.fieldsCompared.toLocaleString('en-US')} result field${report.fieldsCompared === 1 ? '' : 's'}`;
+  const fields = plural(report.fieldsCompared, 'result field');
   return report.identical
     ? outcome(true, `Re-running the analysis gave identical results in all ${fields}.`)
     : outcome(false, `Re-running the analysis gave different values in ${report.differences.length.toLocaleString('en-US')} of ${fields}.`);

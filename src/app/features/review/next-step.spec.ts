@@ -51,6 +51,16 @@ describe('nextStep', () => {
     }
   });
 
+  it("tells a director who may not sign why, in the server's words, and still opens the review", () => {
+    const why = 'You entered rows of this study; this laboratory requires another director to sign it (segregation of duties).';
+    const own: StepStudy = { ...draft, state: 'awaiting-signoff', mayISign: { allowed: false, why } };
+    const step = nextStep(own, ['technologist', 'director'], false);
+    expect(step.note).toBe(`${why} Read the findings on the review page; you may return the study.`);
+    expect(step.actions.map((a) => a.id)).toEqual(['open-review']);
+    const theirs: StepStudy = { ...own, mayISign: { allowed: true, why: 'You may sign it.' } };
+    expect(nextStep(theirs, ['director'], false).note).toBe('Read the findings on the review page, then return the study or sign it.');
+  });
+
   it('lets editors amend a signed study, but not quality, and nobody a superseded one', () => {
     const signed: StepStudy = { ...draft, state: 'signed' };
     expect(ids(signed, ['technologist'])).toEqual(['amend']);

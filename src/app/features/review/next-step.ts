@@ -30,7 +30,7 @@ export interface NextStep {
   actions: StepAction[];
 }
 
-export type StepStudy = Pick<Study, 'state' | 'findings' | 'supersededById' | 'returnComment'>;
+export type StepStudy = Pick<Study, 'state' | 'findings' | 'supersededById' | 'returnComment'> & Partial<Pick<Study, 'mayISign'>>;
 
 /** Why a draft cannot be submitted yet because of its findings; null when they are current. */
 export function submitBlock(findings: FindingsStatus): string | null {
@@ -57,9 +57,13 @@ function draftStep(study: StepStudy, roles: readonly Role[], planApproved: boole
   return { state: returned ? 'Draft, returned by the director' : 'Draft', icon: returned ? 'undo' : 'edit_note', note, actions };
 }
 
-function awaitingStep(roles: readonly Role[]): NextStep {
+function awaitingStep(study: StepStudy, roles: readonly Role[]): NextStep {
   if (isDecider(roles)) {
-    return { state: 'Awaiting sign-off', icon: 'hourglass_top', note: 'Read the findings on the review page, then return the study or sign it.', actions: [action('open-review', 'Open review', 'rate_review')] };
+    // Whether this director may sign is the server's answer (study.mayISign), said in its words.
+    const note = study.mayISign?.allowed === false
+      ? `${study.mayISign.why} Read the findings on the review page; you may return the study.`
+      : 'Read the findings on the review page, then return the study or sign it.';
+    return { state: 'Awaiting sign-off', icon: 'hourglass_top', note, actions: [action('open-review', 'Open review', 'rate_review')] };
   }
   return { state: 'Awaiting the director’s signature', icon: 'hourglass_top', note: 'Its rows and settings do not change unless the director returns it.', actions: [] };
 }
@@ -76,7 +80,7 @@ function signedStep(study: StepStudy, roles: readonly Role[]): NextStep {
 /** The sign-off bar's state in words and the next step this user may take. */
 export function nextStep(study: StepStudy, roles: readonly Role[], planApproved: boolean): NextStep {
   if (study.state === 'draft') return draftStep(study, roles, planApproved);
-  if (study.state === 'awaiting-signoff') return awaitingStep(roles);
+  if (study.state === 'awaiting-signoff') return awaitingStep(study, roles);
   return signedStep(study, roles);
 }
 

@@ -1,7 +1,7 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable } from 'rxjs';
-import type { AmendBody, PlanApprovalBody, ReturnBody, SignBody, Signature, Study } from '../../../../shared/schemas';
+import type { AmendBody, PlanApprovalBody, ReturnBody, SignBody, Signature, Study, SubmitBody } from '../../../../shared/schemas';
 
 /** Where a study's PDF is: the signed one's exact bytes, or a fresh preview marked DRAFT. */
 export const reportUrl = (studyId: number): string => `/api/v1/studies/${studyId}/report.pdf`;
@@ -15,8 +15,9 @@ export class SignoffApi {
     return this.http.get<Signature[]>(`/api/v1/studies/${studyId}/signatures`);
   }
 
-  submit(studyId: number): Observable<Study> {
-    return this.http.post<Study>(`/api/v1/studies/${studyId}/submit`, {});
+  /** Submits a draft for sign-off, with the technologist's note for the director (empty for none). */
+  submit(studyId: number, body: SubmitBody): Observable<Study> {
+    return this.http.post<Study>(`/api/v1/studies/${studyId}/submit`, body);
   }
 
   returnToDraft(studyId: number, body: ReturnBody): Observable<Study> {

@@ -36,11 +36,3 @@ export function usesDemingRatio(regression: StudySettings['regression']): boolea
 export const kindLabel = (s: Pick<StudySummary, 'kind'>): string => STUDY_KIND_LABELS[s.kind];
 export const stateLabel = (s: Pick<StudySummary, 'state'>): string => STUDY_STATE_LABELS[s.state];
 
-/** A time as the laboratory reads it: "3 Dec 2026, 14:05" in its time zone. */
-export function formatWhen(iso: string, timeZone: string): string {
-  const date = new Date(iso);
-  if (Number.isNaN(date.getTime())) return '';
-  return new Intl.DateTimeFormat('en-GB', {
-    day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit', hourCycle: 'h23', timeZone,
-  }).format(date);
-}

@@ -29,8 +29,17 @@ describe('SetPasswordPage', () => {
     const { fixture, el } = await setUp();
     httpController().expectOne(LINK_URL).flush(apiError('Not found'), { status: 404, statusText: 'Not Found' });
     await fixture.whenStable();
-    expect(el.textContent).toContain('This link is not valid or has expired; ask your administrator for a new invitation.');
+    expect(el.textContent).toContain('This link is not valid or has expired; ask for a new one with “Forgot your password?” on the sign-in page, or ask your administrator.');
     expect(el.querySelector('form')).toBeNull();
+  });
+
+  it("tells the link's expiry in the zone of the laboratory the link belongs to, zone named", async () => {
+    const { fixture, el } = await setUp();
+    httpController().expectOne(LINK_URL).flush({
+      email: 'new@valeharbor.example', name: 'Nia New', expiresAt: '2026-07-13T10:00:00Z', purpose: 'invitation', timeZone: 'America/Halifax',
+    });
+    await fixture.whenStable();
+    expect(el.textContent).toContain('This link works once, until 2026-07-13 07:00 America/Halifax (UTC−03:00).');
   });
 
   it('sets the password once and sends the user to sign in with their e-mail filled in', async () => {
@@ -46,6 +55,16 @@ describe('SetPasswordPage', () => {
     req.flush(null, { status: 204, statusText: 'No Content' });
     expect(navigate).toHaveBeenCalledWith(['/sign-in'], { queryParams: { email: 'new@valeharbor.example' } });
     expect(TestBed.inject(Notices).message()).toContain('Your password is set.');
+  });
+
+  it('asks for a new password when the link is a reset link', async () => {
+    const { fixture, el } = await setUp();
+    httpController().expectOne(LINK_URL).flush({
+      email: 'tech@valeharbor.example', name: 'Tomas Reyes', expiresAt: '2026-07-13T10:00:00Z', purpose: 'reset', timeZone: 'UTC',
+    });
+    await fixture.whenStable();
+    expect(el.querySelector('h1')?.textContent).toBe('Choose a new password');
+    expect(el.querySelector('form')).not.toBeNull();
   });
 
   it('applies the server’s password rules before sending, and checks the repetition', async () => {

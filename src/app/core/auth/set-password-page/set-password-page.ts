@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, OnInit, inject, input, signal } from '@angular/core';
 import { ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -7,6 +6,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { Router, RouterLink } from '@angular/router';
 import type { PasswordLinkInfo } from '../../../../../shared/schemas';
 import { ErrorBanner } from '../../../ui/error-banner';
+import { ZonedPipe } from '../../../ui/lab-time';
 import { NewPasswordFields } from '../../../ui/new-password/new-password-fields';
 import { newPasswordGroup } from '../../../ui/new-password/new-password-group';
 import { ApiError } from '../../http/api-error';
@@ -14,16 +14,16 @@ import { showApiError } from '../../http/form-errors';
 import { Notices } from '../../notify/notices';
 import { AuthApi } from '../auth-api';
 
-const INVALID_LINK = 'This link is not valid or has expired; ask your administrator for a new invitation.';
+const INVALID_LINK = 'This link is not valid or has expired; ask for a new one with “Forgot your password?” on the sign-in page, or ask your administrator.';
 
-/** Opened from the invitation e-mail: the new user chooses a password once. */
+/** Opened from an invitation or a password-reset e-mail: the user chooses a password once. */
 @Component({
   selector: 'app-set-password-page',
   templateUrl: './set-password-page.html',
   styleUrl: '../auth-card.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [
-    ReactiveFormsModule, MatCardModule, MatButtonModule, MatProgressBarModule, RouterLink, DatePipe,
+    ReactiveFormsModule, MatCardModule, MatButtonModule, MatProgressBarModule, RouterLink, ZonedPipe,
     ErrorBanner, NewPasswordFields,
   ],
 })

@@ -69,6 +69,16 @@ describe('SignInPage', () => {
     expect(el.textContent).toContain('Your password is required.');
   });
 
+  it('links to "Forgot your password?", carrying the e-mail typed so far', async () => {
+    const { fixture, input, el } = await setUp();
+    const link = () => el.querySelector('a[data-testid="forgot-password"]');
+    expect(link()?.textContent).toBe('Forgot your password?');
+    expect(link()?.getAttribute('href')).toBe('/forgot-password');
+    await (await input('email')).setValue('tech@valeharbor.example');
+    await fixture.whenStable();
+    expect(link()?.getAttribute('href')).toBe('/forgot-password?email=tech@valeharbor.example');
+  });
+
   it('fills in the e-mail it was given and shows a waiting notice', async () => {
     TestBed.configureTestingModule({ providers: provideTestHttp() });
     TestBed.inject(Notices).post('Your password is set.');

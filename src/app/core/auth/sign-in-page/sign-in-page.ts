@@ -4,7 +4,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatCardModule } from '@angular/material/card';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
-import { Router } from '@angular/router';
+import { Router, RouterLink } from '@angular/router';
 import { ErrorBanner } from '../../../ui/error-banner';
 import { FieldErrorPipe } from '../../../ui/field-error';
 import { ApiError } from '../../http/api-error';
@@ -18,7 +18,7 @@ import { safeNext } from '../safe-next';
   templateUrl: './sign-in-page.html',
   styleUrl: '../auth-card.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [ReactiveFormsModule, MatCardModule, MatFormFieldModule, MatInputModule, MatButtonModule, ErrorBanner, FieldErrorPipe],
+  imports: [ReactiveFormsModule, MatCardModule, MatFormFieldModule, MatInputModule, MatButtonModule, RouterLink, ErrorBanner, FieldErrorPipe],
 })
 export class SignInPage implements OnInit {
   private readonly auth = inject(AuthStore);
@@ -39,6 +39,12 @@ export class SignInPage implements OnInit {
   ngOnInit(): void {
     const email = this.email();
     if (email) this.form.controls.email.setValue(email);
+  }
+
+  /** "Forgot your password?" carries the e-mail already typed, if any. */
+  protected forgotParams(): { email?: string } {
+    const email = this.form.controls.email.value.trim();
+    return email ? { email } : {};
   }
 
   protected signIn(): void {

@@ -1,4 +1,5 @@
 import { TestBed } from '@angular/core/testing';
+import { MatSnackBar } from '@angular/material/snack-bar';
 import { Router, provideRouter } from '@angular/router';
 import type { Role } from '../../../../../shared/schemas';
 import { httpController, noAnimations, provideTestHttp } from '../../../../testing/http';
@@ -58,6 +59,18 @@ describe('Shell', () => {
     expect(TestBed.inject(AuthStore).signedIn()).toBe(false);
     expect(navigate).toHaveBeenCalledWith('/sign-in');
     expect(TestBed.inject(Notices).message()).toBe('You are signed out.');
+  });
+
+  it('closes the snack bar the last session left open ("You are signed out.") when the next session starts', async () => {
+    TestBed.configureTestingModule({
+      providers: [...provideTestHttp(), provideRouter([]), provideSession(sessionUser(['admin'], 'Lee Lead')), noAnimations],
+    });
+    await restoreSession();
+    TestBed.inject(MatSnackBar).open('You are signed out.', 'Close', { duration: 6000 });
+    expect(document.querySelector('mat-snack-bar-container')?.textContent).toContain('You are signed out.');
+    const fixture = TestBed.createComponent(Shell);
+    await fixture.whenStable();
+    expect(document.querySelector('mat-snack-bar-container')).toBeNull();
   });
 
   it('shows a posted notice in a snack bar', async () => {

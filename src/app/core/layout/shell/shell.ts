@@ -39,6 +39,8 @@ export class Shell {
   protected readonly sections = computed(() => sectionsOf(navigationFor(this.auth.roles())));
 
   constructor() {
+    // A new shell is a new session (the sign-in page lies outside it): close a snack bar the last one left open.
+    this.snackBar.dismiss();
     effect(() => {
       const text = this.notices.message();
       if (text) untracked(() => this.snackBar.open(this.notices.take() ?? text, 'Close', { duration: 6000 }));

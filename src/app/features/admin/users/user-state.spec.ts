@@ -18,8 +18,8 @@ describe('userState', () => {
 
   it('tells the end of a running lock in the laboratory’s time zone', () => {
     const locked = { ...base, lockedUntil: '2026-03-10T14:20:00Z' };
-    expect(userState(locked, now, 'UTC')).toEqual({ kind: 'locked', text: 'Locked until 14:20' });
-    expect(userState(locked, now, 'America/New_York').text).toBe('Locked until 10:20');
+    expect(userState(locked, now, 'UTC')).toEqual({ kind: 'locked', text: 'Locked until 2026-03-10 14:20 UTC (UTC+00:00)' });
+    expect(userState(locked, now, 'America/New_York').text).toBe('Locked until 2026-03-10 10:20 America/New_York (UTC−04:00)');
   });
 
   it('treats a lock that has run out as no lock', () => {

@@ -1,4 +1,5 @@
 import type { User } from '../../../../../shared/schemas';
+import { laboratoryTime } from '../../../../../shared/types/lab-time';
 
 export type UserStateKind = 'active' | 'invited' | 'locked' | 'deactivated';
 
@@ -19,9 +20,7 @@ export function isLocked(user: User, now: Date): boolean {
 export function userState(user: User, now: Date, timeZone: string): UserState {
   if (!user.active) return { kind: 'deactivated', text: 'Deactivated' };
   if (isLocked(user, now)) {
-    const until = new Intl.DateTimeFormat('en-GB', { hour: '2-digit', minute: '2-digit', hourCycle: 'h23', timeZone })
-      .format(new Date(user.lockedUntil as string));
-    return { kind: 'locked', text: `Locked until ${until}` };
+    return { kind: 'locked', text: `Locked until ${laboratoryTime(user.lockedUntil, timeZone)}` };
   }
   if (!user.hasPassword) return { kind: 'invited', text: 'Invited — no password yet' };
   return { kind: 'active', text: 'Active' };

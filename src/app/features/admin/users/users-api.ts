@@ -28,4 +28,9 @@ export class UsersApi {
   resendInvitation(id: number): Observable<void> {
     return this.http.post<void>(`/api/v1/users/${id}/invitation`, {});
   }
+
+  /** E-mails the user a one-time link (valid 1 h) to choose a new password; their older unused links stop working. */
+  sendPasswordLink(id: number): Observable<void> {
+    return this.http.post<void>(`/api/v1/users/${id}/password-link`, {});
+  }
 }

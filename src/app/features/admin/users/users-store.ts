@@ -27,4 +27,8 @@ export class UsersStore extends ListStore<User> {
   resendInvitation(id: number): Observable<void> {
     return this.api.resendInvitation(id);
   }
+
+  sendPasswordLink(id: number): Observable<void> {
+    return this.api.sendPasswordLink(id);
+  }
 }

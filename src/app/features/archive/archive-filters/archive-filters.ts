@@ -8,6 +8,8 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { catchError, of } from 'rxjs';
 import { STUDY_KIND_LABELS, STUDY_STATE_LABELS } from '../../../../../shared/schemas';
+import { DayDates } from '../../../ui/day-dates';
+import { labZone } from '../../../ui/lab-time';
 import { ArchiveApi } from '../archive-api';
 import { ArchiveFilter } from '../archive-query';
 import { DATE_ORDER_ERROR, datesInOrder, rangeBackwards } from '../date-range';
@@ -23,8 +25,8 @@ interface Chooser { key: Field; id: string; label: string; any: string; choices:
 
 const pairs = (labels: Record<string, string>): Choice[] => Object.entries(labels).map(([value, label]) => ({ value, label }));
 const RANGES = [
-  { from: 'signedFrom', to: 'signedTo', id: 'signed', legend: 'Signed between (UTC days)' },
-  { from: 'createdFrom', to: 'createdTo', id: 'created', legend: 'Created between (UTC days)' },
+  { from: 'signedFrom', to: 'signedTo', id: 'signed', legend: 'Signed between' },
+  { from: 'createdFrom', to: 'createdTo', id: 'created', legend: 'Created between' },
 ] as const;
 
 /** The archive's search form: typing and choosing search at once (after a short pause); the address keeps the search. */
@@ -33,7 +35,7 @@ const RANGES = [
   templateUrl: './archive-filters.html',
   styleUrl: './archive-filters.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule, MatIconModule],
+  imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule, MatIconModule, DayDates],
 })
 export class ArchiveFilters {
   /** The search in force (from the address). */
@@ -42,6 +44,8 @@ export class ArchiveFilters {
   readonly changed = output<ArchiveFilter>();
 
   private readonly api = inject(ArchiveApi);
+  /** Date filters mean the laboratory's days. */
+  protected readonly zone = labZone();
   protected readonly analytes = toSignal(this.api.analytes().pipe(catchError(() => of([]))), { initialValue: [] });
   protected readonly instruments = toSignal(this.api.instruments().pipe(catchError(() => of([]))), { initialValue: [] });
   protected readonly people = toSignal(this.api.people().pipe(catchError(() => of([]))), { initialValue: [] });

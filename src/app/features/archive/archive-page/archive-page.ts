@@ -14,7 +14,7 @@ import { ArchiveStore } from '../archive-store';
 import { ArchiveFilters } from '../archive-filters/archive-filters';
 import { DecisionCaution } from '../decision-caution';
 import { FileDownload } from '../file-download';
-import { ZonedPipe, labZone } from '../lab-time';
+import { ZonedPipe, labZone } from '../../../ui/lab-time';
 import { withChange } from '../query-params';
 import { routeQuery } from '../route-query';
 import { VerdictBadge } from '../verdict-badge';

@@ -4,7 +4,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
 import type { HistoryEvent } from '../../../../../shared/schemas';
 import { actionIcon } from '../history-actions';
-import { ZonedPipe, labZone } from '../lab-time';
+import { ZonedPipe, labZone } from '../../../ui/lab-time';
 
 /** History events as a timeline in words: when (laboratory zone, with seconds), who, what, and the detail lines. */
 @Component({

@@ -4,7 +4,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { ErrorBanner } from '../../../ui/error-banner';
 import { HistoryApi } from '../history-api';
-import { ZonedPipe, labZone } from '../lab-time';
+import { ZonedPipe, labZone } from '../../../ui/lab-time';
 import { chainOutcome } from '../recheck-words';
 import { CheckList } from '../recheck-panel/check-list';
 import { RecheckOutcome } from '../recheck-panel/recheck-outcome';

@@ -11,7 +11,10 @@ import { MatPaginatorModule, PageEvent } from '@angular/material/paginator';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import type { AuditQuery } from '../../../../../shared/schemas';
+import { DayDates } from '../../../ui/day-dates';
 import { ErrorBanner } from '../../../ui/error-banner';
+import { labZone } from '../../../ui/lab-time';
+import { PluralPipe } from '../../../ui/plural';
 import { DATE_ORDER_ERROR, datesInOrder, rangeBackwards } from '../date-range';
 import { syncForm } from '../form-sync';
 import { ACTION_CHOICES } from '../history-actions';
@@ -34,7 +37,7 @@ const BLANK = { userId: '', action: '', studyId: '', from: '', to: '' };
   providers: [LabHistoryStore],
   imports: [
     ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule, MatIconModule, MatPaginatorModule,
-    MatProgressBarModule, ErrorBanner, HistoryTimeline, HistoryRecheck,
+    MatProgressBarModule, ErrorBanner, HistoryTimeline, HistoryRecheck, PluralPipe, DayDates,
   ],
 })
 export class LabHistoryPage {
@@ -44,6 +47,8 @@ export class LabHistoryPage {
   protected readonly choices = ACTION_CHOICES;
   protected readonly people = toSignal(inject(ArchiveApi).people().pipe(catchError(() => of([]))), { initialValue: [] });
   protected readonly orderError = DATE_ORDER_ERROR;
+  /** Date filters and times are the laboratory's. */
+  protected readonly zone = labZone();
   protected readonly form = inject(FormBuilder).nonNullable.group(BLANK, { validators: [datesInOrder('from', 'to')] });
   protected readonly pageSize = computed(() => this.filter().pageSize ?? HISTORY_PAGE_SIZE);
   protected readonly pageIndex = computed(() => (this.filter().page ?? 1) - 1);

@@ -33,7 +33,7 @@ describe('LaboratorySettingsPage', () => {
   it('shows the laboratory’s settings with both rules explained in plain words', async () => {
     const { el, zone, q } = await setUp();
     expect(zone().value).toBe('Europe/Lisbon');
-    expect(el.querySelector('mat-hint')?.textContent).toMatch(/Now there: \d{1,2} \w{3} \d{4}, \d\d:\d\d \(Europe\/Lisbon, GMT\+0[01]:00\)/);
+    expect(el.querySelector('mat-hint')?.textContent).toMatch(/Now there: \d{4}-\d\d-\d\d \d\d:\d\d Europe\/Lisbon \(UTC\+0[01]:00\)/);
     expect(q('lab-settings-name').textContent).toContain('Vale Harbor Regional Laboratory');
     expect(el.textContent).toContain("Specimens can be entered only after a director approved the study's plan.");
     expect(el.textContent).toContain('A director may sign a study whose rows they entered (each such signature is recorded in the history).');
@@ -42,7 +42,7 @@ describe('LaboratorySettingsPage', () => {
   it('saves the time zone and both rules', async () => {
     const { fixture, q, type, submit } = await setUp();
     await type('America/Chicago');
-    expect(q('lab-settings-form').querySelector('mat-hint')?.textContent).toContain('(America/Chicago, GMT-0');
+    expect(q('lab-settings-form').querySelector('mat-hint')?.textContent).toContain('America/Chicago (UTC−0');
     (q('lab-self-sign').querySelector('input') as HTMLInputElement).click();
     await fixture.whenStable();
     await submit();

@@ -15,7 +15,7 @@ import { showApiError } from '../../../core/http/form-errors';
 import { Notices } from '../../../core/notify/notices';
 import { ErrorBanner } from '../../../ui/error-banner';
 import { FieldErrorPipe } from '../../../ui/field-error';
-import { formatZoned } from '../zoned-time';
+import { laboratoryTime } from '../../../../../shared/types/lab-time';
 import { LaboratoryApi, type Laboratory } from './laboratory-api';
 import { isTimeZone, knownTimeZones, matchingZones, timeZoneRule } from './time-zones';
 
@@ -45,7 +45,7 @@ export class LaboratorySettingsPage {
   /** The time now in the zone typed, once it is a zone (read from the signal, not the form's status, so it follows every change). */
   protected readonly preview = computed(() => {
     const zone = this.typedZone();
-    return isTimeZone(zone) ? `Now there: ${formatZoned(new Date().toISOString(), zone)}` : '';
+    return isTimeZone(zone) ? `Now there: ${laboratoryTime(new Date(), zone)}` : '';
   });
   protected readonly laboratory = signal<Laboratory | null>(null);
   protected readonly loading = signal(true);

@@ -52,7 +52,7 @@ describe('RecheckPanel', () => {
     expect(bad.textContent).toContain('Signed PDF: failed');
     expect(bad.textContent).toContain('not to the recorded abc');
     expect(bad.querySelector('mat-icon')?.textContent).toBe('cancel');
-    expect(q('integrity').textContent).toContain('Checked 1 Jul 2026, 12:00:09 (UTC, GMT+00:00).');
+    expect(q('integrity').textContent).toContain('Checked 2026-07-01 12:00:09 UTC (UTC+00:00).');
   });
 
   it('shows a passing re-run in words and no table of differences', async () => {

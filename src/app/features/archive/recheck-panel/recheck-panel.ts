@@ -5,7 +5,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatTableModule } from '@angular/material/table';
 import { ErrorBanner } from '../../../ui/error-banner';
 import { ArchiveApi } from '../archive-api';
-import { ZonedPipe, labZone } from '../lab-time';
+import { ZonedPipe, labZone } from '../../../ui/lab-time';
 import { engineLine, integrityOutcome, reproduceOutcome, showValue } from '../recheck-words';
 import { CheckList } from './check-list';
 import { RecheckOutcome } from './recheck-outcome';

@@ -27,7 +27,7 @@ describe('StudyHistory', () => {
     httpController().expectOne('/api/v1/studies/5/history').flush([event(1), event(2, { userName: null, action: 'analysis.done', headline: 'Analysis finished in 812 ms', details: [] })]);
     await fixture.whenStable();
     const first = el.querySelector('[data-testid="event-1"]') as HTMLElement;
-    expect(first.textContent).toContain('1 Jul 2026, 13:00:00 (Europe/Lisbon, GMT+01:00)');
+    expect(first.textContent).toContain('2026-07-01 13:00:00 Europe/Lisbon (UTC+01:00)');
     expect(first.textContent).toContain('Tess Tech');
     expect(first.textContent).toContain('Specimen rows saved (40 → 41 rows)');
     expect(first.querySelector('.details')?.textContent).toContain('row 14: candidate result 5.2 → 5.4');

@@ -1,7 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
 import type { HistoryEvent, Signature, Study } from '../../../../../shared/schemas';
-import { ZonedPipe, labZone } from '../../archive/lab-time';
+import { ZonedPipe, labZone } from '../../../ui/lab-time';
 import { planRows } from './plan-rows';
 
 /**

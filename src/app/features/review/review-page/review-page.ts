@@ -24,12 +24,14 @@ import { kindLabel, stateLabel } from '../../studies/study-text';
 import { StudyStore } from '../../studies/study/study-store';
 import { ReasonData, ReasonDialog } from '../dialogs/reason-dialog';
 import { SignatureData, SignatureDialog } from '../dialogs/signature-dialog';
+import { ExclusionReasons } from '../exclusions/exclusion-reasons';
 import { exclusionRows } from '../exclusions/exclusion-rows';
 import { ExclusionsTable } from '../exclusions/exclusions-table';
 import { mayDecide } from '../next-step';
 import { PlanCriteria } from '../plan/plan-criteria';
 import { ReviewCaution } from '../review-caution';
 import { SignatureBlock } from '../signature-block/signature-block';
+import { SubmissionNote } from '../submission-note';
 import { reportUrl } from '../signoff-api';
 import { comparisonView } from './comparison-view';
 import { ReadOnlyStudyStore } from './read-only-study-store';
@@ -47,8 +49,8 @@ import { ReviewStore } from './review-store';
   providers: [{ provide: StudyStore, useClass: ReadOnlyStudyStore }, SpecimensStore, ReviewStore],
   imports: [
     NgComponentOutlet, DecimalPipe, MatButtonModule, MatIconModule, MatProgressBarModule, RouterLink, ErrorBanner, PrintLayout, ReviewCaution,
-    VerdictPanel, SensitivityPanel, EstimateTables, OutlierList, FindingsPlots, PlanCriteria, ExclusionsTable, SignatureBlock,
-    SignatureList, StudyHistory,
+    VerdictPanel, SensitivityPanel, EstimateTables, OutlierList, FindingsPlots, PlanCriteria, ExclusionsTable, ExclusionReasons, SignatureBlock,
+    SignatureList, StudyHistory, SubmissionNote,
   ],
 })
 export class ReviewPage {

@@ -12,7 +12,7 @@ function study(patch: Partial<Study> = {}): Study {
     n: 40, state: 'draft', superseded: false, findings: 'current', updatedAt: '2026-11-30T10:00:00.000Z', createdBy: { id: 3, name: 'Tomas Reyes' },
     purpose: '', analyteUnit: 'mmol/L', comparativeInstrument: null, candidateInstrument: null, instrument: null, settings: StudySettings.parse({}),
     version: 4, supersedesId: null, supersededById: null, latestAnalysisId: 8, currentAnalysisId: 8, canBeNegative: false,
-    createdAt: '2026-11-29T10:00:00.000Z', returnComment: null, ...patch,
+    createdAt: '2026-11-29T10:00:00.000Z', returnComment: null, submissionNote: null, ...patch,
   };
 }
 
@@ -31,14 +31,41 @@ async function mount(roles: Role[], shown: Study) {
   return { fixture, el, store, text, button };
 }
 
+/** The text of an element of the open dialog (rendered in the overlay, outside the component). */
+const inDialog = (selector: string) => document.querySelector(`mat-dialog-container ${selector}`)?.textContent?.trim() ?? null;
+
+/** Opens the submission dialog, types the note and confirms it. */
+async function submitWith(fixture: { whenStable: () => Promise<unknown> }, button: (id: string) => HTMLButtonElement | null, note: string) {
+  button('step-submit')!.click();
+  await fixture.whenStable();
+  const field = document.querySelector('[data-testid="submit-note"]') as HTMLTextAreaElement;
+  field.value = note;
+  field.dispatchEvent(new Event('input'));
+  (document.querySelector('[data-testid="submit-confirm"]') as HTMLButtonElement).click();
+  await fixture.whenStable();
+}
+
 describe('SignoffBar', () => {
   afterEach(() => httpController().verify());
 
-  it('submits a draft and follows the study the server answers', async () => {
+  it('asks first, saying the study is locked for the director; Cancel sends nothing', async () => {
+    const { fixture, button } = await mount(['technologist'], study());
+    button('step-submit')!.click();
+    await fixture.whenStable();
+    expect(inDialog('h2')).toBe('Submit for sign-off');
+    expect(inDialog('[data-testid="submit-what"]')).toMatch(/^Submitting locks the study for the director: its rows and settings cannot change while a director reviews it\./);
+    (document.querySelector('mat-dialog-actions button[mat-dialog-close]') as HTMLButtonElement).click();
+    await fixture.whenStable();
+    httpController().expectNone('/api/v1/studies/12/submit');
+  });
+
+  it('submits a draft with the trimmed note for the director and follows the study the server answers', async () => {
     const { fixture, store, text, button } = await mount(['technologist'], study());
     expect(text('signoff-state')).toBe('Draft');
-    button('step-submit')!.click();
-    httpController().expectOne({ method: 'POST', url: '/api/v1/studies/12/submit' }).flush(study({ state: 'awaiting-signoff', version: 5 }));
+    await submitWith(fixture, button, '  Rows 12 and 31 were run again.  ');
+    const req = httpController().expectOne({ method: 'POST', url: '/api/v1/studies/12/submit' });
+    expect(req.request.body).toEqual({ note: 'Rows 12 and 31 were run again.' });
+    req.flush(study({ state: 'awaiting-signoff', version: 5 }));
     await fixture.whenStable();
     httpController().expectOne('/api/v1/studies/12/signatures').flush([]);
     await fixture.whenStable();
@@ -49,7 +76,7 @@ describe('SignoffBar', () => {
 
   it('shows every issue of a refused submission in words', async () => {
     const { fixture, el, button } = await mount(['technologist'], study());
-    button('step-submit')!.click();
+    await submitWith(fixture, button, '');
     httpController().expectOne('/api/v1/studies/12/submit').flush(
       apiError('The study cannot be submitted yet: Name at least one medical decision level; Name the source of the allowable bias', [
         { path: 'settings.decisionLevels', message: 'Name at least one medical decision level' },

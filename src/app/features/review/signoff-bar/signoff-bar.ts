@@ -5,14 +5,15 @@ import { MatDialog } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
 import { Router, RouterLink } from '@angular/router';
 import { catchError, distinctUntilChanged, filter, map, of, switchMap } from 'rxjs';
-import type { Signature, Study } from '../../../../../shared/schemas';
+import type { Signature, Study, SubmitBody } from '../../../../../shared/schemas';
 import { AuthStore } from '../../../core/auth/auth-store';
 import { ApiError } from '../../../core/http/api-error';
 import { Notices } from '../../../core/notify/notices';
-import { ZonedPipe, labZone } from '../../archive/lab-time';
+import { ZonedPipe, labZone } from '../../../ui/lab-time';
 import { StudyStore } from '../../studies/study/study-store';
 import { ReasonData, ReasonDialog } from '../dialogs/reason-dialog';
 import { SignatureData, SignatureDialog } from '../dialogs/signature-dialog';
+import { SubmitData, SubmitDialog } from '../dialogs/submit-dialog';
 import { StepId, nextStep } from '../next-step';
 import { planApprovalOf, signOffOf } from '../signatures';
 import { SignoffApi, reportUrl } from '../signoff-api';
@@ -41,6 +42,8 @@ export class SignoffBar {
   protected readonly busy = signal(false);
   /** The server's refusal of a submission: its sentence and each issue in words. */
   protected readonly refusal = signal<{ message: string; issues: string[] } | null>(null);
+  /** The note of a refused submission, offered again with the next try. */
+  private note = '';
 
   /** The signatures, read again whenever the study's state or version moves. */
   private readonly signatures = toSignal(
@@ -65,11 +68,23 @@ export class SignoffBar {
     else void this.router.navigate(['/studies', study.id, 'review']);
   }
 
+  /** Asks first (what submission does, and an optional note for the director), then submits. */
   private submit(study: Study): void {
+    const data: SubmitData = { title: study.title, note: this.note };
+    this.dialogs
+      .open<SubmitDialog, SubmitData, SubmitBody>(SubmitDialog, { data, width: '560px', maxWidth: '95vw' })
+      .afterClosed()
+      .pipe(filter((body): body is SubmitBody => !!body))
+      .subscribe((body) => this.send(study, body));
+  }
+
+  private send(study: Study, body: SubmitBody): void {
+    this.note = body.note;
     this.busy.set(true);
-    this.api.submit(study.id).subscribe({
+    this.api.submit(study.id, body).subscribe({
       next: (submitted) => {
         this.busy.set(false);
+        this.note = '';
         this.store.adopt(submitted);
         this.notices.post('Submitted for sign-off. The laboratory’s directors are told by e-mail.');
       },

@@ -71,6 +71,8 @@ export class SetupForm {
   protected readonly levels = [0.9, 0.95, 0.99];
   private readonly kind = toSignal(this.form.controls.kind.valueChanges, { initialValue: this.form.controls.kind.value });
   protected readonly kindFields = computed(() => kindView(this.kind()).setupFields);
+  /** The kind's words for the analyte and the plan, and which analysis settings its engine reads. */
+  protected readonly guidance = computed(() => kindView(this.kind()).guidance);
   protected readonly activeAnalytes = computed(() =>
     (this.catalog()?.analytes ?? []).filter((a) => a.active || a.id === this.study()?.analyte.id),
   );

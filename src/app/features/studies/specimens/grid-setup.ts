@@ -1,15 +1,17 @@
 import {
   CellStyleModule, CheckboxEditorModule, ClientSideRowModelApiModule, ClientSideRowModelModule, ColumnApiModule,
-  ModuleRegistry, RenderApiModule, RowApiModule, RowSelectionModule, ScrollApiModule, TextEditorModule, TooltipModule, themeQuartz,
+  ModuleRegistry, RenderApiModule, RowApiModule, RowAutoHeightModule, RowSelectionModule, RowStyleModule, ScrollApiModule, TextEditorModule,
+  TooltipModule, themeQuartz,
 } from 'ag-grid-community';
 
 /**
  * The lean set of grid modules the specimen grid uses (only this chunk loads them): rows and their API,
- * text and checkbox editing, row selection by checkbox, cell classes and tooltips for problems, refresh.
+ * text and checkbox editing, row selection by checkbox, cell and row classes (problems, repeated labels,
+ * excluded rows) with their tooltips, rows as tall as a wrapped exclusion reason, refresh.
  */
 ModuleRegistry.registerModules([
   ClientSideRowModelModule, ClientSideRowModelApiModule, ColumnApiModule, RowApiModule, RenderApiModule, ScrollApiModule,
-  TextEditorModule, CheckboxEditorModule, RowSelectionModule, CellStyleModule, TooltipModule,
+  TextEditorModule, CheckboxEditorModule, RowSelectionModule, CellStyleModule, RowStyleModule, RowAutoHeightModule, TooltipModule,
 ]);
 
 /** Our colours and Open Sans (already loaded by the app; the grid loads no web font of its own). */

@@ -143,6 +143,67 @@ describe('SpecimensStore autosave', () => {
     expect(puts).toHaveLength(1);
     expect(puts[0].body.rows[1]).toMatchObject({ excluded: true, exclusionReason: 'clotted specimen' });
   });
+
+  it('undoes a typed value and saves the rows as they were, then redoes it and saves that', () => {
+    expect(store.canUndo()).toBe(false);
+    store.setCell(uidOf(0), 'candidate', '5.9');
+    jest.advanceTimersByTime(AUTOSAVE_DEBOUNCE_MS);
+    answer(0, 4);
+    expect(store.undo()).toBe(true);
+    expect(store.rows()[0]['candidate']).toBe('5.2');
+    expect(store.status()).toBe('pending');
+    expect(store.canRedo()).toBe(true);
+    jest.advanceTimersByTime(AUTOSAVE_DEBOUNCE_MS);
+    expect(puts).toHaveLength(2);
+    expect(puts[1].body).toMatchObject({ version: 4 });
+    expect(puts[1].body.rows.map((r) => r['candidate'])).toEqual(['5.2', '7.1']);
+    answer(1, 5);
+    expect(store.redo()).toBe(true);
+    expect(store.rows()[0]['candidate']).toBe('5.9');
+    jest.advanceTimersByTime(AUTOSAVE_DEBOUNCE_MS);
+    expect(puts[2].body.rows.map((r) => r['candidate'])).toEqual(['5.9', '7.1']);
+    expect(store.redo()).toBe(false);
+  });
+
+  it('undoes a deletion of several rows and a paste as one step each', () => {
+    store.deleteRows(new Set([uidOf(0), uidOf(1)]));
+    expect(store.rows()).toHaveLength(0);
+    store.undo();
+    expect(store.rows().map((r) => r['label'])).toEqual(['S1', 'S2']);
+    store.paste({ rowIndex: 0, field: 'label' }, 'P1\t1.0\t1.1\nP2\t2.0\t2.1\nP3\t3.0\t3.1');
+    expect(store.rows().map((r) => r['label'])).toEqual(['P1', 'P2', 'P3']);
+    store.undo();
+    expect(store.rows().map((r) => r['label'])).toEqual(['S1', 'S2']);
+    expect(store.rows().map((r) => r['candidate'])).toEqual(['5.2', '7.1']);
+  });
+
+  it('makes no step for a cell typed over with the same value, and forgets the steps when rows are loaded again', () => {
+    store.setCell(uidOf(0), 'label', 'S1');
+    expect(store.canUndo()).toBe(false);
+    expect(store.status()).toBe('saved');
+    store.setCell(uidOf(0), 'label', 'S1b');
+    expect(store.canUndo()).toBe(true);
+    store.load(12).subscribe();
+    expect(store.canUndo()).toBe(false);
+    expect(store.undo()).toBe(false);
+  });
+
+  it("puts deleted rows back from the snack bar as a step back, or as a new change once something else was edited", () => {
+    const before = store.rows();
+    store.deleteRows(new Set([uidOf(1)]));
+    store.undoDeletion(before);
+    expect(store.rows().map((r) => r['label'])).toEqual(['S1', 'S2']);
+    expect(store.canRedo()).toBe(true);
+
+    const again = store.rows();
+    store.deleteRows(new Set([uidOf(0)]));
+    store.setCell(uidOf(0), 'note', 'typed after the deletion');
+    store.undoDeletion(again);
+    expect(store.rows().map((r) => r['label'])).toEqual(['S1', 'S2']);
+    expect(store.canRedo()).toBe(false);
+    store.undo();
+    expect(store.rows().map((r) => [r['label'], r['note']])).toEqual([['S2', 'typed after the deletion']]);
+  });
 });
 
 describe("SpecimensStore and the study's decimal mark", () => {

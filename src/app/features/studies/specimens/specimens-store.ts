@@ -8,7 +8,7 @@ import { SpecimensApi } from '../api/specimens-api';
 import { StudyStore } from '../study/study-store';
 import { PasteOutcome, PasteTarget, applyPaste } from './apply-paste';
 import { normaliseDecimal, rewriteForMark } from './result-number';
-import { deleteRows, insertRow, moveRow, setCell } from './row-edits';
+import { EMPTY_HISTORY, EditHistory, deleteRows, insertRow, moveRow, recordEdit, redoEdit, setCell, undoEdit } from './row-edits';
 import { RowIssue, SentRows, rowsToSend } from './rows-to-send';
 import { refusalOf } from './save-refusal';
 import { SaveStatus, retryDelay } from './save-status';
@@ -29,11 +29,13 @@ interface SpecimensState {
   retryAt: number | null;
   /** The decimal mark the rows' results are written with: the study's (settings.decimalMark). */
   decimalMark: DecimalMark;
+  /** The steps Undo and Redo walk through (edits on this page since the rows were loaded or imported). */
+  history: EditHistory;
 }
 
 const INITIAL: SpecimensState = {
   studyId: null, version: 0, rows: [], loading: false, loadError: null, status: 'saved', message: null, issues: [], retryAt: null,
-  decimalMark: 'auto',
+  decimalMark: 'auto', history: EMPTY_HISTORY,
 };
 
 /**
@@ -66,6 +68,8 @@ export class SpecimensStore {
   readonly dirty = computed(() => this.state().status !== 'saved');
   /** How the rows' results are written and read (the study's decimal mark); the grid checks cells with it. */
   readonly decimalMark = computed(() => this.state().decimalMark);
+  readonly canUndo = computed(() => this.state().history.past.length > 0);
+  readonly canRedo = computed(() => this.state().history.future.length > 0);
   private readonly studyMark = computed<DecimalMark>(() => this.study?.study()?.settings?.decimalMark ?? 'auto');
 
   constructor() {
@@ -126,7 +130,7 @@ export class SpecimensStore {
     // An empty study shows one blank row, so there is a cell to click and paste into (blank rows are not sent).
     if (rows.length === 0) rows.push(blankRow(this.layoutOf));
     this.state.update((s) => ({
-      ...s, version: answer.version, rows, decimalMark: mark,
+      ...s, version: answer.version, rows, decimalMark: mark, history: EMPTY_HISTORY,
       loading: false, status: 'saved', message: null, issues: [], retryAt: null,
     }));
   }
@@ -140,7 +144,32 @@ export class SpecimensStore {
   setCell(uid: number, field: string, value: string | boolean): void {
     const kind = this.layoutOf.fields.find((f) => f.field === field)?.kind;
     const mark = this.decimalMark();
-    this.change(setCell(this.rows(), uid, field, kind === 'result' && typeof value === 'string' ? normaliseDecimal(value, mark) : value));
+    const written = kind === 'result' && typeof value === 'string' ? normaliseDecimal(value, mark) : value;
+    if (this.rows().find((row) => row.uid === uid)?.[field] === written) return;
+    this.change(setCell(this.rows(), uid, field, written));
+  }
+
+  /**
+   * Steps back one change (a typed cell, a paste, a deletion...); the rows as they were are saved the way
+   * any edit is. False when there is nothing to undo.
+   */
+  undo(): boolean {
+    const step = undoEdit(this.state().history, this.rows());
+    if (step) this.change(step.rows, step.history);
+    return step !== null;
+  }
+
+  /** Makes an undone change again; false when there is nothing to redo. */
+  redo(): boolean {
+    const step = redoEdit(this.state().history, this.rows());
+    if (step) this.change(step.rows, step.history);
+    return step !== null;
+  }
+
+  /** Undo of one deletion (the snack bar's button): a step back while it is the last change, else the rows put back as a new change. */
+  undoDeletion(before: readonly GridRow[]): void {
+    if (this.state().history.past.at(-1) === before) this.undo();
+    else this.replaceRows([...before]);
   }
 
   insertRow(index?: number): void {
@@ -188,7 +217,9 @@ export class SpecimensStore {
   private useMark(mark: DecimalMark): void {
     const s = this.state();
     if (s.decimalMark === mark) return;
-    this.state.set({ ...s, rows: this.rewritten(s.rows, s.decimalMark, mark), decimalMark: mark });
+    const rewrite = (rows: readonly GridRow[]): GridRow[] => this.rewritten([...rows], s.decimalMark, mark);
+    const history = { past: s.history.past.map(rewrite), future: s.history.future.map(rewrite) };
+    this.state.set({ ...s, rows: rewrite(s.rows), decimalMark: mark, history });
   }
 
   /** Every result cell written for `from` rewritten for `to` (stored texts are written for 'point'). */
@@ -201,9 +232,10 @@ export class SpecimensStore {
     });
   }
 
-  private change(rows: GridRow[]): void {
+  /** New rows on screen, to be saved: one step in the history (or the step given, for Undo and Redo). */
+  private change(rows: GridRow[], history?: EditHistory): void {
     this.revision++;
-    this.state.update((s) => ({ ...s, rows, status: s.status === 'conflict' ? 'conflict' : s.status === 'saving' ? 'saving' : 'pending' }));
+    this.state.update((s) => ({ ...s, rows, history: history ?? recordEdit(s.history, s.rows), status: s.status === 'conflict' ? 'conflict' : s.status === 'saving' ? 'saving' : 'pending' }));
     this.changes.next();
   }
 

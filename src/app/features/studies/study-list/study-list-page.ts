@@ -13,11 +13,13 @@ import { ActivatedRoute, Router, RouterLink } from '@angular/router';
 import { Subject, catchError, debounceTime, distinctUntilChanged, map, of } from 'rxjs';
 import { STUDY_KIND_LABELS, STUDY_STATE_LABELS, StudyListQuery, type StudySummary } from '../../../../../shared/schemas';
 import { AuthStore } from '../../../core/auth/auth-store';
+import { DayDates } from '../../../ui/day-dates';
 import { ErrorBanner } from '../../../ui/error-banner';
 import { PrintLayout } from '../print-layout';
 import { StudyCatalogApi } from '../api/catalog-api';
 import type { StudyQuery } from '../api/studies-api';
-import { FINDINGS_LABELS, formatWhen, kindLabel, stateLabel } from '../study-text';
+import { laboratoryTime } from '../../../../../shared/types/lab-time';
+import { FINDINGS_LABELS, kindLabel, stateLabel } from '../study-text';
 import { DEFAULT_PAGE_SIZE, paramsFromQuery, queryFromParams, withFilter } from './study-query';
 import { StudyListStore } from './study-list-store';
 
@@ -30,7 +32,7 @@ import { StudyListStore } from './study-list-store';
   providers: [StudyListStore],
   imports: [
     MatTableModule, MatSortModule, MatPaginatorModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule,
-    MatIconModule, MatProgressBarModule, RouterLink, ErrorBanner, PrintLayout,
+    MatIconModule, MatProgressBarModule, RouterLink, ErrorBanner, PrintLayout, DayDates,
   ],
 })
 export class StudyListPage {
@@ -52,7 +54,7 @@ export class StudyListPage {
   protected readonly pageSize = computed(() => this.query().pageSize ?? DEFAULT_PAGE_SIZE);
   protected readonly pageIndex = computed(() => (this.query().page ?? 1) - 1);
   protected readonly sort = computed(() => ({ active: this.query().sort ?? 'updatedAt', direction: this.query().order ?? 'desc' }));
-  private readonly timeZone = computed(() => this.auth.user()?.laboratory.timeZone ?? 'UTC');
+  protected readonly timeZone = computed(() => this.auth.user()?.laboratory.timeZone ?? 'UTC');
   private readonly text = new Subject<string>();
 
   constructor() {
@@ -64,7 +66,7 @@ export class StudyListPage {
   }
 
   protected when(study: StudySummary): string {
-    return formatWhen(study.updatedAt, this.timeZone());
+    return laboratoryTime(study.updatedAt, this.timeZone(), { zone: false });
   }
 
   protected typed(value: string): void {

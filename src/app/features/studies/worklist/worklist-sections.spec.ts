@@ -30,14 +30,16 @@ describe('WorklistSections', () => {
     expect(row.textContent).toContain('Glucose on line 2');
     expect(row.textContent).toContain('Chemistry line 1 → Chemistry line 2');
     expect(row.querySelector('a')?.getAttribute('href')).toBe('/studies/4');
-    expect(row.textContent).toContain('2 Mar 2026, 09:30');
+    expect(row.textContent).toContain('2026-03-02 09:30');
+    expect(el.querySelector('[data-testid="wl-drafts"] thead')?.textContent).toContain('Last change (Europe/Lisbon)');
     expect(el.querySelector('[data-testid="worklist-new"]')).not.toBeNull();
   });
 
-  it('gives a director the studies awaiting their signature', async () => {
+  it('gives a director the studies awaiting their signature, each linking to its review', async () => {
     const el = await render(['director'], { ...empty, awaitingSignature: [study(9, 'Creatinine, new lot')] });
     expect(sectionIds(el)).toContain('wl-awaitingSignature');
     expect(el.querySelector('[data-testid="wl-awaitingSignature"]')?.textContent).toContain('Creatinine, new lot');
+    expect(el.querySelector('[data-testid="wl-study-9"] a')?.getAttribute('href')).toBe('/studies/9/review');
   });
 
   it('shows a quality officer only what was signed, and no New study button', async () => {

@@ -6,7 +6,8 @@ import { RouterLink } from '@angular/router';
 import type { StudySummary, Worklist } from '../../../../../shared/schemas';
 import { AuthStore } from '../../../core/auth/auth-store';
 import { ErrorBanner } from '../../../ui/error-banner';
-import { formatWhen, stateLabel } from '../study-text';
+import { laboratoryTime } from '../../../../../shared/types/lab-time';
+import { stateLabel } from '../study-text';
 import { WorklistStore } from './worklist-store';
 
 interface Section {
@@ -14,6 +15,8 @@ interface Section {
   title: string;
   empty: string;
   items: StudySummary[];
+  /** Where a study's link opens: its review (what awaits a signature) or its Setup, Specimens and Findings. */
+  opens: 'review' | 'study';
 }
 
 /** The worklist on the home page: what waits for the signed-in user, each study one click away. */
@@ -29,7 +32,7 @@ export class WorklistSections {
   protected readonly store = inject(WorklistStore);
   private readonly auth = inject(AuthStore);
   protected readonly canCreate = computed(() => this.auth.hasAnyRole(['technologist', 'director']));
-  private readonly timeZone = computed(() => this.auth.user()?.laboratory.timeZone ?? 'UTC');
+  protected readonly timeZone = computed(() => this.auth.user()?.laboratory.timeZone ?? 'UTC');
   protected readonly state = stateLabel;
 
   protected readonly sections = computed<Section[]>(() => {
@@ -37,13 +40,13 @@ export class WorklistSections {
     if (!w) return [];
     const sections: Section[] = [];
     if (this.canCreate()) {
-      sections.push({ key: 'returned', title: 'Returned to me', empty: 'No study is waiting for your changes.', items: w.returned });
-      sections.push({ key: 'drafts', title: 'My drafts', empty: 'No drafts. Start a new study when a method needs verifying.', items: w.drafts });
+      sections.push({ key: 'returned', title: 'Returned to me', empty: 'No study is waiting for your changes.', items: w.returned, opens: 'study' });
+      sections.push({ key: 'drafts', title: 'My drafts', empty: 'No drafts. Start a new study when a method needs verifying.', items: w.drafts, opens: 'study' });
     }
     if (this.auth.hasAnyRole(['director'])) {
-      sections.push({ key: 'awaitingSignature', title: 'Awaiting my signature', empty: 'Nothing is waiting for your sign-off.', items: w.awaitingSignature });
+      sections.push({ key: 'awaitingSignature', title: 'Awaiting my signature', empty: 'Nothing is waiting for your sign-off.', items: w.awaitingSignature, opens: 'review' });
     }
-    sections.push({ key: 'recentlySigned', title: 'Recently signed', empty: 'No study has been signed recently.', items: w.recentlySigned });
+    sections.push({ key: 'recentlySigned', title: 'Recently signed', empty: 'No study has been signed recently.', items: w.recentlySigned, opens: 'study' });
     return sections;
   });
 
@@ -51,7 +54,11 @@ export class WorklistSections {
     this.store.load();
   }
 
+  protected link(section: Section, study: StudySummary): (string | number)[] {
+    return section.opens === 'review' ? ['/studies', study.id, 'review'] : ['/studies', study.id];
+  }
+
   protected when(study: StudySummary): string {
-    return formatWhen(study.updatedAt, this.timeZone());
+    return laboratoryTime(study.updatedAt, this.timeZone(), { zone: false });
   }
 }

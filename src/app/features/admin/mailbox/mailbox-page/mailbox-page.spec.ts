@@ -1,6 +1,7 @@
 import { TestBed } from '@angular/core/testing';
 import type { MailMessage } from '../../../../../../shared/schemas';
 import { httpController, provideTestHttp } from '../../../../../testing/http';
+import { provideSession, restoreSession, sessionUser } from '../../../../../testing/session-users';
 import { MailboxPage } from './mailbox-page';
 
 const mail = (id: number, subject: string, text: string): MailMessage => ({
@@ -28,6 +29,17 @@ describe('MailboxPage', () => {
     expect(link.getAttribute('href')).toBe('http://127.0.0.1:3100/set-password/abcdefghijklmnopqrstu');
     expect(body().textContent).toContain('Choose a password here:');
     expect(body().textContent).toContain('Thanks.');
+  });
+
+  it("tells when each message arrived in the laboratory's zone, zone named", async () => {
+    TestBed.configureTestingModule({ providers: [...provideTestHttp(), provideSession(sessionUser(['admin']))] });
+    await restoreSession();
+    const fixture = TestBed.createComponent(MailboxPage);
+    httpController().expectOne('/api/v1/mailbox').flush([{ ...mail(1, 'Invitation', 'Hello'), receivedAt: '2026-07-10T14:00:00Z' }]);
+    await fixture.whenStable();
+    const el = fixture.nativeElement as HTMLElement;
+    expect(el.querySelector('[data-testid="mail-1"]')?.textContent).toContain('2026-07-10 15:00 Europe/Lisbon (UTC+01:00)');
+    expect(el.querySelector('[data-testid="mail-received"]')?.textContent).toBe('2026-07-10 15:00:00 Europe/Lisbon (UTC+01:00)');
   });
 
   it('shows markup in a message as text, never as HTML', async () => {

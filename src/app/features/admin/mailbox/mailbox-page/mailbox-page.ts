@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
@@ -6,6 +5,7 @@ import { MatListModule } from '@angular/material/list';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import type { MailMessage } from '../../../../../../shared/schemas';
 import { ErrorBanner } from '../../../../ui/error-banner';
+import { ZonedPipe, labZone } from '../../../../ui/lab-time';
 import { linkify } from '../linkify';
 import { MailboxStore } from '../mailbox-store';
 
@@ -15,10 +15,11 @@ import { MailboxStore } from '../mailbox-store';
   templateUrl: './mailbox-page.html',
   styleUrl: './mailbox-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [DatePipe, MatListModule, MatButtonModule, MatIconModule, MatProgressBarModule, ErrorBanner],
+  imports: [ZonedPipe, MatListModule, MatButtonModule, MatIconModule, MatProgressBarModule, ErrorBanner],
 })
 export class MailboxPage {
   protected readonly store = inject(MailboxStore);
+  protected readonly zone = labZone();
   private readonly chosenId = signal<number | null>(null);
 
   /** The chosen message, or the newest one when none is chosen. */

@@ -10,6 +10,7 @@ import { MatTableHarness } from '@angular/material/table/testing';
 import type { User } from '../../../../../../shared/schemas';
 import { apiError, httpController, noAnimations, provideTestHttp } from '../../../../../testing/http';
 import { provideSession, restoreSession, sessionUser } from '../../../../../testing/session-users';
+import { Notices } from '../../../../core/notify/notices';
 import { UserList } from './user-list';
 
 const user = (over: Partial<User>): User => ({
@@ -126,5 +127,30 @@ describe('UserList', () => {
     await menus[0].open();
     const items = await Promise.all((await menus[0].getItems()).map((item) => item.getText()));
     expect(items.some((t) => t.includes('Send the invitation again'))).toBe(false);
+  });
+
+  it('sends a password link to an active user with a password, and says where it went', async () => {
+    const { loader } = await setUp();
+    const menus = await loader.getAllHarnesses(MatMenuHarness);
+    await menus[0].open();
+    await menus[0].clickItem({ text: /Send a password link/ });
+    httpController().expectOne({ method: 'POST', url: '/api/v1/users/1/password-link' }).flush(null, { status: 204, statusText: 'No Content' });
+    expect(TestBed.inject(Notices).message()).toBe('A password link is on its way to bea@valeharbor.example; it works once, for one hour.');
+    for (const menu of [menus[1], menus[2]]) {
+      await menu.open();
+      const items = await Promise.all((await menu.getItems()).map((item) => item.getText()));
+      expect(items.some((t) => t.includes('Send a password link'))).toBe(false);
+      await menu.close();
+    }
+  });
+
+  it('shows the server’s words when a password link is refused', async () => {
+    const { loader } = await setUp();
+    const [menu] = await loader.getAllHarnesses(MatMenuHarness);
+    await menu.open();
+    await menu.clickItem({ text: /Send a password link/ });
+    httpController().expectOne('/api/v1/users/1/password-link')
+      .flush(apiError('Bea Director is deactivated; reactivate the account before sending a password link'), { status: 400, statusText: 'Bad Request' });
+    expect(TestBed.inject(Notices).message()).toBe('Bea Director is deactivated; reactivate the account before sending a password link');
   });
 });

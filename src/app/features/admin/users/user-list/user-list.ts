@@ -108,6 +108,10 @@ export class UserList {
     this.run(this.store.resendInvitation(user.id), `A new invitation is on its way to ${user.email}.`);
   }
 
+  protected sendPasswordLink(user: User): void {
+    this.run(this.store.sendPasswordLink(user.id), `A password link is on its way to ${user.email}; it works once, for one hour.`);
+  }
+
   private run(request: Observable<unknown>, done: string): void {
     request.subscribe({ next: () => this.notices.post(done), error: (err: ApiError) => this.notices.post(err.message) });
   }

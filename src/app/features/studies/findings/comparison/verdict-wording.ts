@@ -2,6 +2,7 @@ import type { DecisionLevelResult, TestedEstimate, Verdict } from './engine-type
 import { formatCi, formatNumber, formatP, levelLabel } from './number-format';
 import { Units, withUnit } from './comparison-result';
 import { judgedOnSentence, narrowCiSentence } from '../../../../../../shared/types/resolution-words';
+import { plural } from '../../../../../../shared/types/plural';
 
 export type Tone = Verdict | 'none';
 
@@ -58,7 +59,7 @@ export function levelSentence(d: DecisionLevelResult, units: Units, level: numbe
 export function overallSentence(levels: readonly DecisionLevelResult[]): string {
   if (levels.length === 0) return 'No medical decision levels are set; add them in Setup to judge the bias where it matters.';
   const count = (v: Verdict | null): number => levels.filter((d) => d.verdict === v).length;
-  const of = `${levels.length} decision level${levels.length === 1 ? '' : 's'}`;
+  const of = plural(levels.length, 'decision level');
   const parts = [`Within the allowable bias at ${count('within')} of ${of}`];
   if (count('inconclusive')) parts.push(`inconclusive at ${count('inconclusive')}`);
   if (count('exceeds')) parts.push(`exceeds it at ${count('exceeds')}`);

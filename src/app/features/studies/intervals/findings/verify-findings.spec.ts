@@ -68,6 +68,11 @@ describe('VerifyFindings', () => {
     expect(text('verify-advice')).toContain('establish the interval locally');
   });
 
+  it("names the stated interval's source as Setup holds it, even where the stored results carry none", async () => {
+    const { text } = await render({ ...result(1, true), stated: { lower: 3.5, upper: 5.1, source: '' } });
+    expect(text('verify-source')).toBe("Manufacturer's insert, edition 7");
+  });
+
   it('draws the strip plot once the saved rows are loaded', async () => {
     const { fixture, text } = await render(result(1, true));
     expect(text('plots-stale')).toBeNull();

@@ -33,7 +33,7 @@ import { acceptanceWords, outsideWords, powerWords } from './interval-wording';
             <tr><th scope="row">Outside the stated limits</th><td class="num">{{ r.outside }} ({{ r.below }} below, {{ r.above }} above)</td></tr>
             <tr><th scope="row">Allowed outside (10%)</th><td class="num">{{ r.allowedOutside }}</td></tr>
             <tr><th scope="row">Probability of this many or more outside if the interval fits (5% expected outside)</th><td class="num" data-testid="verify-probability">{{ probability() }}</td></tr>
-            <tr><th scope="row">Source of the stated interval</th><td>{{ r.stated.source || '—' }}</td></tr>
+            <tr><th scope="row">Source of the stated interval</th><td data-testid="verify-source">{{ source() }}</td></tr>
           </tbody>
         </table>
         <p class="small" data-testid="verify-power">{{ power() }}</p>
@@ -67,6 +67,11 @@ export class VerifyFindings {
   protected readonly outside = computed(() => outsideWords(this.result()!, this.study().settings.decimals));
   protected readonly power = computed(() => powerWords(this.result()!.passRiskAt10Percent));
   protected readonly probability = computed(() => formatP(this.result()!.probability));
+  /**
+   * Where the stated interval comes from: a record-only setting, so the study's own (as Setup holds it now; the
+   * server adds the same to the results it serves), else the results' copy.
+   */
+  protected readonly source = computed(() => this.study().settings.statedSource.trim() || this.result()?.stated.source?.trim() || '—');
   protected readonly xTitle = computed(() => (this.format().unit ? `Value (${this.format().unit})` : 'Value'));
   protected readonly strip = computed(() => {
     const r = this.result();

@@ -38,7 +38,6 @@ import { requireWhileShown, startWithPlan } from './require-fields';
           <mat-hint>For example the manufacturer's insert (with its edition), a published study, or another laboratory.</mat-hint>
           <mat-error>{{ settings().statedSource.errors | fieldError: 'The source' }}</mat-error>
         </mat-form-field>
-        <p class="muted">Transference: measure 20 local healthy individuals; the interval is accepted when at most 2 of 20 fall outside it.</p>
       </section>
     </div>
   `,

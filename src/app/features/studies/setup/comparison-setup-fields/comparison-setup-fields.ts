@@ -5,6 +5,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { startWith, switchMap } from 'rxjs';
+import { DayDates } from '../../../../ui/day-dates';
 import { FieldErrorPipe } from '../../../../ui/field-error';
 import type { StudyCatalog } from '../../api/catalog-api';
 import { DIFFERENCE_LABELS, REGRESSION_LABELS, usesDemingRatio } from '../../study-text';
@@ -16,7 +17,7 @@ import type { SetupGroup } from '../setup-form-group';
   templateUrl: './comparison-setup-fields.html',
   styleUrl: '../setup-form.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatSelectModule, FieldErrorPipe],
+  imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatSelectModule, FieldErrorPipe, DayDates],
 })
 export class ComparisonSetupFields {
   readonly form = input.required<SetupGroup>();

@@ -1,7 +1,7 @@
 import { gridCommand } from './grid-keys';
 
-const key = (k: string, mods: Partial<{ altKey: boolean; ctrlKey: boolean; metaKey: boolean }> = { altKey: true }) => ({
-  key: k, altKey: false, ctrlKey: false, metaKey: false, ...mods,
+const key = (k: string, mods: Partial<{ altKey: boolean; ctrlKey: boolean; metaKey: boolean; shiftKey: boolean }> = { altKey: true }) => ({
+  key: k, altKey: false, ctrlKey: false, metaKey: false, shiftKey: false, ...mods,
 });
 
 describe('gridCommand', () => {
@@ -17,5 +17,20 @@ describe('gridCommand', () => {
     expect(gridCommand(key('n', {}))).toBeNull();
     expect(gridCommand(key('ArrowUp', { altKey: true, ctrlKey: true }))).toBeNull();
     expect(gridCommand(key('x'))).toBeNull();
+  });
+
+  it('reads Ctrl+Z as undo, and Ctrl+Y or Ctrl+Shift+Z as redo (⌘ on a Mac)', () => {
+    expect(gridCommand(key('z', { ctrlKey: true }))).toBe('undo');
+    expect(gridCommand(key('z', { metaKey: true }))).toBe('undo');
+    expect(gridCommand(key('y', { ctrlKey: true }))).toBe('redo');
+    expect(gridCommand(key('Z', { ctrlKey: true, shiftKey: true }))).toBe('redo');
+    expect(gridCommand(key('z', { metaKey: true, shiftKey: true }))).toBe('redo');
+  });
+
+  it('leaves other Ctrl keys, and Ctrl+Alt (AltGr) with Z, to the grid and the browser', () => {
+    expect(gridCommand(key('v', { ctrlKey: true }))).toBeNull();
+    expect(gridCommand(key('z', { ctrlKey: true, altKey: true }))).toBeNull();
+    expect(gridCommand(key('z', {}))).toBeNull();
+    expect(gridCommand(key('Y', { ctrlKey: true, shiftKey: true }))).toBeNull();
   });
 });

@@ -10,6 +10,7 @@ import { StudyStore } from '../../study/study-store';
 import type { PasteOutcome } from '../apply-paste';
 import { allProblems } from '../row-validation';
 import { SaveState } from '../save-state/save-state';
+import { resultHeadings } from '../specimen-columns';
 import { GridRow, isBlank } from '../specimen-layout';
 import { SpecimenGrid } from '../specimen-grid/specimen-grid';
 import { SpecimensStore } from '../specimens-store';
@@ -35,6 +36,8 @@ export class SpecimensTab {
   private readonly rules = computed(() => ({ canBeNegative: this.study.study()?.canBeNegative ?? true, decimalMark: this.store.decimalMark() }));
   protected readonly problems = computed(() => allProblems(this.store.rows(), this.store.layout, this.rules()));
   protected readonly summary = computed(() => problemSummary(this.problems()));
+  /** The result columns' headers: method and unit, with the instrument on hover. */
+  protected readonly headings = computed(() => resultHeadings(this.study.study()));
   /** Rows with anything entered (an empty row is not saved). */
   protected readonly counted = computed(() => this.store.rows().filter((row) => !isBlank(row, this.store.layout)).length);
   /** Local checks first; a cell the server refused, and no local check explains, shows the server's words. */
@@ -63,7 +66,7 @@ export class SpecimensTab {
 
   protected deleted(change: { count: number; before: GridRow[] }): void {
     const ref = this.snackBar.open(`${change.count === 1 ? 'One row' : `${change.count} rows`} deleted.`, 'Undo', { duration: 8000 });
-    ref.onAction().subscribe(() => this.store.replaceRows(change.before));
+    ref.onAction().subscribe(() => this.store.undoDeletion(change.before));
   }
 
   protected reload(): void {

@@ -9,6 +9,9 @@ describe('pasteSummary', () => {
     expect(pasteSummary({ rows: [], written: 1, added: 0, skippedHeader: false, ignoredCells: 2 })).toBe(
       'Pasted 1 row; 2 cells beyond the last column were left out.',
     );
+    expect(pasteSummary({ rows: [], written: 2, added: 2, skippedHeader: false, ignoredCells: 1 })).toBe(
+      'Pasted 2 rows (2 new); 1 cell beyond the last column was left out.',
+    );
   });
 });
 
@@ -17,6 +20,10 @@ describe('problemSummary', () => {
 
   it('is null when every row is fine', () => {
     expect(problemSummary([])).toBeNull();
+  });
+
+  it('says "1 problem" for one', () => {
+    expect(problemSummary([problem(3)])?.title).toBe('1 problem');
   });
 
   it('lists the first problems by row and counts the rest', () => {

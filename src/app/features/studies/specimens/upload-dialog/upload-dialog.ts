@@ -9,9 +9,10 @@ import { MatSelectModule } from '@angular/material/select';
 import type { SpecimenRows, UploadPreview } from '../../../../../../shared/schemas';
 import { ApiError } from '../../../../core/http/api-error';
 import { ErrorBanner } from '../../../../ui/error-banner';
+import { PluralPipe } from '../../../../ui/plural';
 import { SpecimensApi } from '../../api/specimens-api';
 import type { SpecimenLayout } from '../specimen-layout';
-import { mappableFields, mappingProblems, startingMapping } from './upload-mapping';
+import { defaultMode, importWarnings, labelCheckOf, mappableFields, mappingProblems, startingMapping } from './upload-mapping';
 
 export interface UploadDialogData {
   studyId: number;
@@ -27,7 +28,7 @@ export interface UploadDialogData {
   templateUrl: './upload-dialog.html',
   styleUrl: './upload-dialog.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [MatDialogModule, MatButtonModule, MatFormFieldModule, MatSelectModule, MatRadioModule, MatIconModule, MatProgressBarModule, ErrorBanner],
+  imports: [MatDialogModule, MatButtonModule, MatFormFieldModule, MatSelectModule, MatRadioModule, MatIconModule, MatProgressBarModule, ErrorBanner, PluralPipe],
 })
 export class UploadDialog {
   protected readonly data = inject<UploadDialogData>(MAT_DIALOG_DATA);
@@ -36,8 +37,22 @@ export class UploadDialog {
   protected readonly fields = mappableFields(this.data.layout);
   protected readonly preview = signal<UploadPreview | null>(null);
   protected readonly mapping = signal<Record<string, string>>({});
-  /** Adding is the safe choice when the grid already holds rows; replacing them is one click away. */
-  protected readonly mode = signal<'replace' | 'append'>(this.data.rowCount > 0 ? 'append' : 'replace');
+  /** The user's choice of replace or append, once made. */
+  private readonly chosenMode = signal<'replace' | 'append' | null>(null);
+  /** What the label column would repeat, per the server's check of the file. */
+  protected readonly labelCheck = computed(() => {
+    const preview = this.preview();
+    return preview ? labelCheckOf(preview, this.mapping()) : null;
+  });
+  /**
+   * Adding is the safe choice when the grid already holds rows, unless the file repeats most of the study's labels:
+   * then it is most likely the same rows again, and replacing them is. Either is one click away.
+   */
+  protected readonly mode = computed(() => this.chosenMode() ?? defaultMode(this.data.rowCount, this.labelCheck()));
+  protected readonly warnings = computed(() => {
+    const preview = this.preview();
+    return preview ? importWarnings(this.fields, preview, this.mapping()) : [];
+  });
   protected readonly busy = signal(false);
   protected readonly problem = signal<string | null>(null);
   protected readonly problems = computed(() => mappingProblems(this.fields, this.mapping()));
@@ -51,6 +66,7 @@ export class UploadDialog {
       next: (preview) => {
         this.busy.set(false);
         this.preview.set(preview);
+        this.chosenMode.set(null);
         this.mapping.set(startingMapping(this.fields, preview.suggestedMapping, preview.columns));
       },
       error: (err: ApiError) => {
@@ -59,6 +75,10 @@ export class UploadDialog {
       },
     });
     input.value = '';
+  }
+
+  protected chooseMode(mode: 'replace' | 'append'): void {
+    this.chosenMode.set(mode);
   }
 
   protected map(field: string, column: string): void {

@@ -1,3 +1,5 @@
+import type { LabelCheck, UploadPreview } from '../../../../../../shared/schemas';
+import { notMappedNotes } from '../../../../../../shared/types/mapping-notes';
 import type { SpecimenLayout } from '../specimen-layout';
 
 /** A field a file column can be mapped to; results must be mapped, the others may be. */
@@ -28,4 +30,26 @@ export function mappingProblems(fields: readonly MappableField[], mapping: Recor
   const twice = used.filter((c, i) => used.indexOf(c) !== i);
   for (const column of new Set(twice)) problems.push(`The column "${column}" is mapped to more than one field.`);
   return problems;
+}
+
+/** The server's check of the column now mapped to the label (labels it would repeat), if it found any. */
+export function labelCheckOf(preview: UploadPreview, mapping: Record<string, string>): LabelCheck | null {
+  const column = mapping['label'];
+  return (column && preview.labelChecks?.[column]) || null;
+}
+
+/**
+ * What the preview warns of for the mapping as it stands: the labels its label column repeats (the study's, or
+ * the file's own), then the optional fields left without a column ("Not mapped: specimen label — …").
+ */
+export function importWarnings(fields: readonly MappableField[], preview: UploadPreview, mapping: Record<string, string>): string[] {
+  return [...(labelCheckOf(preview, mapping)?.warnings ?? []), ...notMappedNotes(fields.map((f) => f.field), mapping)];
+}
+
+/**
+ * Until the user chooses: add after the rows when the grid holds some, but replace them when the file repeats
+ * most of the study's labels (it is most likely the same rows again), and replace an empty grid.
+ */
+export function defaultMode(rowCount: number, check: LabelCheck | null): 'replace' | 'append' {
+  return rowCount > 0 && !check?.repeatsMostOfStudy ? 'append' : 'replace';
 }

@@ -4,6 +4,7 @@ import { ComparisonFindingsResult, Units, stepWords } from '../comparison-result
 import { formatNumber, formatP, levelLabel } from '../number-format';
 import { agreementRows, regressionName, regressionRows } from '../summary-rows';
 import { NO_P_VALUE } from '../verdict-wording';
+import { PluralPipe } from '../../../../../ui/plural';
 
 /** (c) The tables: bias and agreement, the tests of the differences, and the regression. */
 @Component({
@@ -11,6 +12,7 @@ import { NO_P_VALUE } from '../verdict-wording';
   templateUrl: './estimate-tables.html',
   styleUrl: './estimate-tables.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
+  imports: [PluralPipe],
 })
 export class EstimateTables {
   readonly result = input.required<ComparisonFindingsResult>();

@@ -11,7 +11,13 @@ import { sensitivityRows } from '../summary-rows';
     <section class="panel" aria-labelledby="sensitivity-heading" data-testid="sensitivity-panel">
       <h2 id="sensitivity-heading">With and without the excluded rows</h2>
       @if (rows(); as rows) {
-        <p class="muted">{{ excluded() }} The findings above leave {{ result().excluded.count === 1 ? 'it' : 'them' }} out; here the main estimates are shown both ways.</p>
+        @if (reasonsHere()) {
+          <p class="muted">{{ excluded() }}</p>
+          <ng-content />
+          <p class="muted">The findings above leave {{ result().excluded.count === 1 ? 'it' : 'them' }} out; here the main estimates are shown both ways.</p>
+        } @else {
+          <p class="muted">{{ excluded() }} The findings above leave {{ result().excluded.count === 1 ? 'it' : 'them' }} out; here the main estimates are shown both ways.</p>
+        }
         <div class="table-scroll">
           <table>
             <thead><tr><th scope="col">Estimate (CI)</th><th scope="col" class="num">Without the excluded rows</th><th scope="col" class="num">With every row</th></tr></thead>
@@ -31,6 +37,8 @@ import { sensitivityRows } from '../summary-rows';
 export class SensitivityPanel {
   readonly result = input.required<ComparisonFindingsResult>();
   readonly units = input.required<Units>();
+  /** True where the page lists the reasons inside this panel (the review, which has no Specimens tab). */
+  readonly reasonsHere = input(false);
 
   protected readonly rows = computed(() => {
     const r = this.result();
@@ -38,6 +46,7 @@ export class SensitivityPanel {
   });
   protected readonly excluded = computed(() => {
     const count = this.result().excluded.count;
+    if (this.reasonsHere()) return count === 1 ? 'One row is excluded, for this reason:' : `${count} rows are excluded, for these reasons:`;
     return count === 1 ? 'One row is excluded; its reason is on the Specimens tab.' : `${count} rows are excluded; their reasons are on the Specimens tab.`;
   });
 }

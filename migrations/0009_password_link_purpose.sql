@@ -1,0 +1,1 @@
+ALTER TABLE "password_links" ADD COLUMN "purpose" text DEFAULT 'invitation' NOT NULL;
