@@ -39,13 +39,17 @@ test('importing the same file twice warns of the repeated labels and suggests re
   await expect(page.getByTestId('mode-replace').locator('input')).toBeChecked();
   await page.getByTestId('upload-import').click();
   await expect(page.getByTestId('row-count')).toHaveText('45 rows');
+  await closeNotice(page);
 
   // The same file again: the preview names the repeats and suggests replacing instead of adding after the rows.
   await openImport(page);
   await expect(page.getByTestId('upload-warnings')).toHaveText('warning_amber 45 rows repeat labels already in the study (IM-001, IM-002, IM-003, IM-004, IM-005 and 40 more)');
   await expect(page.getByTestId('repeat-advice')).toBeVisible();
   await expect(page.getByTestId('mode-replace').locator('input')).toBeChecked();
-  await closeNotice(page);
+  // A notice that came up meanwhile is dismissed by its own button (the dialog's backdrop covers the page).
+  const notice = page.locator('mat-snack-bar-container');
+  if (await notice.count()) await notice.getByRole('button').dispatchEvent('click');
+  await expect(notice).toHaveCount(0);
   const dialog = page.locator('mat-dialog-container');
   await dialog.screenshot({ path: path.join(SCREENSHOTS, 'import-preview-repeats.png') });
   await page.getByTestId('repeat-advice').scrollIntoViewIfNeeded();
