@@ -1,30 +1,15 @@
-import { expect, test, type Page } from '@playwright/test';
-import path from 'node:path';
+import { expect, test } from '@playwright/test';
+import { shoot, signInHere } from './fixtures/pages';
 import { navigationFor } from '../src/app/core/layout/navigation';
 
-const SCREENSHOTS = path.resolve(__dirname, '../.test-output/screenshots');
 
-async function shoot(page: Page, name: string): Promise<void> {
-  await page.evaluate(async () => {
-    await document.fonts.ready;
-    await Promise.all(document.getAnimations().map((animation) => animation.finished.catch(() => undefined)));
-  });
-  await page.screenshot({ path: `${SCREENSHOTS}/${name}.png` });
-}
-
-async function signIn(page: Page, email: string, password: string): Promise<void> {
-  await page.getByTestId('email').fill(email);
-  await page.getByTestId('password').fill(password);
-  await page.getByTestId('sign-in').click();
-  await expect(page.getByTestId('welcome')).toBeVisible();
-}
 
 test('an administrator invites a technologist, who sets a password from the e-mail and signs in', async ({ page }) => {
   const email = `new.tech.${Date.now()}@valeharbor.example`;
   const password = `harbour-${Date.now()}-lights`;
 
   await page.goto('/sign-in');
-  await signIn(page, 'admin@valeharbor.example', 'parallax-demo');
+  await signInHere(page, 'admin@valeharbor.example', 'parallax-demo');
   await page.getByTestId('nav-users').click();
   await page.getByTestId('invite-user').click();
   const dialog = page.getByRole('dialog');
@@ -61,7 +46,7 @@ test('an administrator invites a technologist, who sets a password from the e-ma
   await expect(page).toHaveURL(/\/sign-in/);
   await expect(page.getByTestId('email')).toHaveValue(email);
   await expect(page.getByText('Your password is set.')).toBeVisible();
-  await signIn(page, email, password);
+  await signInHere(page, email, password);
   await expect(page.getByTestId('user-name')).toHaveText('Noor Newcomer');
   const shown = await page.locator('nav [data-testid^="nav-"]').evaluateAll((links) => links.map((a) => a.getAttribute('data-testid')));
   expect(shown).toEqual(navigationFor(['technologist']).map((item) => `nav-${item.id}`));

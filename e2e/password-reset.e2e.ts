@@ -1,22 +1,7 @@
-import { expect, test, type APIRequestContext, type Page } from '@playwright/test';
-import path from 'node:path';
+import { expect, test, type APIRequestContext } from '@playwright/test';
+import { shoot, signInHere } from './fixtures/pages';
 
-const SCREENSHOTS = path.resolve(__dirname, '../.test-output/screenshots');
 
-async function shoot(page: Page, name: string): Promise<void> {
-  await page.evaluate(async () => {
-    await document.fonts.ready;
-    await Promise.all(document.getAnimations().map((animation) => animation.finished.catch(() => undefined)));
-  });
-  await page.screenshot({ path: `${SCREENSHOTS}/${name}.png` });
-}
-
-async function signIn(page: Page, email: string, password: string): Promise<void> {
-  await page.getByTestId('email').fill(email);
-  await page.getByTestId('password').fill(password);
-  await page.getByTestId('sign-in').click();
-  await expect(page.getByTestId('welcome')).toBeVisible();
-}
 
 /** The administrator's API session (its own cookies, apart from the page's): for setting up a user and reading the mailbox. */
 async function adminApi(request: APIRequestContext) {
@@ -72,7 +57,7 @@ test('a technologist who forgot the password asks for a link, sets a new passwor
   await expect(page).toHaveURL(/\/sign-in/);
   await expect(page.getByTestId('email')).toHaveValue(email);
   await expect(page.getByText('Your password is set.')).toBeVisible();
-  await signIn(page, email, password);
+  await signInHere(page, email, password);
   await expect(page.getByTestId('user-name')).toHaveText('Rhea Forgetful');
 
   // The link works once.
@@ -85,7 +70,7 @@ test('an administrator sends a user a password link from the user list', async (
   const email = await api.userWithPassword('Otto Locked', `old-harbour-${Date.now()}`);
 
   await page.goto('/sign-in');
-  await signIn(page, 'admin@valeharbor.example', 'parallax-demo');
+  await signInHere(page, 'admin@valeharbor.example', 'parallax-demo');
   await page.getByTestId('nav-users').click();
   const row = page.getByTestId(`user-${email}`);
   await row.getByTestId('user-actions').click();
@@ -99,7 +84,7 @@ test('an administrator sends a user a password link from the user list', async (
   // The next person to sign in on this browser does not see the administrator's "You are signed out.".
   await page.getByTestId('sign-out').click();
   await expect(page).toHaveURL(/\/sign-in/);
-  await signIn(page, 'tech@valeharbor.example', 'parallax-demo');
+  await signInHere(page, 'tech@valeharbor.example', 'parallax-demo');
   await expect(page.getByText('You are signed out.')).toHaveCount(0);
   await page.goto(link);
   await expect(page.getByRole('heading', { name: 'Choose a new password' })).toBeVisible();

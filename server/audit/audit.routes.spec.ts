@@ -2,7 +2,7 @@ import ExcelJS from 'exceljs';
 import { eq, sql } from 'drizzle-orm';
 import { studies } from '../db/schema';
 import { analysedComparison, createComparison, inventedPairs } from '../test/fixtures';
-import { binary, Harness, signedIn, startHarness } from '../test/harness';
+import { binary, Harness, signedIn, startHarness, signedStudy } from '../test/harness';
 
 let h: Harness;
 beforeAll(async () => { h = await startHarness({}, { jobs: true }); });
@@ -11,14 +11,6 @@ afterAll(() => h.close());
 type Session = Awaited<ReturnType<typeof signedIn>>;
 const post = (s: Session, path: string, body: object = {}) => s.agent.post(`/api/v1${path}`).set('X-XSRF-TOKEN', s.xsrf).send(body);
 
-async function signedStudy(title: string) {
-  const tech = await signedIn(h, 'tech@valeharbor.example');
-  const director = await signedIn(h, 'director@valeharbor.example');
-  const study = await analysedComparison(h, tech, title);
-  await post(tech, `/studies/${study.id}/submit`).expect(200);
-  await post(director, `/studies/${study.id}/sign`, { meaning: 'accepted', password: 'parallax-demo' }).expect(200);
-  return study.id;
-}
 
 /** As the database owner, with triggers off: what an intruder with direct access could do. */
 const asOwnerWithoutTriggers = (statement: ReturnType<typeof sql>) =>
@@ -31,7 +23,7 @@ const asOwnerWithoutTriggers = (statement: ReturnType<typeof sql>) =>
 describe('archive', () => {
   it('filters, sorts and pages on the server, with verdict and signer', async () => {
     const tag = `Archive ${Date.now()}`;
-    const id = await signedStudy(`${tag} signed`);
+    const id = await signedStudy(h, `${tag} signed`);
     const quality = await signedIn(h, 'quality@valeharbor.example');
     const page = await quality.agent.get('/api/v1/archive').query({ q: tag, state: 'signed' }).expect(200);
     expect(page.body.total).toBe(1);
@@ -48,7 +40,7 @@ describe('archive', () => {
   });
 
   it('exports the list and one study\'s full record as .xlsx that reads back', async () => {
-    const id = await signedStudy(`Export ${Date.now()}`);
+    const id = await signedStudy(h, `Export ${Date.now()}`);
     const quality = await signedIn(h, 'quality@valeharbor.example');
     const list = await quality.agent.get('/api/v1/archive/export.xlsx').buffer(true).parse(binary).expect(200);
     const wb = new ExcelJS.Workbook();
@@ -87,7 +79,7 @@ describe('exports of what users typed', () => {
 
 describe('re-checks', () => {
   it('passes integrity and reproducibility for an untouched signed study', async () => {
-    const id = await signedStudy(`Intact ${Date.now()}`);
+    const id = await signedStudy(h, `Intact ${Date.now()}`);
     const quality = await signedIn(h, 'quality@valeharbor.example');
     const integrity = await post(quality, `/studies/${id}/integrity-check`).expect(200);
     expect(integrity.body.checks.map((c: { name: string; passed: boolean }) => [c.name, c.passed])).toEqual([
@@ -99,7 +91,7 @@ describe('re-checks', () => {
   });
 
   it('fails the content-hash check after a row is changed behind the application\'s back', async () => {
-    const id = await signedStudy(`Tampered row ${Date.now()}`);
+    const id = await signedStudy(h, `Tampered row ${Date.now()}`);
     await asOwnerWithoutTriggers(sql`UPDATE specimens SET candidate = candidate + 0.5, candidate_text = 'tampered' WHERE study_id = ${id} AND position = 7`);
     const quality = await signedIn(h, 'quality@valeharbor.example');
     const report = (await post(quality, `/studies/${id}/integrity-check`).expect(200)).body;
@@ -108,7 +100,7 @@ describe('re-checks', () => {
   });
 
   it('fails the chain check after an audit event is edited behind the application\'s back', async () => {
-    const id = await signedStudy(`Tampered history ${Date.now()}`);
+    const id = await signedStudy(h, `Tampered history ${Date.now()}`);
     const [study] = await h.database.db.select().from(studies).where(eq(studies.id, id));
     await asOwnerWithoutTriggers(sql`UPDATE audit_events SET reason = 'rewritten' WHERE id = (SELECT min(id) FROM audit_events WHERE study_id = ${study.id})`);
     const quality = await signedIn(h, 'quality@valeharbor.example');
@@ -119,7 +111,7 @@ describe('re-checks', () => {
   });
 
   it('shows a study\'s history in words and the laboratory history with filters', async () => {
-    const id = await signedStudy(`History ${Date.now()}`);
+    const id = await signedStudy(h, `History ${Date.now()}`);
     const quality = await signedIn(h, 'quality@valeharbor.example');
     const events = (await quality.agent.get(`/api/v1/studies/${id}/history`).expect(200)).body;
     expect(events.map((e: { headline: string }) => e.headline)).toEqual(expect.arrayContaining(['Submitted for sign-off', 'Signed: accepted for patient testing']));

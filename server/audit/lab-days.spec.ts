@@ -3,7 +3,7 @@ import { eq, inArray } from 'drizzle-orm';
 import { laboratoryDate, laboratoryTime } from '../../shared/types/lab-time';
 import { laboratories, mailMessages, mailOutbox, studies } from '../db/schema';
 import { analysedComparison, createComparison } from '../test/fixtures';
-import { anonymous, binary, Harness, signedIn, startHarness, uniqueEmail } from '../test/harness';
+import { anonymous, binary, Harness, signedIn, startHarness, uniqueEmail, signedStudy } from '../test/harness';
 
 /**
  * One clock: the laboratory's zone (Vale Harbor keeps America/Halifax) governs the date filters of the
@@ -17,14 +17,6 @@ const HALIFAX = 'America/Halifax';
 type Session = Awaited<ReturnType<typeof signedIn>>;
 const post = (s: Session, path: string, body: object = {}) => s.agent.post(`/api/v1${path}`).set('X-XSRF-TOKEN', s.xsrf).send(body);
 
-async function signedStudy(title: string): Promise<number> {
-  const tech = await signedIn(h, 'tech@valeharbor.example');
-  const director = await signedIn(h, 'director@valeharbor.example');
-  const study = await analysedComparison(h, tech, title);
-  await post(tech, `/studies/${study.id}/submit`).expect(200);
-  await post(director, `/studies/${study.id}/sign`, { meaning: 'accepted', password: 'parallax-demo' }).expect(200);
-  return study.id;
-}
 
 /**
  * Four drafts around the start of summer time in Halifax (2026-03-08, clocks 02:00 AST → 03:00 ADT),
@@ -69,7 +61,7 @@ describe("date filters count the laboratory's days", () => {
   });
 
   it("the archive's signed dates and the laboratory history follow the laboratory's zone, not the UTC day", async () => {
-    const id = await signedStudy(`Clock signed ${Date.now()}`);
+    const id = await signedStudy(h, `Clock signed ${Date.now()}`);
     const quality = await signedIn(h, 'quality@valeharbor.example');
     const [signature] = (await quality.agent.get(`/api/v1/studies/${id}/signatures`).expect(200)).body as { signedAt: string }[];
     const signedAt = new Date(signature.signedAt);
@@ -108,7 +100,7 @@ function table(ws: ExcelJS.Worksheet): Record<string, unknown>[] {
 describe('exports keep the UTC instant beside the laboratory time', () => {
   it('writes every time twice in the archive list and in the study record: Halifax time with its zone named, and the UTC instant', async () => {
     const title = `Clock export ${Date.now()}`;
-    const id = await signedStudy(title);
+    const id = await signedStudy(h, title);
     const quality = await signedIn(h, 'quality@valeharbor.example');
     const [item] = (await quality.agent.get('/api/v1/archive').query({ q: title }).expect(200)).body.items as { signedAt: string; createdAt: string }[];
 
@@ -136,7 +128,7 @@ describe('exports keep the UTC instant beside the laboratory time', () => {
 
 describe('the verification code printed on a signed PDF', () => {
   it('finds its study in the archive search, typed as printed, in lower case, without separators or without PX', async () => {
-    const id = await signedStudy(`Clock code ${Date.now()}`);
+    const id = await signedStudy(h, `Clock code ${Date.now()}`);
     const quality = await signedIn(h, 'quality@valeharbor.example');
     const signatures = (await quality.agent.get(`/api/v1/studies/${id}/signatures`).expect(200)).body as { verificationCode: string }[];
     const code = signatures[signatures.length - 1].verificationCode;
@@ -159,7 +151,7 @@ describe("e-mails print times in the laboratory's zone, named", () => {
 
   it('tells the directors when a study was submitted and the author when it was signed', async () => {
     const title = `Clock mail ${Date.now()}`;
-    await signedStudy(title);
+    await signedStudy(h, title);
     const queued = await h.database.db.select().from(mailOutbox).where(inArray(mailOutbox.subject, [`Awaiting your signature: ${title}`, `Signed: ${title}`]));
     const submitted = queued.find((m) => m.subject.startsWith('Awaiting'))!;
     const signed = queued.find((m) => m.subject.startsWith('Signed'))!;

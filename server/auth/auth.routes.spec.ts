@@ -1,6 +1,6 @@
 import { eq } from 'drizzle-orm';
 import { auditEvents, users } from '../db/schema';
-import { anonymous, freshDatabase, Harness, signedIn, startHarness, uniqueEmail } from '../test/harness';
+import { anonymous, freshDatabase, Harness, signedIn, startHarness, uniqueEmail, queriesDuring } from '../test/harness';
 import { hashPassword } from './passwords';
 
 let h: Harness;
@@ -112,28 +112,11 @@ describe('sign-in and sessions', () => {
 });
 
 describe('the account behind a session', () => {
-  /** The SQL the app sends while `run` runs (the app and the test share one pool). */
-  async function queriesDuring(run: () => Promise<unknown>): Promise<string[]> {
-    const pool = h.database.pool as unknown as { query: (...args: unknown[]) => unknown };
-    const original = pool.query;
-    const seen: string[] = [];
-    pool.query = function (this: unknown, ...args: unknown[]) {
-      const q = args[0] as string | { text: string };
-      seen.push(typeof q === 'string' ? q : q.text);
-      return original.apply(this, args);
-    };
-    try {
-      await run();
-    } finally {
-      pool.query = original;
-    }
-    return seen;
-  }
 
   it('reads the session and its account in one statement, the account as it is now', async () => {
     const u = await makeUser(['technologist']);
     const s = await signedIn(h, u.email, 'a-long-test-password');
-    const sent = await queriesDuring(() => s.agent.get('/api/v1/session').expect(200));
+    const sent = await queriesDuring(h, () => s.agent.get('/api/v1/session').expect(200));
     expect(sent.filter((q) => /\bsession\b/.test(q) && /\busers\b/.test(q))).toHaveLength(1);
     expect(sent.filter((q) => /from "users"/i.test(q))).toHaveLength(0);
     // A role given or taken away counts from the next request, not from the next sign-in.

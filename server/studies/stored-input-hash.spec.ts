@@ -2,7 +2,7 @@ import { eq, sql } from 'drizzle-orm';
 import { specimens, studies } from '../db/schema';
 import { studyInputHash } from '../specimens/input-hash';
 import { analysedComparison, createComparison, inventedPairs } from '../test/fixtures';
-import { Harness, signedIn, startHarness } from '../test/harness';
+import { Harness, signedIn, startHarness, queriesDuring } from '../test/harness';
 
 /**
  * Reads do not load rows: the study keeps the hash of its analysed rows and settings (and its included
@@ -17,23 +17,6 @@ const stored = async (id: number) => (await h.database.db.select().from(studies)
 const fresh = async (id: number) => studyInputHash(h.database.db, await stored(id));
 const findings = async (s: Session, id: number) => (await s.agent.get(`/api/v1/studies/${id}`).expect(200)).body.findings as string;
 
-/** The SQL the app sends while `run` runs (the app and the test share one pool). */
-async function queriesDuring(run: () => Promise<unknown>): Promise<string[]> {
-  const pool = h.database.pool as unknown as { query: (...args: unknown[]) => unknown };
-  const original = pool.query;
-  const seen: string[] = [];
-  pool.query = function (this: unknown, ...args: unknown[]) {
-    const q = args[0] as string | { text: string };
-    seen.push(typeof q === 'string' ? q : q.text);
-    return original.apply(this, args);
-  };
-  try {
-    await run();
-  } finally {
-    pool.query = original;
-  }
-  return seen;
-}
 
 it('keeps the hash and the included count with every change of rows or settings', async () => {
   const tech = await signedIn(h, 'tech@valeharbor.example');
@@ -55,7 +38,7 @@ it('lists, opens and reads an analysis of a study without loading its rows; the 
   const tech = await signedIn(h, 'tech@valeharbor.example');
   const study = await analysedComparison(h, tech, 'No rows loaded');
   const latest = (await tech.agent.get(`/api/v1/studies/${study.id}`).expect(200)).body.latestAnalysisId as number;
-  const reads = await queriesDuring(async () => {
+  const reads = await queriesDuring(h, async () => {
     await tech.agent.get('/api/v1/studies').expect(200);
     await tech.agent.get('/api/v1/worklist').expect(200);
     const opened = await tech.agent.get(`/api/v1/studies/${study.id}`).expect(200);
@@ -66,7 +49,7 @@ it('lists, opens and reads an analysis of a study without loading its rows; the 
   expect(reads.length).toBeGreaterThan(5);
   expect(reads.filter((q) => /from "specimens"/i.test(q))).toEqual([]);
   expect(reads.filter((q) => /"input"/.test(q))).toEqual([]);
-  const rowsRoute = await queriesDuring(() => tech.agent.get(`/api/v1/studies/${study.id}/specimens`).expect(200));
+  const rowsRoute = await queriesDuring(h, () => tech.agent.get(`/api/v1/studies/${study.id}/specimens`).expect(200));
   expect(rowsRoute.some((q) => /from "specimens"/i.test(q))).toBe(true);
 });
 

@@ -1,4 +1,5 @@
 import request from 'supertest';
+import { analysedComparison } from './fixtures';
 import type TestAgent from 'supertest/lib/agent';
 import { createApp, CreatedApp } from '../app';
 import { loadConfig } from '../config';
@@ -78,4 +79,32 @@ export async function freshDatabase(tag: string): Promise<{ url: string; drop: (
   await seedDemo(seed.db);
   await seed.close();
   return { url: server(name), drop: () => dropDatabase(server('postgres'), name) };
+}
+
+/** The SQL the app sends while `run` runs (the app and the test share one pool). */
+export async function queriesDuring(h: Harness, run: () => Promise<unknown>): Promise<string[]> {
+  const pool = h.database.pool as unknown as { query: (...args: unknown[]) => unknown };
+  const original = pool.query;
+  const seen: string[] = [];
+  pool.query = function (this: unknown, ...args: unknown[]) {
+    const q = args[0] as string | { text: string };
+    seen.push(typeof q === 'string' ? q : q.text);
+    return original.apply(this, args);
+  };
+  try {
+    await run();
+  } finally {
+    pool.query = original;
+  }
+  return seen;
+}
+
+/** A demo comparison entered and analysed by the technologist, submitted, and signed by the director; its id. */
+export async function signedStudy(h: Harness, title: string): Promise<number> {
+  const tech = await signedIn(h, 'tech@valeharbor.example');
+  const director = await signedIn(h, 'director@valeharbor.example');
+  const study = await analysedComparison(h, tech, title);
+  await tech.agent.post(`/api/v1/studies/${study.id}/submit`).set('X-XSRF-TOKEN', tech.xsrf).send({}).expect(200);
+  await director.agent.post(`/api/v1/studies/${study.id}/sign`).set('X-XSRF-TOKEN', director.xsrf).send({ meaning: 'accepted', password: 'parallax-demo' }).expect(200);
+  return study.id;
 }
