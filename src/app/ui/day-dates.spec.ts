@@ -76,6 +76,15 @@ describe('a date field with DayDates', () => {
     expect(control.valid).toBe(true);
   });
 
+  it('shows the form a day takes, yyyy-mm-dd, in an empty field', async () => {
+    const { fixture, input, control } = await render();
+    expect(input.getAttribute('placeholder')).toBe('yyyy-mm-dd');
+    control.setValue(null);
+    await fixture.whenStable();
+    expect(input.value).toBe('');
+    expect(input.getAttribute('placeholder')).toBe('yyyy-mm-dd');
+  });
+
   it('marks text that is not a yyyy-mm-dd day as an error and holds no day', async () => {
     const { fixture, input, control } = await render();
     input.value = '11/30/2026';

@@ -1,6 +1,7 @@
-import { Injectable, NgModule, inject } from '@angular/core';
+import { Directive, Injectable, NgModule, inject } from '@angular/core';
 import { DateAdapter, MAT_DATE_FORMATS, MatDateFormats } from '@angular/material/core';
 import { MatDatepickerModule } from '@angular/material/datepicker';
+import { MatInput } from '@angular/material/input';
 import { isCalendarDay, laboratoryDate } from '../../../shared/types/lab-time';
 import { AuthStore } from '../core/auth/auth-store';
 
@@ -150,13 +151,22 @@ const utc = (day: string): Date => {
   return at;
 };
 
+/** Every date field shows the form it takes (yyyy-mm-dd) while empty, from the one format above. */
+@Directive({ selector: 'input[matInput][matDatepicker]' })
+export class DayFieldForm {
+  constructor() {
+    // Before the input's first check, which copies its placeholder onto the element.
+    inject(MatInput).placeholder = DAY_FORMATS.display.dateInput as string;
+  }
+}
+
 /**
  * Material's date picker, configured once for yyyy-mm-dd days: import this where a page has a date field
  * (`<input matInput [matDatepicker]="p">`, `<mat-datepicker-toggle matIconSuffix [for]="p" />`, `<mat-datepicker #p />`).
  */
 @NgModule({
-  imports: [MatDatepickerModule],
-  exports: [MatDatepickerModule],
+  imports: [MatDatepickerModule, DayFieldForm],
+  exports: [MatDatepickerModule, DayFieldForm],
   providers: [{ provide: DateAdapter, useClass: DayDateAdapter }, { provide: MAT_DATE_FORMATS, useValue: DAY_FORMATS }],
 })
 export class DayDates {}
