@@ -16,6 +16,7 @@ import { healthRoutes } from './health/health.routes';
 import { errorHandler, notFoundHandler } from './http/error-handler';
 import { routerFrom, RouteSpec } from './http/routes';
 import { controlCharacters } from './http/control-characters';
+import { ReadCache, withReadCache } from './http/read-cache';
 import { xsrfProtection } from './http/xsrf';
 import { MailService } from './mail/mail-service';
 import { signoffRoutes } from './signoff/signoff.routes';
@@ -23,7 +24,7 @@ import { specimensRoutes } from './specimens/specimens.routes';
 import { studiesRoutes } from './studies/studies.routes';
 import { uploadsRoutes } from './uploads/uploads.routes';
 
-export interface CreatedApp { app: Express; ctx: AppContext; routes: RouteSpec[] }
+export interface CreatedApp { app: Express; ctx: AppContext; routes: RouteSpec[]; readCache: ReadCache | null }
 
 /** Every API route of Parallax, with the roles each allows (the role-matrix test walks this list). */
 export function apiRoutes(ctx: AppContext, passport: ReturnType<typeof configurePassport>): RouteSpec[] {
@@ -65,7 +66,9 @@ export function createApp(config: Config, database: Db): CreatedApp {
   api.use((_req, res, next) => { res.setHeader('Cache-Control', 'no-store'); next(); });
   api.use(xsrfProtection(config.sessionSecret, config.cookieSecure));
   api.use(controlCharacters);
-  const routes = apiRoutes(ctx, passport);
+  // Repeated reads of a few pure GET routes are answered from memory, keyed by the laboratory's change counter.
+  const readCache = config.readCacheBytes > 0 ? new ReadCache(config.readCacheBytes) : null;
+  const routes = withReadCache(apiRoutes(ctx, passport), readCache);
   api.use(routerFrom(routes.filter((r) => r.sessionless)));
   api.use(sessionMiddleware(database.pool, config));
   api.use(passport.session());
@@ -76,7 +79,7 @@ export function createApp(config: Config, database: Db): CreatedApp {
   serveClient(app, config);
   app.use(notFoundHandler);
   app.use(errorHandler);
-  return { app, ctx, routes };
+  return { app, ctx, routes, readCache };
 }
 
 /** The built client, if there is one (looked up per request, so a build finishing later is served). */

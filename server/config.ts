@@ -16,6 +16,7 @@ const Env = z.object({
   CLIENT_DIR: z.string().optional(),
   ANALYSIS_STALE_SECONDS: z.coerce.number().int().min(2).max(3600).default(30),
   ANALYSIS_THREADS: z.coerce.number().int().min(1).max(64).optional(),
+  READ_CACHE_MB: z.coerce.number().min(0).max(4096).default(64),
 });
 
 export type Config = {
@@ -36,6 +37,8 @@ export type Config = {
   analysisStaleSeconds: number;
   /** Analyses one process runs at once (worker threads); default one per core but one. */
   analysisThreads: number | undefined;
+  /** Bytes of answers the read cache may keep (server/http/read-cache.ts); 0 turns it off. */
+  readCacheBytes: number;
 };
 
 /** Reads the environment once; a bad value stops start-up with a message naming the variable. */
@@ -62,5 +65,6 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     clientDir: e.CLIENT_DIR,
     analysisStaleSeconds: e.ANALYSIS_STALE_SECONDS,
     analysisThreads: e.ANALYSIS_THREADS,
+    readCacheBytes: Math.floor(e.READ_CACHE_MB * 1024 * 1024),
   };
 }

@@ -6,8 +6,11 @@ import type { Role } from '../../shared/schemas';
 import type { Config } from '../config';
 import type { SignedInUser } from './session-user';
 
-/** The account a session names, read with the session itself (null: no such account). */
-interface AccountRow { id: number; laboratoryId: number; name: string; email: string; roles: Role[]; active: boolean }
+/**
+ * The account a session names, read with the session itself (null: no such account), and its laboratory's
+ * change counter as it stood at that read (null: the laboratory has none yet; see `laboratoryVersionOf`).
+ */
+interface AccountRow { id: number; laboratoryId: number; name: string; email: string; roles: Role[]; active: boolean; laboratoryVersion: string | null }
 
 const accountOfSession = new WeakMap<object, AccountRow | null>();
 const accountOfRequest = new WeakMap<Request, AccountRow | null>();
@@ -40,19 +43,26 @@ export function sessionMiddleware(pool: Pool, config: Config) {
  * Reads a session and the account it names in one round trip: the store's read joins `users`, and the
  * row is handed to that request's deserializer (`accountReadWithSession`) instead of a second query.
  * The account is read in the same statement as the session, so it is as current as a separate read.
+ * The same statement reads the account's laboratory's change counter (`laboratory_versions`, moved at the
+ * commit of every change of that laboratory by the triggers of migration 0012), so the read cache can
+ * answer a repeated read with no further round trip (`laboratoryVersionOf`, server/http/read-cache.ts).
  */
 export function readAccountWithSession(store: session.Store, pool: Pool): void {
   const create = store.createSession.bind(store);
   store.get = (sid, done) => {
-    pool.query<{ sess: session.SessionData; id: number | null; laboratory_id: number; name: string; email: string; roles: Role[]; active: boolean }>(
-      `SELECT s.sess, u.id, u.laboratory_id, u.name, u.email, u.roles, u.active
+    pool.query<{ sess: session.SessionData; id: number | null; laboratory_id: number; name: string; email: string; roles: Role[]; active: boolean; laboratory_version: string | null }>(
+      `SELECT s.sess, u.id, u.laboratory_id, u.name, u.email, u.roles, u.active, v.version AS laboratory_version
          FROM session s LEFT JOIN users u ON u.id = (CASE WHEN json_typeof(s.sess #> '{passport,user}') = 'number' THEN (s.sess #>> '{passport,user}')::int END)
+                        LEFT JOIN laboratory_versions v ON v.laboratory_id = u.laboratory_id
         WHERE s.sid = $1 AND s.expire >= now()`,
       [sid],
     ).then(({ rows: [row] }) => {
       if (!row) return done(null, null);
       const sess = typeof row.sess === 'string' ? JSON.parse(row.sess) : row.sess;
-      accountOfSession.set(sess, row.id === null ? null : { id: row.id, laboratoryId: row.laboratory_id, name: row.name, email: row.email, roles: row.roles, active: row.active });
+      accountOfSession.set(sess, row.id === null ? null : {
+        id: row.id, laboratoryId: row.laboratory_id, name: row.name, email: row.email, roles: row.roles, active: row.active,
+        laboratoryVersion: row.laboratory_version === null ? null : String(row.laboratory_version),
+      });
       done(null, sess);
     }, (err) => done(err));
   };
@@ -73,6 +83,19 @@ export function accountReadWithSession(req: Request, id: number): SignedInUser |
   if (account === null) return false;
   if (account.id !== id) return undefined;
   return account.active ? { id: account.id, laboratoryId: account.laboratoryId, name: account.name, email: account.email, roles: account.roles } : false;
+}
+
+/**
+ * The change counter of the signed-in user's laboratory as read with this request's session, or undefined
+ * when the request has no user, the account did not come with the session's read, or the laboratory has no
+ * counter yet. It was read before anything the request's handler reads, which the read cache relies on.
+ */
+export function laboratoryVersionOf(req: Request): { laboratoryId: number; version: string } | undefined {
+  const account = accountOfRequest.get(req);
+  const user = req.user;
+  if (!account || !user || !account.active || account.laboratoryVersion === null) return undefined;
+  if (account.id !== user.id || account.laboratoryId !== user.laboratoryId) return undefined;
+  return { laboratoryId: account.laboratoryId, version: account.laboratoryVersion };
 }
 
 /** Lets a store's touch (the UPDATE of a session's expiry) through at most once per `everyMs` per session. */

@@ -283,6 +283,16 @@ export const mailMessages = pgTable('mail_messages', {
   receivedAt: created(),
 });
 
+/**
+ * Each laboratory's change counter, for the read cache (server/http/read-cache.ts): triggers (migration
+ * 0012) move it forward at the commit of every transaction that changes a row of that laboratory in any
+ * table whose content an answer can show. It only ever grows; the database refuses anything else.
+ */
+export const laboratoryVersions = pgTable('laboratory_versions', {
+  laboratoryId: integer('laboratory_id').primaryKey(),
+  version: bigint('version', { mode: 'number' }).notNull().default(1),
+});
+
 /** connect-pg-simple's table, owned by the migrations. */
 export const session = pgTable('session', {
   sid: varchar('sid').primaryKey(),
