@@ -50,7 +50,7 @@ describe('archive', () => {
     const record = await quality.agent.get(`/api/v1/studies/${id}/export.xlsx`).buffer(true).parse(binary).expect(200);
     const book = new ExcelJS.Workbook();
     await book.xlsx.load(record.body);
-    expect(book.worksheets.map((w) => w.name)).toEqual(['Study', 'Rows', 'Results', 'Signatures', 'Audit history']);
+    expect(book.worksheets.map((w) => w.name)).toEqual(['Study', 'Rows', 'Results', 'All result fields', 'Signatures', 'Audit history']);
     expect(book.getWorksheet('Rows')!.rowCount).toBe(41);
     expect(book.getWorksheet('Signatures')!.getRow(2).getCell(2).value).toBe('Dr. Imani Okafor');
     const history = book.getWorksheet('Audit history')!.getColumn(4).values as string[]; // after the laboratory time and the UTC instant

@@ -13,6 +13,18 @@ import { findStudy } from '../studies/studies.repository';
 import { studyView } from '../studies/study-view';
 import { searchArchive } from './archive.service';
 import { studyHistory } from './history.service';
+import { resultsSheet } from './results-sheet';
+import type { FindingsStatus } from '../../shared/schemas';
+
+/** Whether the exported findings still match the study's rows and settings, in words. */
+const FINDINGS_WORDS: Record<FindingsStatus, string> = {
+  none: 'No analysis yet',
+  queued: 'An analysis is queued',
+  running: 'An analysis is running',
+  current: 'Current: they match the rows and settings as they are now',
+  'out-of-date': 'Out of date: rows or settings changed after this analysis',
+  failed: 'The latest analysis failed; see its error on the study',
+};
 
 /**
  * Text that a spreadsheet could take for a formula (it begins with =, +, -, @, or a tab or carriage
@@ -72,7 +84,10 @@ function flatten(v: unknown, path = '', out: { field: string; value: unknown }[]
   return out;
 }
 
-/** One study's whole record: settings, rows with exclusions and reasons, results, signatures, history. */
+/**
+ * One study's whole record: settings, rows with exclusions and reasons, the results laid out as a report
+ * (results-sheet.ts) and every stored result field, signatures, history.
+ */
 export async function exportStudy(db: Database, me: SignedInUser, studyId: number): Promise<Buffer> {
   const row = await findStudy(db, me.laboratoryId, studyId);
   const study = await studyView(db, row, me);
@@ -92,10 +107,19 @@ export async function exportStudy(db: Database, me: SignedInUser, studyId: numbe
   const [analysis] = signedId
     ? await db.select().from(analyses).where(eq(analyses.id, signedId))
     : await db.select().from(analyses).where(eq(analyses.studyId, studyId)).orderBy(desc(analyses.id)).limit(1);
-  sheet(wb, 'Results', [['Field', 'field', 50], ['Value', 'value', 40]], [
+  const settings = StudySettings.parse(row.settings);
+  const results = withRecordedWords(analysis?.results ?? null, row.settings);
+  resultsSheet(wb, study.kind, results, {
+    unit: settings.unit || study.analyteUnit, decimals: settings.decimals,
+    heading: {
+      analysis: !analysis ? 'None: the study has not been analysed' : signedId ? `Analysis ${analysis.id}, the one the signature binds` : `Analysis ${analysis.id}, the latest`,
+      findings: FINDINGS_WORDS[study.findings],
+    },
+  });
+  sheet(wb, 'All result fields', [['Field', 'field', 50], ['Value', 'value', 40]], [
     { field: 'analysis', value: analysis?.id ?? '(none)' }, { field: 'engine version', value: analysis?.engineVersion ?? '' },
     { field: 'seed', value: analysis?.seed ?? '' }, { field: 'resamples', value: analysis?.resamples ?? '' }, { field: 'input hash', value: analysis?.inputHash ?? '' },
-    ...flatten(withRecordedWords(analysis?.results ?? {}, row.settings)),
+    ...flatten(results ?? {}),
   ]);
   const zone = await labTimeZone(db, me.laboratoryId);
   sheet(wb, 'Signatures', [['Meaning', 'meaningWords', 30], ['Signed by', 'signerName', 24], ...timeColumns('Signed at', 'signedAt'), ['Comment', 'comment', 40], ['Content hash', 'contentHash', 70], ['Verification code', 'verificationCode', 16], ['PDF SHA-256', 'pdfSha256', 70]], signatureRows.map((s) => ({ ...s, ...localTimes(s, ['signedAt'], zone) })));

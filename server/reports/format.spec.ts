@@ -13,7 +13,9 @@ describe('report number formats', () => {
   it('prints intervals, estimates with CIs, p-values and levels', () => {
     expect(range([-0.19, 0.08], 2)).toBe('−0.19 to 0.08');
     expect(withCi({ estimate: 0.5, ci: [0.3, 0.6] }, 2)).toBe('0.50 (0.30 to 0.60)');
-    expect(withCi({ estimate: null, ci: null }, 2)).toBe('— (—)');
+    expect(withCi({ estimate: null, ci: null }, 2)).toBe('— (CI not available)');
+    expect(withCi({ estimate: 0.5, ci: [0.3, 0.6] }, 2, 'mmol/L')).toBe('0.50 mmol/L (0.30 to 0.60)');
+    expect(range(null, 2)).toBe('not available');
     expect(pValue(0.0004)).toBe('< 0.001');
     expect(pValue(0.0431)).toBe('0.043');
     expect(percent(0.95)).toBe('95%');

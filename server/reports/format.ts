@@ -1,28 +1,19 @@
 /**
- * Number formats of the report: a fixed number of decimals, a true minus sign (U+2212), an em dash
- * for a value that is not available, p-values to three decimals with a floor of "< 0.001".
+ * Number formats of the report: the findings' one rule (shared/types/findings-numbers.ts), so the PDF
+ * prints what the findings page shows: a fixed number of decimals, a true minus sign (U+2212), an em dash
+ * for a value that is not available, "not available" for a CI that could not be formed, p-values to three
+ * decimals with a floor of "< 0.001".
  */
-export const NOT_AVAILABLE = '—';
-const MINUS = '\u2212';
+import { estimateWithCi, formatCi, formatNumber, formatP, NOT_AVAILABLE, withUnit as unitAfter } from '../../shared/types/findings-numbers';
 
-export function num(value: number | null | undefined, decimals: number): string {
-  if (value === null || value === undefined || !Number.isFinite(value)) return NOT_AVAILABLE;
-  const text = value.toFixed(decimals);
-  // -0.00 prints as 0.00: a rounded zero has no sign.
-  if (/^-0(\.0+)?$/.test(text)) return text.slice(1);
-  return text.startsWith('-') ? MINUS + text.slice(1) : text;
-}
+export { NOT_AVAILABLE };
 
-/** "a to b", or the dash when the interval is missing. */
-export function range(interval: readonly [number, number] | null | undefined, decimals: number): string {
-  if (!interval) return NOT_AVAILABLE;
-  return `${num(interval[0], decimals)} to ${num(interval[1], decimals)}`;
-}
+export const num = (value: number | null | undefined, decimals: number): string => formatNumber(value, decimals);
 
-export function pValue(p: number | null | undefined): string {
-  if (p === null || p === undefined || !Number.isFinite(p)) return NOT_AVAILABLE;
-  return p < 0.001 ? '< 0.001' : p.toFixed(3);
-}
+/** A CI, "a to b"; "not available" when it could not be formed. */
+export const range = (interval: readonly [number, number] | null | undefined, decimals: number): string => formatCi(interval, decimals);
+
+export const pValue = (p: number | null | undefined): string => formatP(p);
 
 /** A fraction as a percentage without trailing zeros: 0.95 → "95%", 0.975 → "97.5%". */
 export function percent(fraction: number | null | undefined): string {
@@ -31,9 +22,7 @@ export function percent(fraction: number | null | undefined): string {
 }
 
 /** A value and its unit, or the value alone when the unit is empty. */
-export function withUnit(text: string, unit: string): string {
-  return unit && text !== NOT_AVAILABLE ? `${text} ${unit}` : text;
-}
+export const withUnit = (text: string, unit: string): string => unitAfter(text, unit);
 
 export function integer(value: number | null | undefined): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return NOT_AVAILABLE;
@@ -42,7 +31,7 @@ export function integer(value: number | null | undefined): string {
 
 export const orDash = (text: string | null | undefined): string => (text && text.trim() ? text : NOT_AVAILABLE);
 
-/** "0.35 (0.21 to 0.40)": an estimate with its CI. */
-export function withCi(e: { estimate: number | null; ci: readonly [number, number] | null } | null | undefined, decimals: number): string {
-  return `${num(e?.estimate, decimals)} (${range(e?.ci, decimals)})`;
+/** "0.35 (0.21 to 0.40)": an estimate with its CI, and its unit when given, as the findings page writes it. */
+export function withCi(e: { estimate: number | null; ci: readonly [number, number] | null } | null | undefined, decimals: number, unit = ''): string {
+  return estimateWithCi(e, decimals, unit);
 }

@@ -38,7 +38,8 @@ export async function renderStudyPdf(db: Executor, study: StudyRow, analysisId: 
   const report: StudyReport = {
     laboratory: { name: lab.name, timeZone: lab.timeZone },
     study: { id: study.id, kind: study.kind as StudyKind, title: study.title, purpose: study.purpose, state: (signing.draft ? study.state : 'signed') as StudyState, supersedesId: study.supersedesId },
-    analyte: { name: analyte.name, unit: analyte.unit },
+    // The study's unit, as its findings page shows it (the analyte's unless the study changed it).
+    analyte: { name: analyte.name, unit: StudySettings.parse(study.settings).unit || analyte.unit },
     instruments: {
       comparative: await instrument(db, study.comparativeInstrumentId),
       candidate: await instrument(db, study.candidateInstrumentId),

@@ -16,6 +16,9 @@ export const StudyState = z.enum(STUDY_STATES);
 export type StudyState = z.infer<typeof StudyState>;
 export const STUDY_STATE_LABELS: Record<StudyState, string> = { draft: 'Draft', 'awaiting-signoff': 'Awaiting sign-off', signed: 'Signed' };
 
+/** The longest description of a reference population the setup form and the API accept. */
+export const POPULATION_MAX = 2000;
+
 const num = (what: string) => z.number({ error: `${what} must be a number` }).finite(`${what} must be a finite number`);
 const day = CalendarDay;
 
@@ -54,7 +57,8 @@ export const StudySettings = z.object({
   outlierRule: z.string().max(300).default('Generalized ESD on the differences (flags only; exclusion needs a reason)'),
   acceptanceRule: z.string().max(500).default('At each decision level the whole CI of the predicted bias lies within the allowable bias'),
   // reference intervals
-  populationDescription: z.string().max(2000).default(''),
+  // who the reference individuals are: record-only words (specimens/input-hash.ts), printed as the report's "Reference population"
+  populationDescription: z.string().max(POPULATION_MAX, `Keep the description of the reference population to ${POPULATION_MAX.toLocaleString('en-US')} characters`).default(''),
   percentiles: z.array(z.number().gt(0).lt(100)).min(1).max(2).default([2.5, 97.5]),
   intervalMethod: z.enum(['nonparametric', 'robust', 'parametric']).default('nonparametric'),
   partitionFields: z.array(z.enum(['sex', 'ageBand'])).default([]),

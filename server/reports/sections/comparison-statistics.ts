@@ -1,60 +1,72 @@
-import type { Estimate, TestedEstimate } from '../../../shared/stats';
-import { integer, NOT_AVAILABLE, num, percent, pValue, range } from '../format';
+import { agreementRows, BIAS_CI_WORDS, BIAS_P_WORDS, testRows, type FindingsRow } from '../../../shared/types/findings-rows';
+import { levelLabel } from '../../../shared/types/findings-numbers';
+import { regressionSection } from '../../../shared/types/regression-words';
+import { plural } from '../../../shared/types/plural';
+import { integer, num, pValue, range, withUnit } from '../format';
 import type { Layout } from '../layout';
 import type { ComparisonFindings, StudyReport } from '../report-model';
 import { drawTable, type Column } from '../table';
-import { SIZE } from '../theme';
-import { CI_WORDS } from '../words';
-import { decimalsOf, differenceUnit, stepWords } from './comparison-data';
+import { COLOR, SIZE } from '../theme';
+import { comparisonUnits, differenceUnit, stepWords } from './comparison-data';
 import { wrapAtSpaces } from '../text';
 
-const WEIGHTS = [2.4, 1, 1.5, 1.3];
-const estimateColumns = (ci: string, p: string): Column[] => [
-  { header: 'Statistic', weight: WEIGHTS[0] }, { header: 'Estimate', weight: WEIGHTS[1], align: 'right' },
-  { header: ci, weight: WEIGHTS[2], align: 'right' }, { header: p, weight: WEIGHTS[3], align: 'right' },
+const WEIGHTS = [2.4, 1.3, 1.5, 0.8];
+/**
+ * Room left when lines are broken at spaces beforehand: pdfkit wraps a word only when it fits with the space
+ * after it, so a line measured to the exact width would break once more and leave one word on a line.
+ */
+const WRAP_SLACK = 6;
+/** The width of the short labels beside the regression's sentences. */
+const STATEMENT_LABEL = 120;
+const estimateColumns = (ci: string): Column[] => [
+  { header: 'Estimate', weight: WEIGHTS[0] }, { header: 'Value', weight: WEIGHTS[1], align: 'right' },
+  { header: ci, weight: WEIGHTS[2], align: 'right' }, { header: 'p', weight: WEIGHTS[3], align: 'right' },
 ];
 
-/** Bias, spread and agreement; the paired tests; the regression line. */
+/**
+ * The statistics, in the order and words of the findings page (shared/types/findings-rows.ts and
+ * regression-words.ts): bias and agreement; how the candidate reads across the range (the regression in
+ * sentences, the correlation as a details line); the tests of the differences against zero.
+ */
 export function comparisonStatistics(layout: Layout, report: StudyReport, results: ComparisonFindings): void {
-  const d = decimalsOf(report).stat;
+  const units = comparisonUnits(report, results);
   const unit = differenceUnit(report, results);
-  const level = percent(results.settings?.level ?? report.settings.confidenceLevel);
-  const k = num(results.limitsOfAgreement?.multiplier ?? report.settings.loaMultiplier, 2);
+  const level = results.settings?.level ?? report.settings.confidenceLevel;
   const { notes } = stepWords(report, results);
   // A CI narrower than one reporting step: its words go under the estimate's label, wrapped to the label's column (less its padding).
-  const labelWidth = (layout.width * WEIGHTS[0]) / WEIGHTS.reduce((a, b) => a + b) - 8;
-  const row = (label: string, e: Estimate | TestedEstimate | undefined, decimals: number, p = '', note?: string): string[] =>
-    [note ? `${label}\n${wrapAtSpaces(layout.doc, note, SIZE.table, labelWidth)}` : label, num(e?.estimate, decimals), range(e?.ci, decimals), p];
+  const labelWidth = (layout.width * WEIGHTS[0]) / WEIGHTS.reduce((a, b) => a + b) - 8 - WRAP_SLACK;
+  const label = (name: string, note: string | undefined): string => (note ? `${name}\n${wrapAtSpaces(layout.doc, note, SIZE.table, labelWidth)}` : name);
+  const cells = (r: FindingsRow): string[] => [
+    label(r.name, notes[r.path]), r.words ?? withUnit(num(r.estimate, r.decimals), r.unit), r.ci === undefined ? '' : range(r.ci, r.decimals), r.p === undefined ? '' : pValue(r.p),
+  ];
+
   layout.heading('Statistics');
   layout.subheading(`Bias and agreement (differences in ${unit || 'result units'})`);
-  drawTable(layout, estimateColumns(`${level} CI (${CI_WORDS[results.settings?.interval ?? report.settings.interval]?.toLowerCase() ?? 'bootstrap'})`, 'p-value (bootstrap, shifted null)'), [
-    ['Pairs analysed (n)', integer(results.n), '', ''],
-    ['Pairs excluded', integer(results.excluded?.count), '', ''],
-    row('Mean bias', results.bias?.mean, d, pValue(results.bias?.mean?.pValue), notes['bias.mean']),
-    row('Median bias', results.bias?.median, d, pValue(results.bias?.median?.pValue), notes['bias.median']),
-    row('SD of the differences', results.sd, d, '', notes['sd']),
-    row(`Lower limit of agreement (mean − ${k} SD)`, results.limitsOfAgreement?.lower, d, '', notes['limitsOfAgreement.lower']),
-    row(`Upper limit of agreement (mean + ${k} SD)`, results.limitsOfAgreement?.upper, d, '', notes['limitsOfAgreement.upper']),
-  ]);
-  const sign = results.signTest;
-  const w = results.wilcoxon;
-  layout.subheading('Paired tests of the differences against zero');
-  drawTable(layout, [{ header: 'Test', weight: 2.2 }, { header: 'Result', weight: 3 }, { header: 'p-value', weight: 1, align: 'right' }], [
-    ['Sign test', sign ? `${sign.positive} positive, ${sign.negative} negative, ${sign.zeros} zero` : NOT_AVAILABLE, pValue(sign?.pValue)],
-    ['Wilcoxon signed-rank', w ? `W = ${num(w.statistic, 1)}, n = ${w.n}${w.method ? `, ${w.method} method` : ''}` : NOT_AVAILABLE, pValue(w?.pValue)],
-  ]);
-  const reg = results.regression;
-  layout.subheading('Regression (candidate y against comparative x)');
-  const ciMethod = reg?.ciMethod ? ` (${(CI_WORDS[reg.ciMethod] ?? reg.ciMethod).toLowerCase()})` : '';
-  drawTable(layout, estimateColumns(`${level} CI${ciMethod}`, 'p-value'), [
-    row('Slope b', reg?.slope, 4, '', notes['regression.slope']),
-    row('Intercept a', reg?.intercept, d, '', notes['regression.intercept']),
-    ['Linearity (Passing–Bablok cusum test)', reg?.linearityP === null || reg?.linearityP === undefined ? 'Not applicable' : linearity(reg.linearityP), '', pValue(reg?.linearityP)],
-    ['Pearson r (for reference only)', num(reg?.correlation, 4), '', ''],
-  ]);
-  layout.paragraph('A high r shows the range was wide, not that the methods agree; agreement is judged from the bias and its CI.', { size: 7.5 });
-}
+  const excluded = results.excluded?.count ?? 0;
+  const interval = results.settings?.interval ?? report.settings.interval;
+  layout.paragraph(wrapAtSpaces(layout.doc,
+    `${plural(results.n ?? 0, 'pair')} analysed${excluded ? ` (${integer(excluded)} excluded)` : ''}. CIs by ${BIAS_CI_WORDS[interval] ?? interval}; ${BIAS_P_WORDS}.`,
+    8, layout.width - WRAP_SLACK), { size: 8, color: COLOR.muted });
+  drawTable(layout, estimateColumns(`${levelLabel(level)} CI`), agreementRows(results, units).map(cells));
 
-function linearity(p: number): string {
-  return p < 0.05 ? 'Not linear' : 'No departure';
+  const reg = results.regression;
+  if (reg) {
+    const section = regressionSection({
+      regression: reg, level, units, interval: results.settings?.interval ?? report.settings.interval,
+      demingRatioConvention: results.settings?.demingRatioConvention,
+    });
+    // Lines break at spaces only, so "mmol/L" never splits at its slash.
+    const wrap = (text: string, size: number, width = layout.width): string => wrapAtSpaces(layout.doc, text, size, width - WRAP_SLACK);
+    layout.subheading(section.heading, 90);
+    layout.paragraph(wrap(section.method, 8), { size: 8, color: COLOR.muted });
+    layout.keyValues(section.statements.map((s): [string, string] => {
+      const note = s.path ? notes[s.path] : undefined;
+      return [s.label, wrap(note ? `${s.sentence} ${note}` : s.sentence, SIZE.body, layout.width - STATEMENT_LABEL)];
+    }), STATEMENT_LABEL);
+    layout.paragraph(wrap(`Details: ${section.details}`, 7.5), { size: 7.5, color: COLOR.muted });
+  }
+
+  layout.subheading('Tests of the differences against zero');
+  drawTable(layout, [{ header: 'Test', weight: 2.2 }, { header: 'Result', weight: 3 }, { header: 'p', weight: 0.8, align: 'right' }],
+    testRows(results, units).map((t) => [t.name, t.words ?? '', pValue(t.p)]));
 }

@@ -1,6 +1,8 @@
 import type { Study } from '../../../../../../shared/schemas';
 import type { ComparisonResult } from './engine-types';
 import { stepWords as wordsOfStep, type StepWords } from '../../../../../../shared/types/resolution-words';
+import { findingsDecimals } from '../../../../../../shared/types/findings-numbers';
+import type { ComparisonUnits } from '../../../../../../shared/types/findings-rows';
 
 /**
  * The results of a method-comparison analysis as the API returns them: the engine's result
@@ -26,9 +28,14 @@ export interface Units {
 
 export function unitsOf(study: Pick<Study, 'settings' | 'analyteUnit'>, result: Pick<ComparisonResult, 'differenceType'>): Units {
   const unit = study.settings.unit || study.analyteUnit;
-  const decimals = study.settings.decimals + 1;
+  const d = findingsDecimals(study.settings.decimals, result.differenceType);
   const percent = result.differenceType !== 'absolute';
-  return { unit, difference: percent ? '%' : unit, decimals, differenceDecimals: percent ? 2 : decimals, percent };
+  return { unit, difference: percent ? '%' : unit, decimals: d.stat, differenceDecimals: d.difference, percent };
+}
+
+/** The same units in the shape of the shared wording (shared/types/findings-rows.ts), which the PDF uses too. */
+export function sharedUnits(u: Units): ComparisonUnits {
+  return { unit: u.unit, difference: u.difference, decimals: { ...findingsDecimals(u.decimals - 1), difference: u.differenceDecimals } };
 }
 
 /** A value with its unit: "0.12 mmol/L", "1.5 %". */

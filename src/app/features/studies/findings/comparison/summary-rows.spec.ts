@@ -1,6 +1,6 @@
-import type { ComparisonCore } from './engine-types';
+import type { ComparisonCore, ComparisonResult } from './engine-types';
 import type { Units } from './comparison-result';
-import { agreementRows, regressionName, regressionRows, sensitivityRows } from './summary-rows';
+import { agreementRows, regressionView, sensitivityRows, testRows } from './summary-rows';
 
 const units: Units = { unit: 'mmol/L', difference: 'mmol/L', decimals: 2, differenceDecimals: 2, percent: false };
 const core = (shift = 0): ComparisonCore => ({
@@ -25,33 +25,44 @@ describe('summary rows', () => {
     expect(agreementRows(core(), { ...units, difference: '%' })[0].value).toBe('0.20 %');
   });
 
-  it('gives slope and intercept, and names λ with its convention for Deming', () => {
-    const rows = regressionRows(core(), units);
-    expect(rows.map((r) => r.name)).toEqual(['Slope', 'Intercept', 'Correlation r (for reference only)']);
-    expect(rows[0]).toMatchObject({ value: '1.012', ci: '0.990 to 1.030' });
-    expect(regressionName(core(), 'λ = σ²(x error)/σ²(y error)')).toBe('Deming, λ = 1.500 (λ = σ²(x error)/σ²(y error))');
+  const asResult = (c: ComparisonCore): ComparisonResult => ({ ...c, settings: { level: 0.95, interval: 'percentile', demingRatioConvention: 'λ = σ²(x error)/σ²(y error)' } }) as unknown as ComparisonResult;
+
+  it('says how the candidate reads across the range: slope per unit, offset, linearity, then r as details', () => {
+    const view = regressionView(asResult(core()), units);
+    expect(view.heading).toBe('How the candidate reads across the range');
+    expect(view.method).toBe('Deming regression of the candidate (y) on the comparative method (x), λ = 1.500 (λ = σ²(x error)/σ²(y error)); 95% CIs of slope and intercept: percentile bootstrap of resampled pairs.');
+    expect(view.statements.map((s) => s.label)).toEqual(['Per unit (slope)', 'Offset (intercept)', 'Straight line (linearity)']);
+    expect(view.statements[0].sentence).toBe('The candidate reads 1.2% higher per unit (slope 1.012, 95% CI 0.990 to 1.030, that is −1.0% to +3.0%). The CI includes 1: a proportional difference is not shown.');
+    expect(view.statements[1].sentence).toMatch(/^At zero the candidate reads 0\.05 mmol\/L higher, a constant offset \(intercept 0\.05 mmol\/L, 95% CI −0\.10 to 0\.20 mmol\/L\)/);
+    expect(view.details).toMatch(/^Pearson r = 0\.9988, for reference only/);
   });
 
-  it('adds the linearity test for Passing–Bablok', () => {
+  it('names the cusum test for Passing–Bablok in its linearity sentence', () => {
     const pb = core();
-    pb.regression = { ...pb.regression, method: 'passing-bablok', demingRatio: null, linearityP: 0.42 };
-    expect(regressionRows(pb, units)[2]).toEqual({ name: 'Linearity (cusum test)', value: 'no sign of deviation', ci: '', p: '0.420' });
-    pb.regression = { ...pb.regression, linearityP: 0.01 };
-    expect(regressionRows(pb, units)[2].value).toBe('deviates from a straight line');
+    pb.regression = { ...pb.regression, method: 'passing-bablok', demingRatio: null, linearityP: 0.01, ciMethod: 'rank' };
+    expect(regressionView(asResult(pb), units).statements[2].sentence).toMatch(/^The cusum test for linearity of Passing–Bablok finds the points depart from a straight line \(p = 0\.010\)/);
+  });
+
+  it('writes the tests of the differences in words', () => {
+    const result = { ...asResult(core()), signTest: { positive: 30, negative: 8, zeros: 2, pValue: 0.0003 }, wilcoxon: { statistic: 655.5, n: 38, method: 'exact', pValue: 0.0001 }, biasTests: { median: null, mean: null } } as ComparisonResult;
+    expect(testRows(result, units).map((r) => [r.name, r.value, r.p]).slice(2)).toEqual([
+      ['Sign test', '30 above zero, 8 below, 2 at zero', '< 0.001'],
+      ['Wilcoxon signed-rank test', 'V = 655.5, n = 38, exact', '< 0.001'],
+    ]);
   });
 
   it('puts the words of a CI narrower than one step beside the estimates it names, and on no other', () => {
     const notes = { 'bias.median': 'CI narrower than one reporting step (1 mmol/L): the data cannot show a difference finer than the step.', 'regression.slope': 'slope note' };
     const agreement = agreementRows(core(), units, notes);
     expect(agreement.map((r) => r.note)).toEqual([undefined, notes['bias.median'], undefined, undefined, undefined]);
-    expect(regressionRows(core(), units, notes).map((r) => r.note)).toEqual(['slope note', undefined, undefined]);
+    expect(regressionView(asResult(core()), units, notes).statements.map((r) => r.note)).toEqual(['slope note', undefined, undefined]);
     expect(agreementRows(core(), units).every((r) => r.note === undefined)).toBe(true);
   });
 
   it('marks a limited estimate in the column of the findings, not in the column with every row', () => {
     const rows = sensitivityRows(core(), core(1), units, { 'bias.median': 'x', 'decisionLevels.0': 'y' });
     expect(rows[2]).toEqual({ name: 'Median bias', main: '0.15 mmol/L (0.10 to 0.20), CI narrower than one reporting step', all: '0.15 mmol/L (0.10 to 0.20)' });
-    expect(rows.at(-1)!.main).toBe('0.13 mmol/L (0.05 to 0.20), CI narrower than one reporting step');
+    expect(rows.at(-1)!.main).toBe('0.13 mmol/L (0.05 to 0.20): within the allowable bias, CI narrower than one reporting step');
     expect(rows[1].main).toBe('0.20 mmol/L (0.10 to 0.30)');
   });
 
@@ -59,6 +70,7 @@ describe('summary rows', () => {
     const rows = sensitivityRows(core(), core(1), units);
     expect(rows[0]).toEqual({ name: 'Pairs', main: '40', all: '41' });
     expect(rows[1]).toEqual({ name: 'Mean bias', main: '0.20 mmol/L (0.10 to 0.30)', all: '1.20 mmol/L (0.10 to 0.30)' });
-    expect(rows.at(-1)).toEqual({ name: 'Bias at 7.0 mmol/L', main: '0.13 mmol/L (0.05 to 0.20)', all: '0.13 mmol/L (0.05 to 0.20)' });
+    expect(rows.at(-1)).toEqual({ name: 'Bias at 7.0 mmol/L', main: '0.13 mmol/L (0.05 to 0.20): within the allowable bias', all: '0.13 mmol/L (0.05 to 0.20): within the allowable bias' });
+    expect(rows.map((r) => r.name)).toContain('SD of the differences');
   });
 });

@@ -1,8 +1,9 @@
-import type { ComparisonCore, Estimate } from './engine-types';
-import { REGRESSION_LABELS } from '../../study-text';
-import { Units, withUnit } from './comparison-result';
+import type { ComparisonCore, ComparisonResult } from './engine-types';
+import { Units, sharedUnits } from './comparison-result';
 import { formatCi, formatNumber, formatP } from './number-format';
-import { NARROW_CI_SHORT } from '../../../../../../shared/types/resolution-words';
+import { withUnit } from '../../../../../../shared/types/findings-numbers';
+import { agreementRows as sharedAgreement, sensitivityLines, testRows as sharedTests, type FindingsRow } from '../../../../../../shared/types/findings-rows';
+import { regressionSection as sharedRegression, type RegressionSection } from '../../../../../../shared/types/regression-words';
 
 /** Words beside the estimates whose CI is narrower than one reporting step, keyed by path ('bias.median'); see narrowCiNotes. */
 export type StepNotes = Readonly<Partial<Record<string, string>>>;
@@ -17,41 +18,49 @@ export interface SummaryRow {
   note?: string;
 }
 
-function row(name: string, e: Estimate & { pValue?: number | null }, decimals: number, unit: string, note?: string): SummaryRow {
-  const line: SummaryRow = { name, value: withUnit(formatNumber(e.estimate, decimals), unit), ci: formatCi(e.ci, decimals), p: e.pValue === undefined ? '' : formatP(e.pValue) };
+/** A shared row as the page writes it; the PDF writes the same row with the same functions. */
+function asText(r: FindingsRow, notes: StepNotes): SummaryRow {
+  const line: SummaryRow = {
+    name: r.name,
+    value: r.words ?? withUnit(formatNumber(r.estimate, r.decimals), r.unit),
+    ci: r.ci === undefined ? '' : formatCi(r.ci, r.decimals),
+    p: r.p === undefined ? '' : formatP(r.p),
+  };
+  const note = notes[r.path];
   return note ? { ...line, note } : line;
 }
 
 /** Bias and agreement: mean and median bias (with their shifted-null p-values), SD, limits of agreement. */
 export function agreementRows(core: ComparisonCore, u: Units, notes: StepNotes = {}): SummaryRow[] {
-  const d = u.differenceDecimals;
-  const k = formatNumber(core.limitsOfAgreement.multiplier, 2);
-  return [
-    row('Mean bias', core.bias.mean, d, u.difference, notes['bias.mean']),
-    row('Median bias', core.bias.median, d, u.difference, notes['bias.median']),
-    row('SD of the differences', core.sd, d, u.difference, notes['sd']),
-    row(`Lower limit of agreement (mean − ${k} SD)`, core.limitsOfAgreement.lower, d, u.difference, notes['limitsOfAgreement.lower']),
-    row(`Upper limit of agreement (mean + ${k} SD)`, core.limitsOfAgreement.upper, d, u.difference, notes['limitsOfAgreement.upper']),
-  ];
+  return sharedAgreement(core, sharedUnits(u)).map((r) => asText(r, notes));
 }
 
-/** The regression: slope and intercept with CIs; the linearity test only for Passing–Bablok. */
-export function regressionRows(core: ComparisonCore, u: Units, notes: StepNotes = {}): SummaryRow[] {
-  const r = core.regression;
-  const rows = [row('Slope', r.slope, 3, '', notes['regression.slope']), row('Intercept', r.intercept, u.decimals, u.unit, notes['regression.intercept'])];
-  if (r.method === 'passing-bablok') {
-    const words = r.linearityP === null ? 'not tested' : r.linearityP < 0.05 ? 'deviates from a straight line' : 'no sign of deviation';
-    rows.push({ name: 'Linearity (cusum test)', value: words, ci: '', p: formatP(r.linearityP) });
-  }
-  rows.push({ name: 'Correlation r (for reference only)', value: formatNumber(r.correlation, 4), ci: '', p: '' });
-  return rows;
+/** The tests of the differences against zero, each with its result in words and its p-value. */
+export function testRows(result: Pick<ComparisonResult, 'biasTests' | 'signTest' | 'wilcoxon'>, u: Units): SummaryRow[] {
+  return sharedTests(result, sharedUnits(u)).map((r) => asText(r, {}));
 }
 
-/** The method's name, with λ and its convention for the Deming methods. */
-export function regressionName(core: ComparisonCore, convention: string): string {
-  const r = core.regression;
-  const name = REGRESSION_LABELS[r.method];
-  return r.demingRatio === null ? name : `${name}, λ = ${formatNumber(r.demingRatio, 3)} (${convention})`;
+/** A statement of the regression section with the reporting step's words after it, where its CI is narrower than one step. */
+export interface RegressionStatementView {
+  key: string;
+  label: string;
+  sentence: string;
+  note?: string;
+}
+
+/** The regression section, in its order and words (shared/types/regression-words.ts, which the PDF prints too). */
+export function regressionView(result: ComparisonResult, u: Units, notes: StepNotes = {}): Omit<RegressionSection, 'statements'> & { statements: RegressionStatementView[] } {
+  const section = sharedRegression({
+    regression: result.regression, level: result.settings.level, units: sharedUnits(u),
+    interval: result.settings.interval, demingRatioConvention: result.settings.demingRatioConvention,
+  });
+  return {
+    ...section,
+    statements: section.statements.map((s) => {
+      const note = s.path ? notes[s.path] : undefined;
+      return note ? { key: s.key, label: s.label, sentence: s.sentence, note } : { key: s.key, label: s.label, sentence: s.sentence };
+    }),
+  };
 }
 
 /** Main estimates side by side: without the excluded rows (the findings) and with every row. */
@@ -63,23 +72,5 @@ export interface SensitivityRow {
 
 /** `notes` name the main estimates whose CI is narrower than one step; the main column says so in short (the rows with every row are another analysis). */
 export function sensitivityRows(main: ComparisonCore, all: ComparisonCore, u: Units, notes: StepNotes = {}): SensitivityRow[] {
-  const both = (name: string, path: string, pick: (c: ComparisonCore) => Estimate, decimals: number, unit: string): SensitivityRow => {
-    const text = (e: Estimate): string => `${withUnit(formatNumber(e.estimate, decimals), unit)} (${formatCi(e.ci, decimals)})`;
-    return { name, main: notes[path] ? `${text(pick(main))}, ${NARROW_CI_SHORT}` : text(pick(main)), all: text(pick(all)) };
-  };
-  const d = u.differenceDecimals;
-  const rows: SensitivityRow[] = [
-    { name: 'Pairs', main: String(main.n), all: String(all.n) },
-    both('Mean bias', 'bias.mean', (c) => c.bias.mean, d, u.difference),
-    both('Median bias', 'bias.median', (c) => c.bias.median, d, u.difference),
-    both('Lower limit of agreement', 'limitsOfAgreement.lower', (c) => c.limitsOfAgreement.lower, d, u.difference),
-    both('Upper limit of agreement', 'limitsOfAgreement.upper', (c) => c.limitsOfAgreement.upper, d, u.difference),
-    both('Slope', 'regression.slope', (c) => c.regression.slope, 3, ''),
-    both('Intercept', 'regression.intercept', (c) => c.regression.intercept, u.decimals, u.unit),
-  ];
-  main.decisionLevels.forEach((level, i) => {
-    const at = withUnit(formatNumber(level.level, u.decimals - 1), u.unit);
-    rows.push(both(`Bias at ${at}`, `decisionLevels.${i}`, (c) => c.decisionLevels[i]?.bias ?? { estimate: null, ci: null }, u.decimals, u.unit));
-  });
-  return rows;
+  return sensitivityLines(main, all, sharedUnits(u), notes).map(({ name, main: m, all: a }) => ({ name, main: m, all: a }));
 }

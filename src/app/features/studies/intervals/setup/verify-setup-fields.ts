@@ -1,4 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
+import { toObservable, toSignal } from '@angular/core/rxjs-interop';
+import { startWith, switchMap } from 'rxjs';
+import { POPULATION_MAX } from '../../../../../../shared/schemas';
 import { ReactiveFormsModule } from '@angular/forms';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
@@ -9,7 +12,11 @@ import { IntervalMeasurementFields } from './measurement-fields';
 import { VERIFY_PLAN } from './interval-plans';
 import { requireWhileShown, startWithPlan } from './require-fields';
 
-/** The Setup fields of verifying a stated reference interval (transference): the stated limits and where they come from. */
+/**
+ * The Setup fields of verifying a stated reference interval (transference): who the local individuals are (the
+ * report's "Reference population"; words only, so changing them leaves the findings current), the stated limits and
+ * where they come from.
+ */
 @Component({
   selector: 'app-verify-setup-fields',
   styleUrls: ['../../setup/setup-form.scss', './interval-setup.scss'],
@@ -18,6 +25,16 @@ import { requireWhileShown, startWithPlan } from './require-fields';
   template: `
     <app-interval-measurement-fields [form]="form()" [catalog]="catalog()" />
     <div [formGroup]="form()">
+      <section class="section" aria-labelledby="setup-local-population" formGroupName="settings">
+        <h2 id="setup-local-population">Local reference individuals</h2>
+        <mat-form-field class="full-width">
+          <mat-label>Reference population</mat-label>
+          <textarea matInput rows="2" formControlName="populationDescription" data-testid="setup-population"></textarea>
+          <mat-hint>Who the local individuals are (age, sex, where recruited) and who was left out, e.g. healthy adult blood donors, 18–65 y; the report prints it.</mat-hint>
+          <mat-hint align="end" class="count">{{ populationLength() }} / {{ populationMax }}</mat-hint>
+          <mat-error>{{ settings().populationDescription.errors | fieldError: 'The reference population' }}</mat-error>
+        </mat-form-field>
+      </section>
       <section class="section" aria-labelledby="setup-stated" formGroupName="settings">
         <h2 id="setup-stated">Stated interval</h2>
         <div class="form-grid">
@@ -46,6 +63,11 @@ export class VerifySetupFields {
   readonly form = input.required<SetupGroup>();
   readonly catalog = input<StudyCatalog | null>(null);
   protected readonly settings = computed(() => this.form().controls.settings.controls);
+  protected readonly populationMax = POPULATION_MAX;
+  private readonly population = toSignal(
+    toObservable(this.form).pipe(switchMap((f) => f.controls.settings.controls.populationDescription.valueChanges.pipe(startWith(f.controls.settings.controls.populationDescription.value)))),
+  );
+  protected readonly populationLength = computed(() => (this.population() ?? '').length);
 
   constructor() {
     requireWhileShown(this.form, (f) => {
