@@ -150,6 +150,35 @@ test('the technologist submits a study; the director refuses a wrong password, t
   await expect(director.getByTestId('who-may-sign')).toHaveText('You may sign it. Any director but Tomas Reyes, who entered its rows, may sign it.');
   await expect(director.getByTestId('review-title')).toHaveText(title);
   await expect(director.getByTestId('verdict-panel')).toBeVisible();
+  // The decision-level picture, photographed first, then read: one track per decision level of the plan, the
+  // engine's verdict in words beside each, an image label per track, and the band captioned with its source.
+  const picture = director.getByTestId('decision-track');
+  await picture.scrollIntoViewIfNeeded();
+  await shot(director, 'review-decision-track-page');
+  await director.setViewportSize({ width: 1366, height: 1400 });
+  await director.getByTestId('verdict-panel').screenshot({ path: path.join(SCREENSHOTS, 'review-decision-track.png') });
+  // The same in grey, as a black-and-white print or a reader without colour vision sees it.
+  await director.evaluate(() => (document.documentElement.style.filter = 'grayscale(1)'));
+  await director.getByTestId('verdict-panel').screenshot({ path: path.join(SCREENSHOTS, 'review-decision-track-grey.png') });
+  await director.evaluate(() => (document.documentElement.style.filter = ''));
+  await director.setViewportSize({ width: 1366, height: 768 });
+  const { currentAnalysisId } = (await (await director.request.get(`/api/v1/studies/${id}`)).json()) as { currentAnalysisId: number };
+  const analysis = (await (await director.request.get(`/api/v1/analyses/${currentAnalysisId}`)).json()) as {
+    results: { decisionLevels: { level: number; verdict: 'within' | 'inconclusive' | 'exceeds' | null }[] };
+  };
+  const levels = analysis.results.decisionLevels;
+  expect(levels.map((l) => l.level)).toEqual([2.8, 7, 11.1]);
+  const WORD = { within: 'Within', inconclusive: 'Inconclusive', exceeds: 'Exceeds' } as const;
+  await expect(picture.getByTestId('track-level')).toHaveText(['2.8 mmol/L', '7.0 mmol/L', '11.1 mmol/L']);
+  await expect(picture.getByTestId('verdict')).toHaveText(levels.map((l) => (l.verdict ? WORD[l.verdict] : 'No verdict')));
+  const images = picture.locator('svg[role="img"]');
+  await expect(images).toHaveCount(3);
+  for (const [k, l] of levels.entries()) {
+    await expect(images.nth(k)).toHaveAttribute('aria-label', new RegExp(`^At ${['2.8', '7.0', '11.1'][k]} mmol/L: predicted bias .*\\. ${l.verdict ? WORD[l.verdict] : 'No verdict'}: `));
+    await expect(picture.getByTestId(`track-decisionLevels.${k}`).getByTestId('track-mark')).toHaveAttribute('data-mark', l.verdict ? { within: 'filled', inconclusive: 'half', exceeds: 'open' }[l.verdict] : 'none');
+  }
+  await expect(picture.getByTestId('band-caption')).toContainText('(source: Laboratory goal set by the director (2026)');
+  await expect(director.getByTestId('verdict-overall')).toContainText('Judged on the 95% CI of the bias that the Passing–Bablok regression of 39 pairs predicts at each level');
   await expect(director.getByTestId('review-caution')).toContainText(CAUTION);
   await expect(director.getByTestId('plan-Source of the allowable bias')).not.toContainText('Not given');
   const note = director.getByTestId('submission-note');

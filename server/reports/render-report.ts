@@ -6,8 +6,7 @@ import type { ComparisonFindings, EstablishFindings, StudyReport, VerifyFindings
 import { cautionCallout } from './sections/caution';
 import { comparisonReport } from './sections/comparison-report';
 import { establishReport } from './sections/establish-report';
-import { signatureBlock } from './sections/signature';
-import { studyBlock, titleBlock } from './sections/title';
+import { titleBlock } from './sections/title';
 import { verifyReport } from './sections/verify-report';
 import { PAGE } from './theme';
 import { REPORT_TITLES } from './words';
@@ -38,9 +37,8 @@ export function renderStudyReport(report: StudyReport): Promise<Buffer> {
   const done = collect(doc);
   const layout = new Layout(doc);
   titleBlock(layout, report);
-  studyBlock(layout, report);
+  // Each kind's body leads page 1 with its conclusion, the sign-off and the plan, then the details.
   body(layout, report);
-  signatureBlock(layout, report);
   layout.gap(6);
   cautionCallout(layout);
   markPages(doc, {

@@ -37,26 +37,31 @@ describe('the PDF of a comparison reported in whole mmol/L', () => {
     expect(results.decisionLevels.map((d) => d.judgedOn)).toEqual([[0.5, 1.5], [0.5, 1.5]]);
   });
 
-  it('states the rule once, on the page of the findings at the decision levels, before the table', () => {
+  it('states the rule once, on the page of the findings at the decision levels, before the sentence of each level', () => {
     expect(count(text, 'Results are reported in steps of')).toBe(1);
     const page = flat(pages.find((lines) => lines.includes('Findings at the decision levels'))!);
     expect(page).toContain(RULE);
-    expect(page.indexOf(RULE)).toBeLessThan(page.indexOf('Decision level Predicted bias'));
+    expect(page.indexOf(RULE)).toBeLessThan(page.indexOf('Within. At 130 mmol/L the predicted bias is'));
   });
 
   it('says beside the median bias, the SD and the intercept that their CI is narrower than the step, in the unit of each', () => {
-    expect(text).toMatch(/Median bias 1\.0 1\.0 to 1\.0 [<0-9.]+ [^A-Z]*CI narrower than one reporting step \(1 mmol\/L\): the data cannot show a difference finer than the step\./);
-    expect(text).toMatch(new RegExp(`Intercept a [−0-9.]+ [−0-9.]+ to [−0-9.]+ ${NARROW.replace(/[().]/g, '\\$&')}`));
+    expect(text).toMatch(/Median bias 1\.0 mmol\/L 1\.0 to 1\.0 [<0-9.]+ [^A-Z]*CI narrower than one reporting step \(1 mmol\/L\): the data cannot show a difference finer than the step\./);
+    // The intercept in the regression's sentence, the step's words right after it.
+    expect(text).toMatch(new RegExp(`\\(intercept [−0-9.]+ mmol/L, 95% CI [−0-9.]+ to [−0-9.]+ mmol/L\\)\\. The CI [a-z]+ 0: [^.]+\\. ${NARROW.replace(/[().]/g, '\\$&')}`));
     expect(text).toContain('CI narrower than one reporting step (0.033 on the slope)');
   });
 
   it('says at each decision level on what interval the verdict was judged and why', () => {
     for (const at of ['130 mmol/L', '150 mmol/L']) {
       expect(text).toContain(
-        `At ${at}: the CI is narrower than one reporting step (1 mmol/L), so the verdict is judged on 0.5 to 1.5 mmol/L (the CI widened to the estimate ± half a step); the data cannot show a difference finer than the step.`,
+        `At ${at} the predicted bias is 1.0 mmol/L (95% CI 1.0 to 1.0). The CI is narrower than one reporting step (1 mmol/L), so the verdict is judged on ` +
+        '0.5 to 1.5 mmol/L (the CI widened to the estimate ± half a step): that whole interval lies within the allowable ±2.0 mmol/L.',
       );
     }
-    expect(count(text, 'judged on 0.5 to 1.5')).toBe(4); // beside the CI in the table, and in the sentence under it, per level
+    // Beside each track of the picture on page 1, and in the sentence of each level.
+    expect(count(flat(pages[0]), 'judged on 0.5 to 1.5 mmol/L')).toBe(2);
+    expect(count(text, 'judged on 0.5 to 1.5')).toBe(4);
+    expect(flat(pages[0])).toContain('judged on: CI widened to ± half a reporting step');
   });
 });
 
@@ -67,10 +72,11 @@ describe('the PDF of a glucose comparison in steps of 0.1 mmol/L with an exclude
     expect(results.resolution.limitedEstimates).toContain('sd');
     expect(results.resolution.limitedEstimates).not.toContain('bias.mean');
     const lines = pdfPages(await renderStudyReport(report)).flat();
-    const line = (start: string): string => lines.find((l) => l.startsWith(start))!;
-    expect(line('SD of the differences (CI)')).toMatch(/^SD of the differences \(CI\) [0-9.]+ \([0-9.]+ to [0-9.]+\); CI narrower than one [0-9.]+ \(/);
-    expect(line('Mean bias (CI)')).not.toContain('narrower');
-    expect(flat(lines)).toMatch(/SD of the differences [0-9.]+ [0-9.]+ to [0-9.]+ CI narrower than one reporting step \(0\.1 mmol\/L\): the data cannot show a difference finer than the step\./);
+    // The with-and-without table's line: the estimate with its unit and its CI in brackets.
+    const line = (start: string): string => lines.find((l) => l.startsWith(start) && / mmol\/L \(/.test(l))!;
+    expect(line('SD of the differences')).toMatch(/^SD of the differences [0-9.]+ mmol\/L \([0-9.]+ to [0-9.]+\), CI narrower [0-9.]+ mmol\/L \([0-9.]+ to [0-9.]+\)$/);
+    expect(line('Mean bias')).not.toContain('narrower');
+    expect(flat(lines)).toMatch(/SD of the differences [0-9.]+ mmol\/L [0-9.]+ to [0-9.]+ CI narrower than one reporting step \(0\.1 mmol\/L\): the data cannot show a difference finer than the step\./);
   });
 });
 

@@ -1,14 +1,12 @@
-import type { Verdict } from '../../shared/stats';
+import { BIAS_CI_WORDS, VERDICT_WORDS as SHARED_VERDICT_WORDS } from '../../shared/types/findings-rows';
+import { REGRESSION_NAMES } from '../../shared/types/regression-words';
 
 /** The report's fixed wording. The caution is printed in full near the findings and again at the end. */
 export const CAUTION =
   "Decision support only. These findings do not by themselves make a verification compliant: final acceptance follows local accreditation rules and the laboratory director's professional judgement. They hold only for the specimen types, measuring range, population and lots studied.";
 
-export const VERDICT_WORDS: Record<Verdict, string> = {
-  within: 'Within the allowable bias',
-  inconclusive: 'Inconclusive: the CI crosses the allowable bias',
-  exceeds: 'Exceeds the allowable bias',
-};
+/** A verdict in words, as the findings page and the workbook say it (shared/types/findings-rows.ts). */
+export const VERDICT_WORDS = SHARED_VERDICT_WORDS;
 
 export const MEANING_WORDS = { accepted: 'Accepted for patient testing', 'not-accepted': 'Not accepted for patient testing' } as const;
 
@@ -25,12 +23,7 @@ export const REPORT_TITLES = {
   'interval-verify': 'Reference interval verification: study report',
 } as const;
 
-export const REGRESSION_WORDS: Record<string, string> = {
-  'passing-bablok': 'Passing–Bablok',
-  deming: 'Deming',
-  'weighted-deming': 'Weighted Deming',
-  ols: 'Ordinary least squares',
-};
+export const REGRESSION_WORDS: Record<string, string> = REGRESSION_NAMES;
 
 export const DIFFERENCE_WORDS: Record<string, string> = {
   absolute: 'Absolute: candidate − comparative',
@@ -38,9 +31,12 @@ export const DIFFERENCE_WORDS: Record<string, string> = {
   'percent-x': 'Percent of the comparative result: 100·(y − x)/x',
 };
 
+const capital = (text: string): string => text.charAt(0).toUpperCase() + text.slice(1);
+
+/** CI methods by name; the bootstrap kinds of bias and limits in the findings page's words. */
 export const CI_WORDS: Record<string, string> = {
-  percentile: 'Percentile bootstrap',
-  bca: 'BCa bootstrap (bias-corrected and accelerated)',
+  percentile: capital(BIAS_CI_WORDS.percentile),
+  bca: capital(BIAS_CI_WORDS.bca),
   rank: 'Rank-based',
   bootstrap: 'Bootstrap',
   jackknife: 'Jackknife',

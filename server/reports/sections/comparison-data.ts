@@ -1,5 +1,7 @@
 import { pairedDifferences } from '../../../shared/stats/differences';
 import { stepWords as wordsOfStep, type StepWords } from '../../../shared/types/resolution-words';
+import { findingsDecimals, type FindingsDecimals } from '../../../shared/types/findings-numbers';
+import { differenceUnitOf, type ComparisonUnits } from '../../../shared/types/findings-rows';
 import type { Layout } from '../layout';
 import type { ComparisonFindings, EstablishFindings, ReportRow, StudyReport } from '../report-model';
 import { wrapAtSpaces } from '../text';
@@ -40,16 +42,24 @@ export function outlierPositions(results: ComparisonFindings, pairs: Pair[]): Se
 
 export const isNumber = (v: number | null | undefined): v is number => typeof v === 'number' && Number.isFinite(v);
 
-/** Decimals of the analyte's results, and one more for derived statistics. */
-export function decimalsOf(report: StudyReport): { value: number; stat: number } {
-  const value = report.settings.decimals ?? 1;
-  return { value, stat: value + 1 };
+/**
+ * The decimals of each kind of number, by the findings' one rule (shared/types/findings-numbers.ts): `value`
+ * as reported, `stat` one more for estimates, `difference`, `slope`, `percent`, `correlation`. Without the
+ * results the differences follow the study's difference type.
+ */
+export function decimalsOf(report: StudyReport, results?: ComparisonFindings | null): FindingsDecimals {
+  const type = report.study.kind === 'method-comparison' ? results?.differenceType ?? report.settings.differenceType : 'absolute';
+  return findingsDecimals(report.settings.decimals, type);
 }
 
 /** The unit of a difference: the analyte's unit, or % for percent differences. */
 export function differenceUnit(report: StudyReport, results: ComparisonFindings | null): string {
-  const type = results?.differenceType ?? report.settings.differenceType;
-  return type === 'absolute' ? report.analyte.unit : '%';
+  return differenceUnitOf(results?.differenceType ?? report.settings.differenceType, report.analyte.unit);
+}
+
+/** How a comparison writes its numbers, in the shape the shared rows and sentences take (the findings page passes the same). */
+export function comparisonUnits(report: StudyReport, results: ComparisonFindings): ComparisonUnits {
+  return { unit: report.analyte.unit, difference: differenceUnit(report, results), decimals: decimalsOf(report, results) };
 }
 
 /**

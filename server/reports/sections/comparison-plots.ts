@@ -1,40 +1,63 @@
 import { num } from '../format';
 import type { Layout } from '../layout';
-import { differencePlot } from '../plots/difference-plot';
+import { type DifferenceInput, differenceLegend, differencePlot } from '../plots/difference-plot';
+import { dataWidth } from '../plots/frame';
+import { legendRows } from '../plots/marks';
 import { histogramPlot } from '../plots/histogram-plot';
 import { plotRow } from '../plots/plot-box';
-import { scatterPlot } from '../plots/scatter-plot';
+import { type ScatterInput, scatterLegend, scatterPlot } from '../plots/scatter-plot';
 import type { ComparisonFindings, StudyReport } from '../report-model';
 import { COLOR } from '../theme';
 import { REGRESSION_WORDS } from '../words';
-import { differenceUnit, type Pair } from './comparison-data';
+import { decimalsOf, differenceUnit, type Pair } from './comparison-data';
 
 const NONE = { estimate: null, ci: null };
 const label = (name: string, unit: string): string => (unit ? `${name} (${unit})` : name);
+const withUnit = (text: string, unit: string): string => (unit ? `${text} ${unit}` : text);
 
-/** The four plots, drawn as vector paths: scatter, difference, and the two bootstrap distributions. */
+/**
+ * The four plots, drawn as vector paths: scatter, difference (with the allowable bias as stated and the
+ * decision levels), and the two bootstrap distributions. Numbers in the legends carry the tables' decimals.
+ */
 export function comparisonPlots(layout: Layout, report: StudyReport, results: ComparisonFindings, pairs: Pair[]): void {
   const unit = report.analyte.unit;
   const dUnit = differenceUnit(report, results);
   const included = pairs.filter((p) => !p.row.excluded);
   const excluded = pairs.filter((p) => p.row.excluded);
-  layout.heading('Plots', 260);
+  const d = decimalsOf(report);
+  const type = results.differenceType ?? report.settings.differenceType;
+  const percent = type !== 'absolute';
+  const dDecimals = percent ? 2 : d.stat;
+  const step = results.resolution?.increment ?? null;
+  layout.heading('Plots', 285);
   if (pairs.length) {
-    const [left, right] = plotRow(layout, 2, 245);
+    const [left, right] = plotRow(layout, 2, 270);
     const reg = results.regression;
     const line = reg?.slope?.estimate != null && reg.intercept?.estimate != null
       ? { slope: reg.slope.estimate, intercept: reg.intercept.estimate, label: REGRESSION_WORDS[reg.method] ?? reg.method }
       : null;
-    scatterPlot(layout.doc, left, {
+    const scatter: ScatterInput = {
       included: included.map((p) => [p.x, p.y]), excluded: excluded.map((p) => [p.x, p.y]), line,
-      xLabel: label('Comparative x', unit), yLabel: label('Candidate y', unit),
-    });
-    differencePlot(layout.doc, right, {
+      xLabel: label('Comparative x', unit), yLabel: label('Candidate y', unit), resolution: step,
+    };
+    const difference: DifferenceInput = {
       included: included.map((p) => [p.at, p.difference]), excluded: excluded.map((p) => [p.at, p.difference]),
       bias: results.bias?.mean ?? NONE, lower: results.limitsOfAgreement?.lower ?? NONE, upper: results.limitsOfAgreement?.upper ?? NONE,
       xLabel: label(results.differenceType === 'percent-x' ? 'Comparative x' : 'Mean of the pair', unit),
       yLabel: label('Difference y − x', dUnit),
-    });
+      type,
+      goal: {
+        absolute: results.settings?.allowableBias ?? report.settings.allowableBiasAbsolute ?? null,
+        percent: results.settings?.allowableBiasPercent ?? report.settings.allowableBiasPercent ?? null,
+      },
+      levels: (results.decisionLevels ?? []).map((l) => l.level),
+      format: { difference: (v) => withUnit(num(v, dDecimals), dUnit), value: (v) => withUnit(num(v, d.value), unit), goal: (v) => withUnit(num(v, d.stat), unit) },
+      resolution: { x: step, y: percent ? null : results.resolution?.differenceIncrement ?? step },
+    };
+    // Both plots leave room for as many legend rows as the longer legend, so their axes line up.
+    const rows = Math.max(...[scatterLegend(scatter), differenceLegend(difference)].map((items) => legendRows(layout.doc, items, dataWidth(left)).length));
+    scatterPlot(layout.doc, left, { ...scatter, legendRows: rows });
+    differencePlot(layout.doc, right, { ...difference, legendRows: rows });
   }
   const nullPlot = results.plots?.medianNull;
   const boot = results.plots?.medianBias;
@@ -48,7 +71,10 @@ export function comparisonPlots(layout: Layout, report: StudyReport, results: Co
         { value: nullPlot.observed, color: COLOR.ink },
       ],
       bands: [{ span: [-Infinity, nullPlot.lowerCutoff], color: COLOR.warm }, { span: [nullPlot.upperCutoff, Infinity], color: COLOR.warm }],
-      legend: [{ label: `observed ${num(nullPlot.observed, 3)}`, color: COLOR.ink, kind: 'line' }, { label: 'both tails', color: COLOR.warm, kind: 'band' }],
+      legend: [
+        { label: `observed ${withUnit(num(nullPlot.observed, dDecimals), dUnit)}`, color: COLOR.ink, kind: 'line' },
+        { label: 'cut-offs', color: COLOR.warm, kind: 'dash' }, { label: 'both tails (light bars)', color: COLOR.warm, kind: 'band' },
+      ],
     });
   }
   if (boot) {
@@ -57,11 +83,14 @@ export function comparisonPlots(layout: Layout, report: StudyReport, results: Co
       title: 'Median bias: bootstrap distribution', xLabel: label('Median bias of resamples', dUnit), bins: boot.bins,
       markers: median.estimate !== null ? [{ value: median.estimate, color: COLOR.ink }] : [],
       bands: median.ci ? [{ span: median.ci, color: COLOR.warm }] : [],
-      legend: [{ label: 'estimate', color: COLOR.ink, kind: 'line' }, { label: 'CI', color: COLOR.warm, kind: 'band' }],
+      legend: [
+        { label: median.estimate !== null ? `estimate ${withUnit(num(median.estimate, dDecimals), dUnit)}` : 'estimate', color: COLOR.ink, kind: 'line' },
+        { label: median.ci ? `CI ${num(median.ci[0], dDecimals)} to ${withUnit(num(median.ci[1], dDecimals), dUnit)}` : 'CI', color: COLOR.warm, kind: 'band' },
+      ],
     });
   }
   layout.paragraph(
-    'Left: the median of resampled differences after shifting them to a median of zero; the shaded bars lie at least as far from zero as the observed median bias (the p-value counts them). ' +
+    'Left: the median of resampled differences after shifting them to a median of zero; the light bars in the shaded tails lie at least as far from zero as the observed median bias (the p-value counts them). ' +
     'Right: the bootstrap distribution of the median bias with its CI. Few distinct values make these distributions lumpy: read the CI with that in mind.',
     { size: 7.5, color: COLOR.muted },
   );

@@ -4,6 +4,7 @@ import type { Layout } from '../layout';
 import type { ComparisonFindings, StudyReport } from '../report-model';
 import { CI_WORDS, DIFFERENCE_WORDS, REGRESSION_WORDS } from '../words';
 import { plural } from '../../../shared/types/plural';
+import { regressionCiWords } from '../../../shared/types/regression-words';
 
 /**
  * How the numbers were made. The engine's resolved settings are printed when there are results (they
@@ -27,7 +28,7 @@ export function comparisonSettings(layout: Layout, report: StudyReport, results:
     ['Confidence level', percent(r?.level ?? s.confidenceLevel)],
     ['CI method (bias, limits)', CI_WORDS[r?.interval ?? s.interval] ?? (r?.interval ?? s.interval)],
     ['Difference type', DIFFERENCE_WORDS[r?.difference ?? s.differenceType]],
-    ['Regression', `${REGRESSION_WORDS[regression] ?? regression}; CIs of slope and intercept: ${CI_WORDS[regressionCi] ?? regressionCi}`],
+    ['Regression', `${REGRESSION_WORDS[regression] ?? regression}; CIs of slope and intercept: ${regressionCiWords(regressionCi, r?.interval ?? s.interval)}`],
     ...(isDeming ? [['Deming error ratio', `λ = ${num(ratio, 3)}, where ${results?.settings?.demingRatioConvention ?? DEMING_RATIO_CONVENTION}`] as [string, string]] : []),
     ['Limits of agreement', `mean difference ± ${num(r?.loaMultiplier ?? s.loaMultiplier, 2)} SD of the differences`],
     ['Outlier test', `Generalized ESD (Rosner 1983) on the differences, α = ${num(r?.esdAlpha ?? s.esdAlpha, 3)}, at most ${maxOutliersWords(results?.outlierTest?.maxOutliers ?? s.esdMax)}; flags only`],

@@ -1,67 +1,84 @@
-import { num, percent, range, withUnit } from '../format';
+import { decisionPicture, PICTURE_TITLE, type DecisionPicture } from '../../../shared/types/decision-track';
+import { plural } from '../../../shared/types/plural';
+import { integer } from '../format';
 import type { Layout } from '../layout';
+import { decisionTrackParts, drawDecisionTrackPart, type TrackPart } from '../plots/decision-track';
 import type { ComparisonFindings, StudyReport } from '../report-model';
-import { drawTable } from '../table';
 import { COLOR } from '../theme';
-import { VERDICT_WORDS } from '../words';
-import { judgedOnSentence } from '../../../shared/types/resolution-words';
-import type { StepWords } from '../../../shared/types/resolution-words';
-import { decimalsOf, stepParagraph, stepRule, stepWords } from './comparison-data';
 import { cautionCallout } from './caution';
+import { stepRule, stepWords } from './comparison-data';
 
-const VERDICT_COLOR = { within: COLOR.good, inconclusive: COLOR.warm, exceeds: COLOR.bad } as const;
+/** The height of the picture's title (a subheading with its space). */
+const SUBHEADING = 22;
 
-/** The finding per decision level: predicted bias with its CI against the allowable bias, in words. */
-export function comparisonVerdict(layout: Layout, report: StudyReport, results: ComparisonFindings): void {
-  const d = decimalsOf(report);
-  const unit = report.analyte.unit;
-  const level = percent(results.settings?.level ?? report.settings.confidenceLevel);
-  const steps = stepWords(report, results);
-  layout.heading('Findings at the decision levels', 150 + 22 * (results.decisionLevels?.length ?? 0) + (steps.rule ? 70 : 0));
-  stepRule(layout, steps.rule);
-  const levels = results.decisionLevels ?? [];
-  if (!levels.length) {
-    layout.paragraph('No medical decision levels were set, so no verdict is given; see the bias and regression below.');
-  } else {
-    const rows = levels.map((l) => [
-      withUnit(num(l.level, d.value), unit),
-      withUnit(num(l.bias.estimate, d.stat), unit),
-      l.biasPercent === null ? '—' : `${num(l.biasPercent, 1)}%`,
-      l.judgedOn ? `${range(l.bias.ci, d.stat)}\njudged on\n${range(l.judgedOn, d.stat)}` : range(l.bias.ci, d.stat),
-      l.allowable === null ? 'Not set' : `±${num(l.allowable, d.stat)}`,
-      l.verdict ? VERDICT_WORDS[l.verdict] : 'No verdict (no allowable bias or no CI)',
-    ]);
-    drawTable(layout, [
-      { header: 'Decision level', weight: 1.1 }, { header: 'Predicted bias', weight: 1.1, align: 'right' },
-      { header: 'Bias %', weight: 0.7, align: 'right' }, { header: `${level} CI`, weight: 1.3, align: 'right' },
-      { header: `Allowable (${unit || 'units'})`, weight: 1, align: 'right' }, { header: 'Verdict', weight: 2.1 },
-    ], rows, {
-      size: 8.5,
-      color: (r, c) => (c === 5 && levels[r].verdict ? VERDICT_COLOR[levels[r].verdict!] : undefined),
-    });
-    levels.forEach((l, k) => {
-      const words = levelStepWords(withUnit(num(l.level, d.value), unit), l.judgedOn ? withUnit(range(l.judgedOn, d.stat), unit) : null, steps, k);
-      if (words) stepParagraph(layout, words);
-    });
-    layout.paragraph(
-      'Predicted bias at a level Xc is a + (b − 1)·Xc from the regression. Within: the whole CI lies inside ±allowable. ' +
-      'Exceeds: the whole CI lies outside it. Inconclusive: the CI crosses a limit, so the data can neither show agreement nor its absence. ' +
-      '"Not significant" does not mean equivalent: the decision rests on the CI against the goal, not on a p-value.',
-      { size: 7.5, color: COLOR.muted },
-    );
-  }
-  cautionCallout(layout);
+/** The decision-level picture of these findings, as the findings page and the review page draw it. */
+export function pictureOf(report: StudyReport, results: ComparisonFindings): DecisionPicture {
+  const s = report.settings;
+  return decisionPicture(results, {
+    absolute: s.allowableBiasAbsolute, percent: s.allowableBiasPercent, source: s.allowableBiasSource,
+  }, { unit: report.analyte.unit, decimals: s.decimals });
 }
 
 /**
- * Under the table, for a level whose CI is narrower than the step: on what interval its verdict was judged
- * and why, or (with no verdict) that the CI says nothing finer than the step; null for any other level.
+ * Page 1 of a method comparison, the conclusion first: one or two sentences, the decision-level picture,
+ * the counts of pairs analysed, entered and excluded, and the caution beside them.
  */
-function levelStepWords(at: string, judged: string | null, steps: StepWords, k: number): string | null {
-  const path = `decisionLevels.${k}`;
-  if (judged) {
-    const sentence = judgedOnSentence(judged, steps.step(path));
-    return `At ${at}: ${sentence.charAt(0).toLowerCase()}${sentence.slice(1)}; the data cannot show a difference finer than the step.`;
+export function comparisonLead(layout: Layout, report: StudyReport, results: ComparisonFindings): void {
+  const picture = pictureOf(report, results);
+  layout.conclusion('Conclusion', picture.conclusion);
+  if (picture.tracks.length) {
+    // The picture flows: where it does not fit below the conclusion it goes on between tracks on the next page.
+    const cut = (): TrackPart[] => decisionTrackParts(layout.doc, picture, layout.width, layout.room - SUBHEADING, layout.pageRoom - SUBHEADING);
+    let parts = cut();
+    if (parts[0].newPage) {
+      // Not even two tracks fit under the conclusion: the title goes with the picture to the next page.
+      layout.newPage();
+      parts = cut();
+    }
+    layout.subheading(PICTURE_TITLE, parts[0].height);
+    for (const part of parts) {
+      if (part.newPage) layout.newPage();
+      layout.block(part.height, (y) => drawDecisionTrackPart(layout.doc, picture, part, layout.left, y, layout.width));
+    }
   }
-  return steps.notes[path] ? `At ${at}: ${steps.notes[path]}` : null;
+  layout.keyValues([['Pairs', pairCounts(report, results)]], 60);
+  cautionCallout(layout);
+}
+
+/** "39 analysed of 40 entered; 1 excluded with its reason (row 7)", and rows lacking a result when there are any. */
+export function pairCounts(report: StudyReport, results: ComparisonFindings): string {
+  const excluded = report.rows.filter((r) => r.excluded);
+  const entered = report.rows.length;
+  const analysed = results.n ?? 0;
+  const incomplete = entered - analysed - excluded.length;
+  const rows = excluded.map((r) => r.position);
+  const parts = [
+    `${integer(analysed)} analysed of ${integer(entered)} entered`,
+    excluded.length ? `${integer(excluded.length)} excluded with ${excluded.length === 1 ? 'its reason' : 'their reasons'} (${rows.length === 1 ? 'row' : 'rows'} ${rows.join(', ')})` : 'none excluded',
+    ...(incomplete > 0 ? [`${plural(incomplete, 'row')} without both results`] : []),
+  ];
+  return parts.join('; ');
+}
+
+/**
+ * The findings at the decision levels in words, after page 1: the reporting step's rule, each level in a
+ * sentence (the same sentences as the findings page), and what the verdict words mean.
+ */
+export function comparisonVerdictDetails(layout: Layout, report: StudyReport, results: ComparisonFindings): void {
+  const picture = pictureOf(report, results);
+  const steps = stepWords(report, results);
+  const first = picture.tracks[0]?.sentence ?? '';
+  layout.heading('Findings at the decision levels', (steps.rule ? 70 : 0) + 30 + (first.length > 120 ? 24 : 12));
+  stepRule(layout, steps.rule);
+  if (!picture.tracks.length) {
+    layout.paragraph('No medical decision levels were set, so no verdict is given; see the bias and regression below.');
+    return;
+  }
+  for (const t of picture.tracks) layout.paragraph(`${t.word}. ${t.sentence}`, { size: 8 });
+  layout.paragraph(
+    'Predicted bias at a level Xc is a + (b − 1)·Xc from the regression. Within: the whole CI lies inside ±allowable. ' +
+    'Exceeds: the whole CI lies outside it. Inconclusive: the CI crosses a limit, so the data can neither show agreement nor its absence. ' +
+    '"Not significant" does not mean equivalent: the decision rests on the CI against the goal, not on a p-value.',
+    { size: 7.5, color: COLOR.muted },
+  );
 }

@@ -20,10 +20,11 @@ export function establishFindings(layout: Layout, report: StudyReport, results: 
     .filter((entry): entry is [string, LimitResult, string] => Boolean(entry[1]));
   drawTable(layout, [
     { header: 'Limit', weight: 1 }, { header: 'Percentile', weight: 0.8, align: 'right' }, { header: `Estimate (${unit || 'units'})`, weight: 1, align: 'right' },
-    { header: `${level} CI, bootstrap`, weight: 1.4, align: 'right' }, { header: `${level} CI, rank-based`, weight: 1.4, align: 'right' },
+    { header: `${level} CI, rank-based`, weight: 1.4, align: 'right' }, { header: `${level} CI, bootstrap`, weight: 1.4, align: 'right' },
     { header: 'Ranks (coverage)', weight: 1.1, align: 'right' },
   ], limits.map(([name, l]) => [
-    name, `${l.percentile}th`, num(l.estimate, d.stat), range(l.ci, d.stat), range(l.rankCi, d.stat),
+    // In the order and words of the findings page's limits table: rank-based CI first, where the method gives one.
+    name, `${l.percentile}th`, num(l.estimate, d.stat), l.rankCi ? range(l.rankCi, d.stat) : 'not used by this method', range(l.ci, d.stat),
     l.ranks ? `${l.ranks.lowerRank}–${l.ranks.upperRank} (${percent(l.ranks.coverage)})` : '—',
   ]), { size: 8.5 });
   for (const [name, , path] of limits) if (steps.notes[path]) stepParagraph(layout, `${name}: bootstrap ${steps.notes[path]}`);

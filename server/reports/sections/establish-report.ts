@@ -1,12 +1,17 @@
-import { histogram, type HistogramBin } from '../../../shared/stats/histogram';
+import { resolutionBins } from '../../../shared/types/plot-axes';
 import type { LimitResult } from '../../../shared/stats';
 import type { Layout } from '../layout';
 import { histogramPlot } from '../plots/histogram-plot';
 import { plotRow } from '../plots/plot-box';
 import type { EstablishFindings, StudyReport } from '../report-model';
 import { COLOR } from '../theme';
+import { integer, num, orDash, withUnit } from '../format';
+import { INTERVAL_METHOD_WORDS, PARTITION_WORDS } from '../words';
 import { amendments } from './amendments';
-import { isNumber } from './comparison-data';
+import { cautionCallout } from './caution';
+import { decimalsOf, isNumber } from './comparison-data';
+import { signatureBlock } from './signature';
+import { studyBlock } from './title';
 import { establishFindings } from './establish-findings';
 import { plural } from '../../../shared/types/plural';
 import { establishScreening } from './establish-screening';
@@ -14,24 +19,60 @@ import { intervalPlan } from './interval-plan';
 import { intervalRows, exclusions } from './specimen-rows';
 import { warningsList } from './warnings';
 
-/** The body of a reference-interval establishment report. */
+/**
+ * The body of a reference-interval establishment report. Page 1 leads with the conclusion (the interval and
+ * whether separate intervals are recommended), the counts, the caution, the sign-off and the plan; what was
+ * studied and the details follow.
+ */
 export function establishReport(layout: Layout, report: StudyReport, results: EstablishFindings | null): void {
-  intervalPlan(layout, report);
-  amendments(layout, report);
   if (!results) {
-    layout.heading('Findings');
-    layout.paragraph('There is no current analysis of these values and settings, so no findings are shown.');
+    layout.conclusion('Conclusion', 'There is no current analysis of these values and settings, so no findings are shown.');
+    cautionCallout(layout);
+    signatureBlock(layout, report);
+    intervalPlan(layout, report);
+    amendments(layout, report);
+    studyBlock(layout, report);
     intervalRows(layout, report, new Set());
     return;
   }
+  layout.conclusion('Conclusion', establishConclusion(report, results));
+  layout.keyValues([['Values', `${integer(results.n)} analysed of ${integer(report.rows.length)} entered; ${integer(results.excludedCount)} excluded`]], 60);
+  cautionCallout(layout);
+  signatureBlock(layout, report);
+  intervalPlan(layout, report);
+  amendments(layout, report);
   const used = report.rows.filter((r) => isNumber(r.value));
   const flagged = results.outlierPositions ?? (results.outliers ?? []).map((k) => used[k - 1]?.position).filter(isNumber);
   establishFindings(layout, report, results);
+  studyBlock(layout, report);
   valuesHistogram(layout, report, results);
   establishScreening(layout, report, results, [...flagged].sort((a, b) => a - b));
   warningsList(layout, results.warnings);
   exclusions(layout, report);
   intervalRows(layout, report, new Set(flagged));
+}
+
+/**
+ * The interval in one or two sentences: "The reference interval is 135.0 to 145.0 mmol/L: the 2.5th and
+ * 97.5th percentiles of 121 values (nonparametric)." and what the partition test says.
+ */
+export function establishConclusion(report: StudyReport, results: EstablishFindings): string {
+  const d = decimalsOf(report);
+  const unit = report.analyte.unit;
+  const { lower, upper } = results;
+  const method = (INTERVAL_METHOD_WORDS[results.method]?.name ?? orDash(results.method)).replace(/ \(.*$/, '').toLowerCase();
+  const percentiles = [lower?.percentile, upper?.percentile].filter(isNumber).map((p) => `${p}th`).join(' and ');
+  const first = isNumber(lower?.estimate) && isNumber(upper?.estimate)
+    ? `The reference interval is ${withUnit(`${num(lower!.estimate, d.stat)} to ${num(upper!.estimate, d.stat)}`, unit)}: the ${percentiles} percentiles of ${plural(results.n ?? 0, 'value')} (${method}).`
+    : 'No reference interval could be estimated from these values; see the warnings.';
+  const partitions = results.partitions ?? [];
+  if (!partitions.length) return first;
+  const fields = (list: typeof partitions): string => list.map((p) => (PARTITION_WORDS[p.field] ?? p.field).toLowerCase()).join(' and ');
+  const recommended = partitions.filter((p) => p.recommended);
+  const second = recommended.length
+    ? `The Harris & Boyd test recommends separate intervals by ${fields(recommended)}; they are given with the findings.`
+    : `The Harris & Boyd test does not recommend separate intervals by ${fields(partitions)}, so one interval serves.`;
+  return `${first} ${second}`;
 }
 
 function valuesHistogram(layout: Layout, report: StudyReport, results: EstablishFindings): void {
@@ -43,22 +84,10 @@ function valuesHistogram(layout: Layout, report: StudyReport, results: Establish
   const unit = report.analyte.unit;
   histogramPlot(layout.doc, box, {
     title: `Histogram of ${plural(values.length, 'value')}`, xLabel: unit ? `${report.analyte.name} (${unit})` : report.analyte.name,
-    bins: valueBins(values),
+    // Bins at half-steps of the reporting step, as on the findings page (shared/types/plot-axes.ts).
+    bins: resolutionBins([...values], results.resolution?.increment), resolution: results.resolution?.increment,
     markers: limits.map((l) => ({ value: l.estimate, color: COLOR.warm })),
     bands: limits.flatMap((l) => (l.ci ? [{ span: l.ci, color: COLOR.warm }] : [])),
     legend: [{ label: 'limits', color: COLOR.warm, kind: 'line' }, { label: 'CI of each limit', color: COLOR.warm, kind: 'band' }],
   }, 'Count');
-}
-
-/**
- * Bins for reported values: one bin per distinct value when there are few (rounded results would
- * otherwise leave empty gaps between bars), else equal-width bins.
- */
-function valueBins(values: Float64Array): HistogramBin[] {
-  const distinct = [...new Set(values)].sort((a, b) => a - b);
-  if (distinct.length > 40 || distinct.length < 2) return histogram(values, Math.min(40, Math.max(8, Math.round(2 * Math.sqrt(values.length))))).bins;
-  const step = Math.min(...distinct.slice(1).map((v, k) => v - distinct[k]));
-  const counts = new Map<number, number>();
-  for (const v of values) counts.set(v, (counts.get(v) ?? 0) + 1);
-  return distinct.map((v) => ({ from: v - step / 2, to: v + step / 2, count: counts.get(v)! }));
 }

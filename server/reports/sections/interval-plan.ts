@@ -10,10 +10,9 @@ export function intervalPlan(layout: Layout, report: StudyReport): void {
   const s = report.settings;
   const d = decimalsOf(report).value;
   const unit = report.analyte.unit;
-  layout.heading('Plan and acceptance criteria');
   const verifying = report.study.kind === 'interval-verify';
   const stated = `${withUnit(`${num(s.statedLower, d)} to ${num(s.statedUpper, d)}`, unit)}`;
-  layout.keyValues([
+  const pairs: [string, string][] = [
     ['Reference population', orDash(s.populationDescription)],
     ...(verifying
       ? [
@@ -29,5 +28,7 @@ export function intervalPlan(layout: Layout, report: StudyReport): void {
     ['Acceptance rule (as planned)', orDash(s.acceptanceRule)],
     ['Outlier rule', verifying ? 'Values are not screened; an exclusion needs a recorded reason' : 'Tukey fences (1.5 × IQR) and Dixon’s gap rule (D/R > 1/3); flags only'],
     ['Plan approval', planApprovalWords(report)],
-  ]);
+  ];
+  layout.heading('Plan and acceptance criteria', layout.keyValuesHeight(pairs, 150, 2));
+  layout.keyValues(pairs);
 }

@@ -25,13 +25,14 @@ export function planApprovalWords(report: StudyReport): string {
 export function comparisonPlan(layout: Layout, report: StudyReport): void {
   const s = report.settings;
   const d = decimalsOf(report).value;
-  layout.heading('Plan and acceptance criteria');
-  layout.keyValues([
+  const pairs: [string, string][] = [
     ['Medical decision levels', s.decisionLevels.length ? s.decisionLevels.map((l) => withUnit(num(l, d), report.analyte.unit)).join('; ') : 'None set'],
     ['Allowable bias', allowableBiasWords(report)],
     ['Source of the allowable bias', orDash(s.allowableBiasSource)],
     ['Acceptance rule', orDash(s.acceptanceRule)],
     ['Outlier rule', orDash(s.outlierRule)],
     ['Plan approval', planApprovalWords(report)],
-  ]);
+  ];
+  layout.heading('Plan and acceptance criteria', layout.keyValuesHeight(pairs, 150, 2));
+  layout.keyValues(pairs);
 }

@@ -25,7 +25,7 @@ export function comparisonRows(layout: Layout, report: StudyReport, pairs: Pair[
     { header: 'Difference', weight: 0.9, align: 'right' }, { header: 'Status', weight: 2 }, { header: 'Note', weight: 1.6 },
   ], report.rows.map((r) => [
     String(r.position), r.label, valueText(r.comparativeText, r.comparative, d.value), valueText(r.candidateText, r.candidate, d.value),
-    num(byPosition.get(r.position)?.difference, d.stat), status(r, flagged), r.note,
+    num(byPosition.get(r.position)?.difference, d.difference), status(r, flagged), r.note,
   ]), { color: (k, c) => (c === 5 && report.rows[k].excluded ? COLOR.bad : undefined) });
 }
 

@@ -31,16 +31,17 @@ export function titleBlock(layout: Layout, report: StudyReport): void {
 /** What was studied: analyte, instruments with serials and lots, run dates, purpose. */
 export function studyBlock(layout: Layout, report: StudyReport): void {
   const s = report.settings;
-  layout.heading('Study');
   const runs = s.runsFrom || s.runsTo ? `${orDash(s.runsFrom)} to ${orDash(s.runsTo)}` : 'Not recorded';
-  layout.keyValues([
+  const pairs: [string, string][] = [
     ['Analyte', report.analyte.unit ? `${report.analyte.name} (${report.analyte.unit})` : report.analyte.name],
     ['Kind of study', KIND_TITLES[report.study.kind]],
     ['Runs', runs],
     ['Specimens', `${plural(report.rows.length, 'row')} entered${s.plannedSpecimens ? `; ${integer(s.plannedSpecimens)} planned` : ''}`],
     ['Purpose', orDash(report.study.purpose)],
     ['Statistics engine', orDash(report.engineVersion)],
-  ]);
+  ];
+  layout.heading('Study', layout.keyValuesHeight(pairs, 150, 3));
+  layout.keyValues(pairs);
   const { comparative, candidate, instrument } = report.instruments;
   const rows: string[][] = [];
   const add = (role: string, i: InstrumentInfo | undefined, lot: string): void => {
@@ -52,6 +53,7 @@ export function studyBlock(layout: Layout, report: StudyReport): void {
   } else {
     add('Instrument', instrument, s.reagentLot);
   }
+  layout.ensure(16 * (rows.length + 1) + 4); // a table of one or two rows is never split from its header or from itself
   drawTable(layout, [
     { header: 'Role', weight: 1.3 }, { header: 'Instrument', weight: 1.3 }, { header: 'Make and model', weight: 1.4 },
     { header: 'Serial', weight: 0.9 }, { header: 'Reagent lot', weight: 0.9 },

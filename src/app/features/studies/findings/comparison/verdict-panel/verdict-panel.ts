@@ -1,50 +1,44 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
-import { ComparisonFindingsResult, Units, stepWords, withUnit } from '../comparison-result';
-import { formatCi, formatNumber, levelLabel } from '../number-format';
-import { NOT_EQUIVALENCE, levelSentence, medianSentence, overallSentence, verdictView } from '../verdict-wording';
+import { decisionPicture, PICTURE_TITLE } from '../../../../../../../shared/types/decision-track';
+import { ComparisonFindingsResult, Units, stepWords } from '../comparison-result';
+import { NOT_EQUIVALENCE, medianSentence } from '../verdict-wording';
+import { DecisionTrackFigure } from './decision-track/decision-track';
 
-/** (a) The verdict: each decision level's predicted bias and CI against the allowable bias, and the median bias test. */
+/**
+ * (a) The verdict: the study's conclusion, the decision-level picture (each level's predicted bias and CI
+ * against its allowable band, the verdict word beside it), each level in a sentence, and the median bias test.
+ * The picture and its words are the PDF's (shared/types/decision-track.ts).
+ */
 @Component({
   selector: 'app-verdict-panel',
   templateUrl: './verdict-panel.html',
   styleUrl: './verdict-panel.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [MatIconModule],
+  imports: [MatIconModule, DecisionTrackFigure],
 })
 export class VerdictPanel {
   readonly result = input.required<ComparisonFindingsResult>();
   readonly units = input.required<Units>();
+  /** Where the allowable bias comes from; the band's caption names it. */
   readonly source = input('');
 
-  protected readonly level = computed(() => this.result().settings.level);
-  protected readonly overall = computed(() => overallSentence(this.result().decisionLevels));
+  protected readonly pictureTitle = PICTURE_TITLE;
+  protected readonly picture = computed(() => {
+    const r = this.result();
+    const u = this.units();
+    return decisionPicture(r, {
+      absolute: r.settings?.allowableBias ?? null, percent: r.settings?.allowableBiasPercent ?? null, source: this.source(),
+    }, { unit: u.unit, decimals: u.decimals - 1 });
+  });
   private readonly steps = computed(() => stepWords(this.result(), this.units()));
   /** The rule of the reporting step, once, when any estimate of these findings is limited by it. */
   protected readonly stepRule = computed(() => this.steps().rule);
-  protected readonly rows = computed(() => {
-    const u = this.units();
-    const { notes, step } = this.steps();
-    return this.result().decisionLevels.map((d, k) => {
-      const judged = d.judgedOn ? `Verdict judged on ${withUnit(formatCi(d.judgedOn, u.decimals), u.unit)}.` : '';
-      return {
-        key: `decisionLevels.${k}`,
-        at: withUnit(formatNumber(d.level, u.decimals - 1), u.unit),
-        bias: withUnit(formatNumber(d.bias.estimate, u.decimals), u.unit),
-        percent: d.biasPercent === null ? '' : `${formatNumber(d.biasPercent, 1)} %`,
-        ci: formatCi(d.bias.ci, u.decimals),
-        allowable: d.allowable === null ? 'not set' : `±${withUnit(formatNumber(d.allowable, u.decimals), u.unit)}`,
-        view: verdictView(d.verdict),
-        sentence: levelSentence(d, u, this.level(), d.judgedOn ? step(`decisionLevels.${k}`) : ''),
-        note: [notes[`decisionLevels.${k}`], judged].filter(Boolean).join(' '),
-      };
-    });
-  });
   protected readonly median = computed(() => {
     const { notes, step } = this.steps();
     const narrow = notes['bias.median'] ? step('bias.median') : '';
-    return medianSentence(this.result().bias.median, this.units(), this.level(), this.result().engine.resamples, narrow);
+    const r = this.result();
+    return medianSentence(r.bias.median, this.units(), r.settings.level, r.engine.resamples, narrow);
   });
-  protected readonly ciLabel = computed(() => `${levelLabel(this.level())} CI`);
   protected readonly notEquivalence = NOT_EQUIVALENCE;
 }

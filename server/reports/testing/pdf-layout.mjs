@@ -1,0 +1,39 @@
+// Where the text of a PDF stands, page by page: each line's text, its top in points from the top of the page,
+// and the largest type size on it, read with pdfjs-dist (legacy build for Node) in a Node process of its own
+// (see pdf-layout.ts). Reads the PDF from stdin and prints JSON: [{ height, lines: [{ text, top, size }] }, ...].
+// Rotated text (a draft's watermark) is left out: it belongs to no line.
+import { getDocument } from 'pdfjs-dist/legacy/build/pdf.mjs';
+
+const chunks = [];
+for await (const chunk of process.stdin) chunks.push(chunk);
+const pdf = await getDocument({ data: new Uint8Array(Buffer.concat(chunks)), verbosity: 0, isEvalSupported: false }).promise;
+const pages = [];
+for (let n = 1; n <= pdf.numPages; n++) {
+  const page = await pdf.getPage(n);
+  const [, , , height] = page.view;
+  const { items } = await page.getTextContent();
+  const lines = [];
+  for (const item of items.filter((i) => i.str !== undefined && i.str.trim() !== '')) {
+    const [a, b, , d, x, y] = item.transform;
+    if (Math.abs(b) > 1e-6) continue;
+    let line = lines.find((l) => Math.abs(l.y - y) < 1.5);
+    if (!line) lines.push((line = { y, size: 0, parts: [] }));
+    line.size = Math.max(line.size, Math.abs(d || a));
+    line.parts.push({ x, end: x + item.width, str: item.str });
+  }
+  lines.sort((p, q) => q.y - p.y);
+  pages.push({
+    height,
+    lines: lines.map((l) => {
+      l.parts.sort((p, q) => p.x - q.x);
+      let text = '';
+      let end = -Infinity;
+      for (const p of l.parts) {
+        text += (text && p.x - end > 1 ? ' ' : '') + p.str;
+        end = p.end;
+      }
+      return { text: text.replace(/\s+/g, ' ').trim(), top: Math.round((height - l.y - l.size) * 10) / 10, size: Math.round(l.size * 100) / 100 };
+    }),
+  });
+}
+process.stdout.write(JSON.stringify(pages));
