@@ -99,8 +99,97 @@ test('a technologist compares two chemistry lines: pastes 40 pairs, fixes a bad 
     expect(painted.height).toBeGreaterThan(200);
     expect(painted.inked).toBeGreaterThan(1000);
   }
+  // The difference plot says what it draws: the allowable bias as Setup states it (0.2 mmol/L or 4 %) and the decision levels.
+  await expect(page.getByTestId('plot-difference').locator('figcaption')).toContainText('Dotted edges: the allowable bias as stated in Setup.');
+  await expect(page.getByTestId('plot-difference').locator('figcaption')).toContainText('Triangles on the x axis: the decision levels.');
+  // Its legend names every line with its value, the allowable bias as the goal is stated, and the decision levels.
+  const legend = page.getByTestId('plot-difference').getByTestId('plot-legend');
+  await expect(legend).toContainText(/Mean bias −?\d+\.\d\d mmol\/L/);
+  await expect(legend).toContainText(/Upper limit of agreement −?\d+\.\d\d mmol\/L/);
+  await expect(legend).toContainText(/Lower limit of agreement −?\d+\.\d\d mmol\/L/);
+  await expect(legend).toContainText('Allowable bias ±0.20 mmol/L or ±4 %, whichever is greater');
+  await expect(legend).toContainText('Decision levels 2.8, 7.0, 11.1 mmol/L');
+  await expect(page.getByTestId('plot-scatter').getByTestId('plot-legend')).toContainText('Identity y = x');
   await fullShot(page, 'findings.png');
+
+  // Hovering a point names the specimen, both results and the difference.
+  const difference = page.getByTestId('plot-difference').locator('canvas');
+  await difference.scrollIntoViewIfNeeded();
+  const drawn = await pointsOn(difference);
+  expect(drawn.length).toBe(40);
+  const [key, x, y] = drawn.reduce((far, p) => (p[2] < far[2] ? p : far)); // the largest difference: the highest point
+  const label = `VH-${String(key).padStart(3, '0')}`;
+  await difference.hover({ position: { x, y } });
+  const tip = page.getByTestId('plot-difference').getByTestId('plot-tip');
+  await expect(tip).toBeVisible();
+  await expect(tip).toContainText(`${label} (row ${key})`);
+  await expect(tip).toContainText(/Comparative \d+\.\d mmol\/L/);
+  await expect(tip).toContainText(/Candidate \d+\.\d mmol\/L/);
+  await expect(tip).toContainText(/Difference −?\d+\.\d mmol\/L \(−?\d+\.\d %\)/);
+
+  const tipDifference = (await tip.textContent())!.match(/Difference (−?\d+\.\d)/)![1];
+  await page.getByTestId('plot-difference').screenshot({ path: path.join(SCREENSHOTS, 'findings-tooltip.png') });
+
+  // Clicking it selects its row in the table of pairs, scrolled into view, and rings it on both plots.
+  await difference.click({ position: { x, y } });
+  const row = page.getByTestId(`pair-${key}`);
+  await expect(row).toHaveClass(/selected/);
+  await expect(row).toHaveAttribute('aria-current', 'true');
+  await expect(row).toBeInViewport();
+  await expect(row.locator('td').nth(1)).toHaveText(label);
+  await expect(page.locator('[data-testid="pairs-table"] tr.selected')).toHaveCount(1);
+  await expect(difference).toHaveAttribute('data-selected', new RegExp(`^\\[${key},`));
+  await expect(page.getByTestId('plot-scatter').locator('canvas')).toHaveAttribute('data-selected', new RegExp(`^\\[${key},`));
+  // The tooltip's difference is the table's.
+  await expect(row.getByTestId('pair-difference')).toHaveText(tipDifference);
+
+  // Choosing another row moves the ring to its point.
+  await page.getByTestId('pair-1').click();
+  await expect(page.getByTestId('pair-1')).toHaveClass(/selected/);
+  await expect(row).not.toHaveClass(/selected/);
+  await expect(difference).toHaveAttribute('data-selected', /^\[1,/);
+
+  // Sorted by difference: smallest first, then largest first; the specimen of the highest point leads the second.
+  const differences = async (): Promise<number[]> =>
+    (await page.getByTestId('pair-difference').allTextContents()).map((t) => Number(t.trim().replace('−', '-')));
+  await page.getByTestId('sort-difference').click();
+  const ascending = await differences();
+  expect(ascending).toHaveLength(40);
+  expect(ascending).toEqual([...ascending].sort((a, b) => a - b));
+  expect(ascending[0]).toBeLessThan(ascending[39]);
+  await page.getByTestId('sort-difference').click();
+  const descending = await differences();
+  expect(descending).toEqual([...ascending].sort((a, b) => b - a));
+  await expect(page.locator('[data-testid="pairs-table"] tbody tr').first().locator('td').nth(4)).toHaveText(
+    (await page.getByTestId(`pair-${key}`).getByTestId('pair-difference').textContent())!.trim(),
+  );
+  await page.getByTestId('plots').scrollIntoViewIfNeeded();
+  await shootRegion(page, ['plots', 'pairs'], 'findings-plots.png');
+  // The same in grey, as a black-and-white print shows it (for people to look at).
+  const grey = await page.addStyleTag({ content: 'html { filter: grayscale(1); }' });
+  await shootRegion(page, ['plots', 'pairs'], 'findings-plots-grey.png');
+  await grey.evaluate((style) => (style as Element).remove());
 });
+
+/** Where the chart drew each specimen's point: [grid position, x, y] in CSS pixels of the canvas (markers-plugin.ts). */
+async function pointsOn(canvas: Locator): Promise<[number, number, number][]> {
+  await expect(canvas).toHaveAttribute('data-points', /\[\[/);
+  return JSON.parse((await canvas.getAttribute('data-points'))!) as [number, number, number][];
+}
+
+/** A screenshot of the page from the top of the first element to the bottom of the last (by test id). */
+async function shootRegion(page: Page, ids: string[], file: string): Promise<void> {
+  const height = await page.evaluate(() => {
+    const pane = document.querySelector('mat-sidenav-content');
+    return Math.ceil((pane?.scrollHeight ?? document.body.scrollHeight) + (pane?.getBoundingClientRect().top ?? 0));
+  });
+  await page.setViewportSize({ width: 1366, height: Math.max(768, height) });
+  await page.waitForTimeout(400);
+  const first = (await page.getByTestId(ids[0]).boundingBox())!;
+  const last = (await page.getByTestId(ids[ids.length - 1]).boundingBox())!;
+  await page.screenshot({ path: path.join(SCREENSHOTS, file), clip: { x: 0, y: first.y - 8, width: 1366, height: last.y + last.height - first.y + 16 } });
+  await page.setViewportSize({ width: 1366, height: 768 });
+}
 
 /** A new glucose comparison of line 2 (candidate) against line 1 (comparative), saved; the page is on its Specimens tab. */
 async function newGlucoseComparison(page: Page, title: string): Promise<void> {

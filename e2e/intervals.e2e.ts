@@ -131,7 +131,27 @@ test('a technologist establishes a creatinine reference interval from 120 indivi
   await expect(page.getByTestId('partition-sex')).toHaveText(/^By sex: (separate intervals recommended|one common interval is enough) \(z = /);
   await expect(page.getByTestId('outliers')).toBeVisible();
   await expectPainted(page.getByTestId('plot-values').locator('canvas'));
+  await expect(page.getByTestId('plot-values').locator('figcaption')).toContainText('Light bars lie beyond a limit.');
   await fullShot(page, 'interval-establish.png');
+
+  // Whole-number results, binned at half-steps of 1 µmol/L (shared/types/plot-axes.ts): bars of equal width
+  // standing evenly from the lowest value to the highest. Hovering the tallest names its values, its count and who they are.
+  const histogram = page.getByTestId('plot-values').locator('canvas');
+  await histogram.scrollIntoViewIfNeeded();
+  await expect(histogram).toHaveAttribute('data-bars', /\[\[/);
+  const bars = JSON.parse((await histogram.getAttribute('data-bars'))!) as [number, number, number][];
+  expect(bars.length).toBeGreaterThanOrEqual(8);
+  const gaps = bars.slice(1).map((b, k) => b[1] - bars[k][1]);
+  expect(Math.max(...gaps) - Math.min(...gaps)).toBeLessThan(1); // equal widths: the bars stand evenly
+  const tallest = bars.reduce((top, b) => (b[2] < top[2] ? b : top));
+  await histogram.hover({ position: { x: tallest[1], y: tallest[2] } });
+  const barTip = page.getByTestId('plot-values').getByTestId('plot-tip');
+  await expect(barTip).toBeVisible();
+  await expect(barTip.locator('strong')).toHaveText(/^\d+( to \d+)? µmol\/L$/);
+  await expect(barTip).toContainText(/\d+ individuals/);
+  await expect(barTip).toContainText(/RI-\d{3} \(row \d+\)/);
+  await page.getByTestId('plot-values').screenshot({ path: path.join(SCREENSHOTS, 'interval-establish-histogram.png') });
+  await page.mouse.move(0, 0);
 
   // One click on a flagged value asks for the reason, excludes the row, and a new run analyses 119.
   const flagged = page.locator('[data-testid^="exclude-"]').first();
@@ -184,5 +204,20 @@ test('a technologist verifies a stated potassium interval with 20 individuals, o
   await expect(page.getByTestId('verify-advice')).toHaveCount(0);
   await expect(page.getByTestId('verify-source')).toHaveText(SOURCE);
   await expectPainted(page.getByTestId('plot-strip').locator('canvas'));
+  await expect(page.getByTestId('plot-strip').locator('figcaption')).toContainText('diamonds: outside it');
   await fullShot(page, 'interval-verify.png');
+
+  // Each point is an individual: hovering the one outside names it and its value.
+  const strip = page.getByTestId('plot-strip').locator('canvas');
+  await strip.scrollIntoViewIfNeeded();
+  await expect(strip).toHaveAttribute('data-points', /\[\[/);
+  const points = JSON.parse((await strip.getAttribute('data-points'))!) as [number, number, number][];
+  expect(points.map((p) => p[0]).sort((a, b) => a - b)).toEqual(Array.from({ length: 20 }, (_, i) => i + 1));
+  const [, x, y] = points.find((p) => p[0] === 13)!;
+  await strip.hover({ position: { x, y } });
+  const tip = page.getByTestId('plot-strip').getByTestId('plot-tip');
+  await expect(tip.locator('strong')).toHaveText('RV-13 (row 13)');
+  await expect(tip).toContainText('Value 5.4 mmol/L');
+  await expect(tip).toContainText('Outside the stated interval');
+  await page.getByTestId('plot-strip').screenshot({ path: path.join(SCREENSHOTS, 'interval-verify-strip.png') });
 });

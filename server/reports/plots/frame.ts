@@ -16,12 +16,18 @@ export interface Frame {
 }
 
 const INSET = { left: 42, right: 8, top: 18, bottom: 42 };
+/** The height of one more row of legend keys under the axis title. */
+export const LEGEND_ROW = 11;
 
-export function makeFrame(doc: PDFKit.PDFDocument, box: { x: number; y: number; width: number; height: number }, xAxis: Axis, yAxis: Axis): Frame {
+/** The width of a box's data area (what a legend may fill). */
+export const dataWidth = (box: { width: number }): number => box.width - INSET.left - INSET.right;
+
+/** The data area of a box: room is left under it for the tick labels, the axis title and `legendRows` rows of keys. */
+export function makeFrame(doc: PDFKit.PDFDocument, box: { x: number; y: number; width: number; height: number }, xAxis: Axis, yAxis: Axis, legendRows = 1): Frame {
   const x = box.x + INSET.left;
   const y = box.y + INSET.top;
-  const width = box.width - INSET.left - INSET.right;
-  const height = box.height - INSET.top - INSET.bottom;
+  const width = dataWidth(box);
+  const height = box.height - INSET.top - INSET.bottom - Math.max(0, legendRows - 1) * LEGEND_ROW;
   return { doc, x, y, width, height, xAxis, yAxis, px: scale(xAxis, x, x + width), py: scale(yAxis, y + height, y) };
 }
 

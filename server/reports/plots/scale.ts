@@ -1,6 +1,10 @@
+import { niceAxis as sharedNiceAxis, paddedAxis as sharedPaddedAxis } from '../../../shared/types/plot-axes';
 import { num } from '../format';
 
-/** A linear map from data to page coordinates, with "nice" tick values (steps of 1, 2, 2.5 or 5 × 10^k). */
+/**
+ * A linear map from data to page coordinates, with "nice" tick values (steps of 1, 2, 2.5 or 5 × 10^k). The
+ * ticks and the padding come from shared/types/plot-axes.ts, as the plots of the findings page take them.
+ */
 export interface Axis {
   min: number;
   max: number;
@@ -9,25 +13,14 @@ export interface Axis {
   decimals: number;
 }
 
-export function niceAxis(lo: number, hi: number, count = 5): Axis {
-  if (!Number.isFinite(lo) || !Number.isFinite(hi)) return niceAxis(0, 1, count);
-  if (hi - lo < 1e-12) {
-    const half = Math.abs(lo) > 0 ? Math.abs(lo) * 0.05 : 0.5;
-    return niceAxis(lo - half, hi + half, count);
-  }
-  const raw = (hi - lo) / count;
-  const power = Math.pow(10, Math.floor(Math.log10(raw)));
-  const step = [1, 2, 2.5, 5, 10].map((m) => m * power).find((s) => s >= raw) ?? 10 * power;
-  const min = Math.floor(lo / step + 1e-9) * step;
-  const max = Math.ceil(hi / step - 1e-9) * step;
-  const ticks: number[] = [];
-  const steps = Math.round((max - min) / step);
-  for (let i = 0; i <= steps; i++) {
-    const t = Number((min + i * step).toPrecision(12));
-    ticks.push(t === 0 ? 0 : t);
-  }
-  const decimals = Math.max(0, -Math.floor(Math.log10(step) + 1e-9) + (step / power === 2.5 ? 1 : 0));
-  return { min, max, ticks, decimals };
+/** Ticks over [lo, hi]; with a reporting step, never finer than it and 2.5 × 10^k only where it can be written. */
+export function niceAxis(lo: number, hi: number, count = 5, resolution?: number | null): Axis {
+  return sharedNiceAxis(lo, hi, { count, resolution });
+}
+
+/** An axis over the values padded on both sides, so no extreme point sits on the frame. */
+export function paddedAxis(values: Iterable<number>, options: { count?: number; resolution?: number | null; share?: number } = {}): Axis {
+  return sharedPaddedAxis(values, options);
 }
 
 export const tickLabel = (axis: Axis, value: number): string => num(value, axis.decimals);

@@ -1,8 +1,8 @@
 import { COLOR } from '../theme';
-import { clipped, drawAxes, makeFrame } from './frame';
-import { dataLine, legend, points } from './marks';
+import { clipped, dataWidth, drawAxes, makeFrame, type Frame } from './frame';
+import { dataLine, legend, legendRows, points, type LegendItem } from './marks';
 import type { Box } from './plot-box';
-import { extent, niceAxis } from './scale';
+import { paddedAxis } from './scale';
 
 export interface ScatterInput {
   included: [number, number][];
@@ -11,14 +11,31 @@ export interface ScatterInput {
   line: { slope: number; intercept: number; label: string } | null;
   xLabel: string;
   yLabel: string;
+  /** The reporting step of the results (ticks are never finer). */
+  resolution?: number | null;
+  /** At least this many rows of legend (to line up with the plot beside it). */
+  legendRows?: number;
 }
 
-/** Candidate against comparative on one common scale, with the identity line and the fitted line. */
-export function scatterPlot(doc: PDFKit.PDFDocument, box: Box, input: ScatterInput): void {
+/** The scatter's legend: the pairs, the identity line, the fitted line and the excluded pairs. */
+export function scatterLegend(input: ScatterInput): LegendItem[] {
+  return [
+    { label: 'pairs', color: COLOR.accent, kind: 'point' },
+    { label: 'y = x', color: COLOR.muted, kind: 'dash' },
+    ...(input.line ? [{ label: input.line.label, color: COLOR.warm, kind: 'line' as const }] : []),
+    ...(input.excluded.length ? [{ label: 'excluded', color: COLOR.warm, kind: 'cross' as const }] : []),
+  ];
+}
+
+/**
+ * Candidate against comparative on one common scale, padded so no point sits on the frame, with the identity
+ * line and the fitted line; excluded pairs as crosses (a shape, not only a colour).
+ */
+export function scatterPlot(doc: PDFKit.PDFDocument, box: Box, input: ScatterInput): Frame {
   const all = [...input.included, ...input.excluded];
-  const [lo, hi] = extent(all.flatMap(([x, y]) => [x, y]));
-  const axis = niceAxis(lo, hi);
-  const frame = makeFrame(doc, box, axis, axis);
+  const axis = paddedAxis(all.flatMap(([x, y]) => [x, y]), { resolution: input.resolution });
+  const items = scatterLegend(input);
+  const frame = makeFrame(doc, box, axis, axis, Math.max(input.legendRows ?? 1, legendRows(doc, items, dataWidth(box)).length));
   drawAxes(frame, { title: 'Scatter plot', x: input.xLabel, y: input.yLabel });
   clipped(frame, () => {
     dataLine(frame, [axis.min, axis.min], [axis.max, axis.max], { color: COLOR.muted, width: 0.8, dash: 3 });
@@ -27,11 +44,8 @@ export function scatterPlot(doc: PDFKit.PDFDocument, box: Box, input: ScatterInp
       dataLine(frame, [axis.min, intercept + slope * axis.min], [axis.max, intercept + slope * axis.max], { color: COLOR.warm, width: 1.3 });
     }
     points(frame, input.included, { color: COLOR.accent });
-    points(frame, input.excluded, { color: COLOR.bad, hollow: true, radius: 2.2 });
+    points(frame, input.excluded, { color: COLOR.warm, shape: 'cross', radius: 2 });
   });
-  legend(frame, [
-    { label: 'y = x', color: COLOR.muted, kind: 'dash' },
-    ...(input.line ? [{ label: input.line.label, color: COLOR.warm, kind: 'line' as const }] : []),
-    ...(input.excluded.length ? [{ label: 'excluded', color: COLOR.bad, kind: 'ring' as const }] : []),
-  ]);
+  legend(frame, items);
+  return frame;
 }

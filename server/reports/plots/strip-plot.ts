@@ -1,8 +1,9 @@
+import { dataStep } from '../../../shared/types/plot-axes';
 import { COLOR } from '../theme';
-import { clipped, drawAxes, makeFrame } from './frame';
+import { clipped, drawAxes, makeFrame, type Frame } from './frame';
 import { band, legend, markerLine } from './marks';
 import type { Box } from './plot-box';
-import { extent, niceAxis } from './scale';
+import { niceAxis, paddedAxis } from './scale';
 
 export interface StripInput {
   title: string;
@@ -10,15 +11,19 @@ export interface StripInput {
   values: number[];
   lower: number | null;
   upper: number | null;
+  /** The reporting step of the values; read from the values when not given. */
+  resolution?: number | null;
 }
 
 /**
  * Values as dots along one axis, stacked where they would overlap (a dot plot, so no random jitter),
- * against the stated limits; dots outside the limits in the alarm colour.
+ * against the stated limits; values outside the limits as diamonds in the warm colour (a shape as well as a
+ * colour). The axis is padded past every value and limit, its ticks in steps the results can be reported in.
  */
-export function stripPlot(doc: PDFKit.PDFDocument, box: Box, input: StripInput): void {
+export function stripPlot(doc: PDFKit.PDFDocument, box: Box, input: StripInput): Frame {
   const limits = [input.lower, input.upper].filter((v): v is number => v !== null);
-  const frame = makeFrame(doc, box, niceAxis(...extent([...input.values, ...limits], 0.08)), niceAxis(0, 1, 1));
+  const resolution = input.resolution ?? (input.values.length ? dataStep([...input.values, ...limits]) : null);
+  const frame = makeFrame(doc, box, paddedAxis([...input.values, ...limits], { resolution, share: 0.08 }), niceAxis(0, 1, 1));
   drawAxes(frame, { title: input.title, x: input.xLabel, y: null });
   const radius = 2.4;
   const stacks = new Map<number, number>();
@@ -30,13 +35,22 @@ export function stripPlot(doc: PDFKit.PDFDocument, box: Box, input: StripInput):
       const level = stacks.get(column) ?? 0;
       stacks.set(column, level + 1);
       const outside = (input.lower !== null && v < input.lower) || (input.upper !== null && v > input.upper);
-      const cy = frame.y + frame.height - radius - 1 - level * 2 * radius;
-      doc.circle(column * 2 * radius, Math.max(frame.y + radius, cy), radius).fillColor(outside ? COLOR.bad : COLOR.ink).fillOpacity(0.85).fill();
+      const cx = column * 2 * radius;
+      const cy = Math.max(frame.y + radius, frame.y + frame.height - radius - 1 - level * 2 * radius);
+      doc.save();
+      if (outside) {
+        const r = radius * 1.15;
+        doc.polygon([cx, cy - r], [cx + r, cy], [cx, cy + r], [cx - r, cy]).lineWidth(0.8).fillColor(COLOR.warm).strokeColor(COLOR.warm).fillOpacity(0.4).fillAndStroke();
+      } else {
+        doc.circle(cx, cy, radius).fillColor(COLOR.ink).fillOpacity(0.85).fill();
+      }
+      doc.restore();
     }
   });
   legend(frame, [
     { label: 'stated limits', color: COLOR.accent, kind: 'dash' },
     { label: 'inside', color: COLOR.ink, kind: 'point' },
-    { label: 'outside', color: COLOR.bad, kind: 'point' },
+    { label: 'outside', color: COLOR.warm, kind: 'diamond' },
   ]);
+  return frame;
 }

@@ -1,12 +1,18 @@
 import type { Chart, Plugin } from 'chart.js';
 
-/** A straight line across the plot at a value of one axis, with an optional label at its end. */
+/**
+ * A straight line across the plot at a value of one axis. A line with a label is named in the legend under
+ * the plot (chart-options.ts, legendEntries; never in a margin beside it); `axisMark` also puts a small triangle on the axis at its value
+ * (decision levels on the x axis).
+ */
 export interface MarkerLine {
   axis: 'x' | 'y';
   value: number;
   color: string;
   dash?: number[];
+  width?: number;
   label?: string;
+  axisMark?: boolean;
 }
 
 /** A shaded strip between two values of one axis (a CI band); ±Infinity reaches the edge of the plot. */
@@ -15,11 +21,22 @@ export interface MarkerBand {
   from: number;
   to: number;
   color: string;
+  label?: string;
+}
+
+/** A shaded region between a lower and an upper curve over x (the allowable-bias band), its edges drawn. */
+export interface MarkerArea {
+  points: { x: number; lower: number; upper: number }[];
+  color: string;
+  edge: string;
+  dash?: number[];
+  label?: string;
 }
 
 export interface Markers {
   lines: MarkerLine[];
   bands: MarkerBand[];
+  areas?: MarkerArea[];
 }
 
 declare module 'chart.js' {
@@ -28,18 +45,7 @@ declare module 'chart.js' {
   }
 }
 
-/** A line's label, outside the plot area (see labelPadding) so it never hides a point or a bar. */
-function label(ctx: CanvasRenderingContext2D, text: string, x: number, y: number, align: 'left' | 'center', color: string): void {
-  ctx.setLineDash([]);
-  ctx.fillStyle = color;
-  const half = ctx.measureText(text).width / 2;
-  const width = ctx.canvas.width / (window.devicePixelRatio || 1);
-  const at = align === 'center' ? Math.min(Math.max(x, half + 2), width - half - 2) : x;
-  ctx.textAlign = align;
-  ctx.fillText(text, at, y);
-}
-
-/** The lowest and highest value the markers put on one axis, so the scale can show them all. */
+/** The lowest and highest value the lines and bands put on one axis, so the scale can show them all. */
 export function markerRange(markers: Partial<Markers>, axis: 'x' | 'y'): [number, number] | null {
   const values = [
     ...(markers.lines ?? []).filter((l) => l.axis === axis).map((l) => l.value),
@@ -55,14 +61,38 @@ function pixel(chart: Chart, axis: 'x' | 'y', value: number): number {
   return chart.scales[axis].getPixelForValue(value);
 }
 
-function span(chart: Chart, axis: 'x' | 'y', a: number, b: number): [number, number] {
-  return [pixel(chart, axis, a), pixel(chart, axis, b)];
+function clip(chart: Chart): void {
+  const { ctx, chartArea: area } = chart;
+  ctx.beginPath();
+  ctx.rect(area.left, area.top, area.width, area.height);
+  ctx.clip();
 }
 
-/** Room outside the plot for the labels: on the right for lines across, on top for lines up. */
-export function labelPadding(markers: Partial<Markers>): { right: number; top: number } {
-  const labelled = (axis: 'x' | 'y'): boolean => (markers.lines ?? []).some((l) => l.axis === axis && !!l.label);
-  return { right: labelled('y') ? 150 : 0, top: labelled('x') ? 18 : 0 };
+/** The curves' y beyond the plot are drawn at its edge (a percentage of zero is infinite). */
+function py(chart: Chart, value: number): number {
+  const { chartArea: area } = chart;
+  if (!Number.isFinite(value)) return value > 0 ? area.top - 2 : area.bottom + 2;
+  return Math.min(area.bottom + 2, Math.max(area.top - 2, chart.scales['y'].getPixelForValue(value)));
+}
+
+function drawArea(chart: Chart, area: MarkerArea): void {
+  const { ctx } = chart;
+  const pts = area.points;
+  if (pts.length < 2) return;
+  ctx.beginPath();
+  pts.forEach((p, k) => (k === 0 ? ctx.moveTo(pixel(chart, 'x', p.x), py(chart, p.upper)) : ctx.lineTo(pixel(chart, 'x', p.x), py(chart, p.upper))));
+  for (let k = pts.length - 1; k >= 0; k--) ctx.lineTo(pixel(chart, 'x', pts[k].x), py(chart, pts[k].lower));
+  ctx.closePath();
+  ctx.fillStyle = area.color;
+  ctx.fill();
+  ctx.strokeStyle = area.edge;
+  ctx.lineWidth = 1;
+  ctx.setLineDash(area.dash ?? []);
+  for (const side of ['upper', 'lower'] as const) {
+    ctx.beginPath();
+    pts.forEach((p, k) => (k === 0 ? ctx.moveTo(pixel(chart, 'x', p.x), py(chart, p[side])) : ctx.lineTo(pixel(chart, 'x', p.x), py(chart, p[side]))));
+    ctx.stroke();
+  }
 }
 
 /** Draws the bands under the data and the lines over it (chart.js has no such element without a plugin). */
@@ -71,8 +101,10 @@ export const markersPlugin: Plugin = {
   beforeDatasetsDraw(chart, _args, options: Partial<Markers>) {
     const { ctx, chartArea: area } = chart;
     ctx.save();
+    clip(chart);
+    for (const a of options.areas ?? []) drawArea(chart, a);
     for (const band of options.bands ?? []) {
-      const [p, q] = span(chart, band.axis, band.from, band.to);
+      const [p, q] = [pixel(chart, band.axis, band.from), pixel(chart, band.axis, band.to)];
       ctx.fillStyle = band.color;
       if (band.axis === 'y') ctx.fillRect(area.left, Math.min(p, q), area.width, Math.abs(q - p));
       else ctx.fillRect(Math.min(p, q), area.top, Math.abs(q - p), area.height);
@@ -81,14 +113,15 @@ export const markersPlugin: Plugin = {
   },
   afterDatasetsDraw(chart, _args, options: Partial<Markers>) {
     const { ctx, chartArea: area } = chart;
-    ctx.save();
-    ctx.font = "12px 'Open Sans', sans-serif";
     for (const line of options.lines ?? []) {
-      const [p] = span(chart, line.axis, line.value, line.value);
+      const p = pixel(chart, line.axis, line.value);
       if (!Number.isFinite(p)) continue;
+      const inside = line.axis === 'y' ? p >= area.top - 0.5 && p <= area.bottom + 0.5 : p >= area.left - 0.5 && p <= area.right + 0.5;
+      if (!inside) continue;
+      ctx.save();
       ctx.strokeStyle = line.color;
       ctx.fillStyle = line.color;
-      ctx.lineWidth = 1.5;
+      ctx.lineWidth = line.width ?? 1.5;
       ctx.setLineDash(line.dash ?? []);
       ctx.beginPath();
       if (line.axis === 'y') {
@@ -99,8 +132,55 @@ export const markersPlugin: Plugin = {
         ctx.lineTo(p, area.bottom);
       }
       ctx.stroke();
-      if (line.label) label(ctx, line.label, line.axis === 'y' ? area.right + 6 : p, line.axis === 'y' ? p + 4 : area.top - 6, line.axis === 'y' ? 'left' : 'center', line.color);
+      if (line.axisMark && line.axis === 'x') {
+        // A triangle standing on the x axis, pointing up at the line.
+        ctx.setLineDash([]);
+        ctx.beginPath();
+        ctx.moveTo(p, area.bottom - 9);
+        ctx.lineTo(p - 5, area.bottom);
+        ctx.lineTo(p + 5, area.bottom);
+        ctx.closePath();
+        ctx.fill();
+      }
+      ctx.restore();
     }
-    ctx.restore();
+  },
+};
+
+/**
+ * Where each specimen's point is drawn (CSS pixels from the canvas's top left), written on the canvas after
+ * every layout as `data-points` = [[key, x, y], ...], the ringed (selected) one as `data-selected` = [key, x, y],
+ * and each bar's middle as `data-bars` = [[index, x, y], ...]: tests and tools find a specimen's point or a bar
+ * there, as a person finds it by eye.
+ */
+export const pointKeysPlugin: Plugin = {
+  id: 'parallaxPointKeys',
+  afterUpdate(chart) {
+    const points: [number, number, number][] = [];
+    const bars: [number, number, number][] = [];
+    let selected: [number, number, number] | null = null;
+    const at = (v: number): number => Math.round(v * 10) / 10;
+    chart.data.datasets.forEach((dataset, i) => {
+      const meta = chart.getDatasetMeta(i);
+      const highlight = (dataset as { highlight?: boolean }).highlight === true;
+      (dataset.data as unknown[]).forEach((raw, j) => {
+        const el = meta.data[j] as unknown as { x: number; y: number; base?: number } | undefined;
+        if (!el) return;
+        if (meta.type === 'bar') {
+          bars.push([j, at(el.x), at(el.base === undefined ? el.y : (el.y + el.base) / 2)]);
+          return;
+        }
+        const key = (raw as { key?: number } | null)?.key;
+        if (key === undefined) return;
+        if (highlight) selected = [key, at(el.x), at(el.y)];
+        else points.push([key, at(el.x), at(el.y)]);
+      });
+    });
+    const canvas = chart.canvas;
+    if (!canvas) return;
+    canvas.setAttribute('data-points', JSON.stringify(points));
+    canvas.setAttribute('data-bars', JSON.stringify(bars));
+    if (selected) canvas.setAttribute('data-selected', JSON.stringify(selected));
+    else canvas.removeAttribute('data-selected');
   },
 };

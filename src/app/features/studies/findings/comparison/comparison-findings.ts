@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, effect, inject, input, untracked } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal, untracked } from '@angular/core';
 import type { Analysis, Study } from '../../../../../../shared/schemas';
 import { Notices } from '../../../../core/notify/notices';
 import { ErrorBanner } from '../../../../ui/error-banner';
@@ -10,21 +10,27 @@ import { asComparison, unitsOf } from './comparison-result';
 import { EstimateTables } from './estimate-tables/estimate-tables';
 import { FindingsPlots } from './findings-plots/findings-plots';
 import { Exclusion, OutlierList } from './outlier-list/outlier-list';
+import { pairFlags, pairFormat, pairRows } from './pairs-table/pair-rows';
+import { PairsTable } from './pairs-table/pairs-table';
 import { SensitivityPanel } from './sensitivity-panel/sensitivity-panel';
 import { VerdictPanel } from './verdict-panel/verdict-panel';
 
-/** The Findings of a method comparison, in order: verdict, sensitivity, tables, outliers and warnings, plots. */
+/**
+ * The Findings of a method comparison, in order: verdict, sensitivity, tables, outliers and warnings, plots, and
+ * the table of pairs (a point clicked on a plot and a row chosen in the table are one selected specimen).
+ */
 @Component({
   selector: 'app-comparison-findings',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [ErrorBanner, VerdictPanel, SensitivityPanel, EstimateTables, OutlierList, FindingsPlots],
+  imports: [ErrorBanner, VerdictPanel, SensitivityPanel, EstimateTables, OutlierList, FindingsPlots, PairsTable],
   template: `
     @if (result(); as r) {
       <app-verdict-panel [result]="r" [units]="units()!" [source]="study().settings.allowableBiasSource" />
       <app-sensitivity-panel [result]="r" [units]="units()!" />
       <app-estimate-tables [result]="r" [units]="units()!" />
       <app-outlier-list [result]="r" [rows]="specimens.rows()" [canExclude]="current() && studyStore.editable()" (excluded)="exclude($event)" />
-      <app-findings-plots [result]="r" [units]="units()!" [points]="points()" />
+      <app-findings-plots [result]="r" [units]="units()!" [points]="points()" [format]="format()" [flags]="flags()" [(selected)]="selected" />
+      <app-pairs-table [rows]="pairs()" [format]="format()!" [(selected)]="selected" />
     } @else {
       <app-error-banner message="These results are not those of a method comparison; Parallax cannot show them here." />
     }
@@ -47,6 +53,15 @@ export class ComparisonFindings {
   protected readonly points = computed(() =>
     this.current() && this.result() ? plotPoints(this.specimens.rows(), this.result()!.differenceType) : null,
   );
+  /** How pairs are written in the table and in the points' tooltips: as reported, in the study's decimals. */
+  protected readonly format = computed(() => (this.result() ? pairFormat(this.study().settings, this.units()!.unit, this.result()!.differenceType) : null));
+  protected readonly pairs = computed(() => {
+    const points = this.points();
+    return points && this.result() ? pairRows(points, this.specimens.rows(), this.result()!) : null;
+  });
+  protected readonly flags = computed(() => new Map((this.pairs() ?? []).map((p) => [p.position, pairFlags(p)])));
+  /** The grid position of the specimen selected on a plot or in the table of pairs. */
+  protected readonly selected = signal<number | null>(null);
 
   constructor() {
     effect(() => {

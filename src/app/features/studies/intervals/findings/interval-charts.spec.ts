@@ -1,54 +1,78 @@
 import type { LimitResult } from '../../../../../../shared/stats/reference-interval';
 import { PALETTE } from '../../findings/charts/palette';
 import type { GridRow } from '../../specimens/specimen-layout';
-import { analysedValues, binCount, stripData, valueHistogram } from './interval-charts';
+import { type PlacedValue, analysedValues, individualName, stripData, valueHistogram } from './interval-charts';
 
 const row = (uid: number, value: string, sex: string, excluded = false): GridRow => ({ uid, label: `R${uid}`, value, sex, ageBand: '', excluded, exclusionReason: '', note: '' });
 const limit = (estimate: number, ci: [number, number], rankCi: [number, number] | null): LimitResult => ({
   percentile: 2.5, estimate, ci, rankCi, ranks: null, distribution: null,
 });
 const label = (v: number): string => v.toFixed(1);
+const placed = (values: number[]): PlacedValue[] => values.map((value, i) => ({ position: i + 1, value, label: `RI-${i + 1}` }));
 
 describe('interval chart data', () => {
-  it('reads the analysed values with their grid positions, skipping excluded, empty and other-subgroup rows', () => {
+  it('reads the analysed values with their grid positions and labels, skipping excluded, empty and other-subgroup rows', () => {
     const rows = [row(1, '4,2', 'F'), row(2, '5.0', 'M'), row(3, '', 'F'), row(4, '9.9', 'F', true), row(5, '3.8', 'F')];
-    expect(analysedValues(rows)).toEqual([{ position: 1, value: 4.2 }, { position: 2, value: 5 }, { position: 5, value: 3.8 }]);
-    expect(analysedValues(rows, { field: 'sex', group: 'F' })).toEqual([{ position: 1, value: 4.2 }, { position: 5, value: 3.8 }]);
+    expect(analysedValues(rows)).toEqual([{ position: 1, value: 4.2, label: 'R1' }, { position: 2, value: 5, label: 'R2' }, { position: 5, value: 3.8, label: 'R5' }]);
+    expect(analysedValues(rows, { field: 'sex', group: 'F' }).map((v) => v.position)).toEqual([1, 5]);
+    expect(individualName({ label: 'R1', position: 1 })).toBe('R1 (row 1)');
+    expect(individualName({ label: '', position: 4 })).toBe('Row 4');
   });
 
-  it('chooses about √n bins, between 8 and 30', () => {
-    expect(binCount(20)).toBe(8);
-    expect(binCount(120)).toBe(11);
-    expect(binCount(5000)).toBe(30);
-  });
-
-  it('counts every value once and draws each limit with its bootstrap band and rank-based CI lines', () => {
-    const values = Array.from({ length: 120 }, (_, i) => 50 + i * 0.25);
-    const h = valueHistogram(values, limit(51, [50.5, 51.6], [50.25, 51.75]), limit(79, [78.2, 79.6], null), label);
+  it('counts every value once and draws each limit with its bootstrap band and rank-based CI lines, named in the legend', () => {
+    const values = placed(Array.from({ length: 120 }, (_, i) => 50 + i * 0.25));
+    const h = valueHistogram(values, limit(51, [50.5, 51.6], [50.25, 51.75]), limit(79, [78.2, 79.6], null), label, 0.01);
     expect(h.bars.reduce((s, b) => s + b.y, 0)).toBe(120);
-    expect(h.markers.bands).toEqual([
-      { axis: 'x', from: 50.5, to: 51.6, color: PALETTE.biasBand },
-      { axis: 'x', from: 78.2, to: 79.6, color: PALETTE.biasBand },
+    expect(h.markers.bands.map((b) => [b.from, b.to, b.label])).toEqual([
+      [50.5, 51.6, 'Bootstrap CI 50.5 to 51.6'],
+      [78.2, 79.6, 'Bootstrap CI 78.2 to 79.6'],
     ]);
-    expect(h.markers.lines.map((l) => [l.value, l.label ?? null])).toEqual([[51, 'Lower 51.0'], [50.25, null], [51.75, null], [79, 'Upper 79.0']]);
+    expect(h.markers.lines.map((l) => [l.value, l.label ?? null])).toEqual([
+      [51, 'Lower limit 51.0'], [50.25, 'Rank-based CI 50.3 to 51.8'], [51.75, null], [79, 'Upper limit 79.0'],
+    ]);
   });
 
-  it('colours the bars wholly beyond a limit as tails', () => {
-    const h = valueHistogram([1, 2, 3, 4, 5, 6, 7, 8, 9, 10], limit(3.5, [3, 4], null), null, label);
-    expect(h.colors.slice(0, 3)).toEqual([PALETTE.tail, PALETTE.tail, PALETTE.barInCi]);
-    expect(h.colors[7]).toBe(PALETTE.barInCi);
+  it('bins whole-number results at half-steps, so no bin is empty between two reported values', () => {
+    // Every whole number from 60 to 79, six times each: a flat distribution must give flat bars.
+    const values = placed(Array.from({ length: 120 }, (_, k) => 60 + (k % 20)));
+    const h = valueHistogram(values, null, null, label, 1);
+    expect(h.bars.map((b) => b.y)).toEqual(new Array(20).fill(6));
+    expect(h.bars[0].x).toBe(60);
+    // Padded: the outer bars are inside the axis, with ticks in whole numbers.
+    expect(h.axes.x.min).toBeLessThan(59.5);
+    expect(h.axes.x.max).toBeGreaterThan(79.5);
+    expect(h.axes.x.ticks.every(Number.isInteger)).toBe(true);
+  });
+
+  it('names the range, the count and the individuals of a bar in its tooltip', () => {
+    const values = placed([60, 61, 61, 62, 70, 71, 72, 73, 74, 75, 76, 77, 78, 79, 80, 81, 82, 83, 84, 85]);
+    const h = valueHistogram(values, null, null, label, 1, { value: String, unit: 'µmol/L' });
+    // 20 values over 26 whole numbers: bins of 5 (59.5 to 64.5 holds 60 to 64).
+    expect(h.bars[0].tip).toEqual(['60 to 64 µmol/L', '4 individuals', 'RI-1 (row 1), RI-2 (row 2), RI-3 (row 3), RI-4 (row 4)']);
+    const many = valueHistogram(placed(new Array(9).fill(5)), null, null, label, 1, { value: String, unit: '' });
+    expect(many.bars[0].tip).toEqual(['5', '9 individuals', 'RI-1 (row 1), RI-2 (row 2), RI-3 (row 3), RI-4 (row 4), RI-5 (row 5), RI-6 (row 6) and 3 more']);
+  });
+
+  it('colours the bars wholly beyond a limit light', () => {
+    const h = valueHistogram(placed([1, 2, 3, 4, 5, 6, 7, 8, 9, 10]), limit(3.5, [3, 4], null), null, label, 1);
+    // A bin for each value: those of 1, 2 and 3 lie below 3.5.
+    expect(h.colors).toEqual([PALETTE.tail, PALETTE.tail, PALETTE.tail, ...new Array(7).fill(PALETTE.barInCi)]);
   });
 
   it('draws a one-sided interval with one limit only', () => {
-    const h = valueHistogram([1, 2, 3, 4, 5, 6, 7, 8], null, limit(7.5, [7, 8], null), label);
+    const h = valueHistogram(placed([1, 2, 3, 4, 5, 6, 7, 8]), null, limit(7.5, [7, 8], null), label, 1);
     expect(h.markers.lines).toHaveLength(1);
-    expect(h.markers.lines[0].label).toBe('Upper 7.5');
+    expect(h.markers.lines[0].label).toBe('Upper limit 7.5');
   });
 
-  it('puts the values outside the stated limits apart, each at its row', () => {
-    const s = stripData([{ position: 1, value: 3.4 }, { position: 2, value: 4.1 }, { position: 3, value: 5.1 }, { position: 4, value: 5.2 }], { lower: 3.5, upper: 5.1 }, label);
-    expect(s.inside).toEqual([{ x: 4.1, y: 2 }, { x: 5.1, y: 3 }]);
-    expect(s.outside).toEqual([{ x: 3.4, y: 1 }, { x: 5.2, y: 4 }]);
-    expect(s.markers.lines.map((l) => l.label)).toEqual(['Lower 3.5', 'Upper 5.1']);
+  it('puts the values outside the stated limits apart as diamonds, each at its row and named in its tooltip', () => {
+    const s = stripData(placed([3.4, 4.1, 5.1, 5.2]), { lower: 3.5, upper: 5.1 }, label, 0.1);
+    expect(s.inside.map(({ x, y }) => [x, y])).toEqual([[4.1, 2], [5.1, 3]]);
+    expect(s.outside.map(({ x, y }) => [x, y])).toEqual([[3.4, 1], [5.2, 4]]);
+    expect(s.outside[1].tip).toEqual(['RI-4 (row 4)', 'Value 5.2', 'Outside the stated interval']);
+    expect(s.datasets.map((d) => [d.label, d.pointStyle])).toEqual([['Inside', 'circle'], ['Outside', 'rectRot']]);
+    expect(s.markers.lines.map((l) => l.label)).toEqual(['Lower limit 3.5', 'Upper limit 5.1']);
+    expect(s.axes.x.min).toBeLessThan(3.4);
+    expect(s.axes.x.max).toBeGreaterThan(5.2);
   });
 });

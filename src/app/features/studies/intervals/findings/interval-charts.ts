@@ -1,16 +1,18 @@
-import { histogram } from '../../../../../../shared/stats/histogram';
+import { niceAxis, paddedAxis, resolutionBins, type PlotAxis } from '../../../../../../shared/types/plot-axes';
 import type { LimitResult } from '../../../../../../shared/stats/reference-interval';
-import { binBars } from '../../findings/charts/histogram-data';
+import { binBars, histogramAxes, rangeWords } from '../../findings/charts/histogram-data';
+import { withUnit } from '../../findings/comparison/comparison-result';
 import type { MarkerLine, Markers } from '../../findings/charts/markers-plugin';
 import { PALETTE } from '../../findings/charts/palette';
-import type { XY } from '../../findings/charts/scatter-data';
+import type { PlotDatum, PointDataset } from '../../findings/charts/scatter-data';
 import { gridNumber } from '../../specimens/result-number';
 import type { GridRow } from '../../specimens/specimen-layout';
 
-/** One analysed value with its grid position (1-based). */
+/** One analysed value with its grid position (1-based) and the individual's label. */
 export interface PlacedValue {
   position: number;
   value: number;
+  label: string;
 }
 
 /**
@@ -23,59 +25,99 @@ export function analysedValues(rows: readonly GridRow[], subgroup?: { field: str
     if (row['excluded'] === true) return;
     if (subgroup && String(row[subgroup.field] ?? '').trim() !== subgroup.group) return;
     const value = gridNumber(String(row['value'] ?? ''));
-    if (value !== null && Number.isFinite(value)) out.push({ position: i + 1, value });
+    if (value !== null && Number.isFinite(value)) out.push({ position: i + 1, value, label: String(row['label'] ?? '').trim() });
   });
   return out;
 }
 
-/** A bin count that suits n values: about √n, between 8 and 30. */
-export function binCount(n: number): number {
-  return Math.min(30, Math.max(8, Math.round(Math.sqrt(n))));
+/** An individual's name: the label, or the row when there is none. */
+export function individualName(v: Pick<PlacedValue, 'label' | 'position'>): string {
+  return v.label ? `${v.label} (row ${v.position})` : `Row ${v.position}`;
 }
 
 function limitMarkers(limit: LimitResult | null, name: string, label: (v: number) => string): Markers {
   if (!limit || limit.estimate === null) return { lines: [], bands: [] };
-  const lines: MarkerLine[] = [{ axis: 'x', value: limit.estimate, color: PALETTE.bias, label: `${name} ${label(limit.estimate)}` }];
-  if (limit.rankCi) lines.push(...limit.rankCi.map((v) => ({ axis: 'x' as const, value: v, color: PALETTE.limits, dash: [6, 4] })));
-  const bands = limit.ci ? [{ axis: 'x' as const, from: limit.ci[0], to: limit.ci[1], color: PALETTE.biasBand }] : [];
+  const lines: MarkerLine[] = [{ axis: 'x', value: limit.estimate, color: PALETTE.bias, width: 2, label: `${name} limit ${label(limit.estimate)}` }];
+  if (limit.rankCi) {
+    lines.push(...limit.rankCi.map((v, k) => ({
+      axis: 'x' as const, value: v, color: PALETTE.limits, dash: [6, 4], ...(k === 0 ? { label: `Rank-based CI ${rangeWords(label(limit.rankCi![0]), label(limit.rankCi![1]))}` } : {}),
+    })));
+  }
+  const bands = limit.ci ? [{ axis: 'x' as const, from: limit.ci[0], to: limit.ci[1], color: PALETTE.biasBand, label: `Bootstrap CI ${rangeWords(label(limit.ci[0]), label(limit.ci[1]))}` }] : [];
   return { lines, bands };
 }
 
+/** How a bin's tooltip writes its values, "58 to 60 µmol/L" (the reportable values it holds): the number, then the unit. */
+export interface ValueWords {
+  value: (v: number) => string;
+  unit: string;
+}
+
 /**
- * The values as a histogram, with a solid line at each limit, its bootstrap CI as a shaded band and its
- * rank-based CI as dashed lines. Bars of values beyond a limit are coloured as tails.
+ * The values as a histogram, bins at half-steps of the reporting step (`resolution`; shared with the PDF), with
+ * a solid line at each limit, its bootstrap CI as a shaded band and its rank-based CI as dashed lines. Bars of
+ * values beyond a limit are light. A bar's tooltip gives its range, its count and (for a few) who they are.
  */
 export function valueHistogram(
-  values: readonly number[], lower: LimitResult | null, upper: LimitResult | null, label: (v: number) => string,
-): { bars: XY[]; colors: string[]; markers: Markers } {
-  const bins = histogram(Float64Array.from(values), binCount(values.length)).bins;
+  values: readonly PlacedValue[], lower: LimitResult | null, upper: LimitResult | null, label: (v: number) => string,
+  resolution?: number | null, words?: ValueWords,
+): { bars: PlotDatum[]; colors: string[]; markers: Markers; axes: { x: PlotAxis; y: PlotAxis } } {
+  const bins = resolutionBins(values.map((v) => v.value), resolution);
   const lo = lower?.estimate ?? -Infinity;
   const hi = upper?.estimate ?? Infinity;
   const parts = [limitMarkers(lower, 'Lower', label), limitMarkers(upper, 'Upper', label)];
+  const markers: Markers = { lines: parts.flatMap((p) => p.lines), bands: parts.flatMap((p) => p.bands) };
+  const half = bins.length ? (bins[0].to - bins[0].from) / 2 : 0;
+  const step = resolution && resolution > 0 ? resolution : null;
+  const bars = binBars(bins).map((bar, k) => {
+    if (!words) return bar;
+    const b = bins[k];
+    const inBin = values.filter((v) => v.value >= b.from && v.value < b.to);
+    const first = step ? b.from + step / 2 : bar.x - half;
+    const last = step ? b.to - step / 2 : bar.x + half;
+    const range = withUnit(Math.abs(last - first) < 1e-9 ? words.value(first) : `${words.value(first)} to ${words.value(last)}`, words.unit);
+    const names = inBin.slice(0, 6).map(individualName).join(', ') + (inBin.length > 6 ? ` and ${inBin.length - 6} more` : '');
+    return { ...bar, tip: [range, `${b.count} ${b.count === 1 ? 'individual' : 'individuals'}`, ...(names ? [names] : [])] };
+  });
   return {
-    bars: binBars(bins),
+    bars,
     colors: bins.map((b) => (b.to <= lo || b.from >= hi ? PALETTE.tail : PALETTE.barInCi)),
-    markers: { lines: parts.flatMap((p) => p.lines), bands: parts.flatMap((p) => p.bands) },
+    markers,
+    axes: histogramAxes(bins, markers, resolution),
   };
 }
 
 /**
- * A strip plot of the verification values: each value at its row position (y), those outside the stated
- * limits apart; the stated interval as a shaded band between two lines.
+ * A strip plot of the verification values: each individual at its row (y), those outside the stated limits
+ * drawn as light diamonds apart from the dark circles inside (a shape, not only a colour); the stated
+ * interval as a shaded band between two lines. Each point's tooltip names the individual and the value.
  */
 export function stripData(
-  values: readonly PlacedValue[], stated: { lower: number; upper: number }, label: (v: number) => string,
-): { inside: XY[]; outside: XY[]; markers: Markers } {
-  const point = (v: PlacedValue): XY => ({ x: v.value, y: v.position });
+  values: readonly PlacedValue[], stated: { lower: number; upper: number }, label: (v: number) => string, resolution?: number | null,
+): { inside: PlotDatum[]; outside: PlotDatum[]; datasets: PointDataset[]; markers: Markers; axes: { x: PlotAxis; y: PlotAxis } } {
   const out = (v: PlacedValue): boolean => v.value < stated.lower || v.value > stated.upper;
+  const point = (v: PlacedValue): PlotDatum => ({
+    x: v.value, y: v.position, key: v.position,
+    tip: [individualName(v), `Value ${label(v.value)}`, out(v) ? 'Outside the stated interval' : 'Inside the stated interval'],
+  });
+  const inside = values.filter((v) => !out(v)).map(point);
+  const outside = values.filter(out).map(point);
+  const datasets: PointDataset[] = [
+    { label: 'Inside', data: inside, pointStyle: 'circle', backgroundColor: PALETTE.point, borderColor: PALETTE.pointBorder, borderWidth: 1, pointRadius: 4, pointHoverRadius: 6 },
+    { label: 'Outside', data: outside, pointStyle: 'rectRot', backgroundColor: PALETTE.tail, borderColor: PALETTE.excluded, borderWidth: 2, pointRadius: 7, pointHoverRadius: 8 },
+  ];
+  const rows = values.map((v) => v.position);
+  const axes = {
+    x: paddedAxis([...values.map((v) => v.value), stated.lower, stated.upper], { resolution }),
+    y: niceAxis(0, Math.max(1, ...rows) + 1, { count: 5, resolution: 1 }),
+  };
   return {
-    inside: values.filter((v) => !out(v)).map(point),
-    outside: values.filter(out).map(point),
+    inside, outside, datasets, axes,
     markers: {
-      bands: [{ axis: 'x', from: stated.lower, to: stated.upper, color: PALETTE.biasBand }],
+      bands: [{ axis: 'x', from: stated.lower, to: stated.upper, color: PALETTE.biasBand, label: 'Stated interval' }],
       lines: [
-        { axis: 'x', value: stated.lower, color: PALETTE.bias, label: `Lower ${label(stated.lower)}` },
-        { axis: 'x', value: stated.upper, color: PALETTE.bias, label: `Upper ${label(stated.upper)}` },
+        { axis: 'x', value: stated.lower, color: PALETTE.bias, width: 2, label: `Lower limit ${label(stated.lower)}` },
+        { axis: 'x', value: stated.upper, color: PALETTE.bias, width: 2, label: `Upper limit ${label(stated.upper)}` },
       ],
     },
   };

@@ -3,7 +3,6 @@ import type { ChartData } from 'chart.js';
 import type { Analysis, Study } from '../../../../../../shared/schemas';
 import { ErrorBanner } from '../../../../ui/error-banner';
 import { FindingsChart } from '../../findings/charts/findings-chart';
-import { PALETTE } from '../../findings/charts/palette';
 import { formatP } from '../../findings/comparison/number-format';
 import { analysedValues, stripData } from './interval-charts';
 import { valueFormat } from './interval-format';
@@ -45,7 +44,7 @@ import { acceptanceWords, outsideWords, powerWords } from './interval-wording';
         }
       </section>
       @if (strip(); as s) {
-        <app-findings-chart type="scatter" [data]="s.data" [markers]="s.markers" heading="Values against the stated limits" caption="Each individual at its row; shaded: the stated interval; red: outside it." [xTitle]="xTitle()" yTitle="Row" testId="plot-strip" />
+        <app-findings-chart type="scatter" [data]="s.data" [markers]="s.markers" [xAxis]="s.axes.x" [yAxis]="s.axes.y" heading="Values against the stated limits" caption="Each individual at its row; shaded: the stated interval; diamonds: outside it. Hover a point to name the individual." [xTitle]="xTitle()" yTitle="Row" testId="plot-strip" />
       } @else {
         <p class="muted" data-testid="plots-stale">The rows changed after this analysis, so the values are not drawn; run the analysis again to plot them.</p>
       }
@@ -76,13 +75,7 @@ export class VerifyFindings {
   protected readonly strip = computed(() => {
     const r = this.result();
     if (!r || !this.rows.current()) return null;
-    const s = stripData(analysedValues(this.rows.store.rows()), r.stated, this.format().label);
-    const data = {
-      datasets: [
-        { label: 'Inside', data: s.inside, clip: false, backgroundColor: PALETTE.point, borderColor: PALETTE.pointBorder },
-        { label: 'Outside', data: s.outside, clip: false, backgroundColor: PALETTE.observed, borderColor: PALETTE.observed, pointRadius: 5 },
-      ],
-    } as ChartData;
-    return { data, markers: s.markers };
+    const s = stripData(analysedValues(this.rows.store.rows()), r.stated, this.format().label, 10 ** -this.study().settings.decimals);
+    return { data: { datasets: s.datasets } as ChartData, markers: s.markers, axes: s.axes };
   });
 }

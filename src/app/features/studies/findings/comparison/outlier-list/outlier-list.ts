@@ -4,7 +4,7 @@ import { MatDialog } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
 import type { GridRow } from '../../../specimens/specimen-layout';
 import { ComparisonFindingsResult } from '../comparison-result';
-import { formatP } from '../number-format';
+import { FLAG_IS_NOT_A_REASON, outlierRuleWords } from '../../../../../../../shared/types/findings-rows';
 import { askExclusionReason } from './exclude-dialog';
 
 /** A row to exclude, by its grid position (1-based), with the reason the user gave. */
@@ -29,10 +29,9 @@ export class OutlierList {
   readonly excluded = output<Exclusion>();
   private readonly dialogs = inject(MatDialog);
 
-  protected readonly rule = computed(() => {
-    const t = this.result().outlierTest;
-    return `${t.method}, α = ${formatP(t.alpha)}, at most ${t.maxOutliers} flagged`;
-  });
+  /** The rule as applied and what a flag means, in the words the PDF prints (shared/types/findings-rows.ts). */
+  protected readonly rule = computed(() => outlierRuleWords(this.result().outlierTest));
+  protected readonly flagWords = FLAG_IS_NOT_A_REASON;
   protected readonly flagged = computed(() => {
     const positions = this.result().outlierPositions ?? this.result().outliers;
     return positions.map((position) => {

@@ -1,0 +1,115 @@
+import PDFDocument from 'pdfkit';
+import { REGULAR } from '../fonts';
+import { renderStudyReport } from '../render-report';
+import { comparisonReport, verifyReport } from '../testing/fixtures';
+import { flat, pdfPages } from '../testing/pdf-text';
+import { COLOR } from '../theme';
+import { differenceLegend, differencePlot, type DifferenceInput } from './difference-plot';
+import type { Frame } from './frame';
+import { histogramPlot } from './histogram-plot';
+import { scatterPlot } from './scatter-plot';
+import { stripPlot } from './strip-plot';
+
+const BOX = { x: 56, y: 100, width: 240, height: 270 };
+const NONE = { estimate: null, ci: null };
+const mmol = (v: number): string => `${v.toFixed(2)} mmol/L`;
+
+/** A page to draw on, and every circle drawn on it (the plots' dots), by their centres. */
+function page(): { doc: PDFKit.PDFDocument; circles: [number, number][]; polygons: number[][][] } {
+  const doc = new PDFDocument({ size: 'A4', font: REGULAR });
+  const circles: [number, number][] = [];
+  const polygons: number[][][] = [];
+  const circle = doc.circle.bind(doc);
+  const polygon = doc.polygon.bind(doc);
+  doc.circle = ((x: number, y: number, r: number) => {
+    circles.push([x, y]);
+    return circle(x, y, r);
+  }) as typeof doc.circle;
+  doc.polygon = ((...points: number[][]) => {
+    polygons.push(points);
+    return polygon(...points);
+  }) as typeof doc.polygon;
+  return { doc, circles, polygons };
+}
+
+/** Every centre (but the legend's keys, under the axis title) lies inside the data area, at least `margin` points from its frame. */
+function inside(frame: Frame, centres: [number, number][], margin = 2): boolean {
+  const dots = centres.filter(([, y]) => y < frame.y + frame.height + 20);
+  return dots.length > 0 && dots.every(([x, y]) => x >= frame.x + margin && x <= frame.x + frame.width - margin && y >= frame.y + margin && y <= frame.y + frame.height - margin);
+}
+
+// Extremes on round numbers (0 and 30, −1 and 1): an axis that is not padded ends exactly on them, and their dots are half cut away.
+const extremes: DifferenceInput = {
+  included: [[0, -1], [10, 0.2], [20, 0.5], [30, 1]], excluded: [[15, 0.4]],
+  bias: { estimate: 0.2, ci: [0.1, 0.3] }, lower: { estimate: -0.6, ci: [-0.8, -0.4] }, upper: { estimate: 1, ci: [0.8, 1.2] },
+  xLabel: 'Mean of the pair (mmol/L)', yLabel: 'Difference y − x (mmol/L)',
+  type: 'absolute', goal: { absolute: 0.3, percent: null }, levels: [3, 10, 20],
+  format: { difference: mmol, value: (v) => `${v.toFixed(1)} mmol/L`, goal: mmol },
+};
+
+describe('the PDF plots', () => {
+  it('pad every axis so no point sits on the frame', () => {
+    const d = page();
+    expect(inside(differencePlot(d.doc, BOX, extremes), d.circles)).toBe(true);
+    const s = page();
+    expect(inside(scatterPlot(s.doc, BOX, { included: [[0, 0], [30, 30], [12, 12.5]], excluded: [], line: null, xLabel: 'x', yLabel: 'y' }), s.circles)).toBe(true);
+    const v = page();
+    const strip = stripPlot(v.doc, BOX, { title: '5 values', xLabel: 'Sodium', values: [130, 135, 140, 140, 150], lower: 135, upper: 145 });
+    expect(inside(strip, v.circles.map(([x]) => [x, strip.y + strip.height / 2]))).toBe(true);
+    expect(strip.xAxis.ticks.every(Number.isInteger)).toBe(true);
+  });
+
+  it('mark each decision level with a triangle standing on the x axis of the difference plot', () => {
+    const d = page();
+    const frame = differencePlot(d.doc, BOX, extremes);
+    const bottom = frame.y + frame.height;
+    const triangles = d.polygons.filter((p) => p.length === 3 && p.some(([, y]) => Math.abs(y - bottom) < 1e-6));
+    expect(triangles.map((t) => t[0][0])).toEqual([3, 10, 20].map(frame.px));
+  });
+
+  it('name every line with its value, the allowable bias as stated and the decision levels in the legend', () => {
+    expect(differenceLegend(extremes).map((i) => [i.label, i.kind])).toEqual([
+      ['pairs', 'point'], ['excluded', 'cross'], ['mean bias 0.20 mmol/L', 'line'],
+      ['limits of agreement -0.60 mmol/L and 1.00 mmol/L', 'dash'], ['CIs', 'band'],
+      ['allowable bias ±0.30 mmol/L', 'area'], ['decision levels 3.0 mmol/L, 10.0 mmol/L, 20.0 mmol/L', 'triangle'],
+    ]);
+    const percent = differenceLegend({ ...extremes, goal: { absolute: 0.2, percent: 4 }, levels: [7] });
+    expect(percent.map((i) => i.label)).toContain('allowable bias ±0.20 mmol/L or ±4 %, whichever is greater');
+    expect(percent.map((i) => i.label)).toContain('decision level 7.0 mmol/L');
+    expect(differenceLegend({ ...extremes, goal: undefined, levels: [], lower: NONE, upper: NONE }).map((i) => i.label)).toEqual(['pairs', 'excluded', 'mean bias 0.20 mmol/L', 'CIs']);
+  });
+
+  it('draw excluded pairs and values outside a stated interval as shapes of their own, in no alarm colour', () => {
+    const d = page();
+    const frame = differencePlot(d.doc, BOX, extremes);
+    // Four dots (the included pairs) and a cross for the excluded one: no fifth circle.
+    expect(d.circles.filter(([x, y]) => x > frame.x && x < frame.x + frame.width && y > frame.y && y < frame.y + frame.height)).toHaveLength(4);
+    const v = page();
+    stripPlot(v.doc, BOX, { title: '3 values', xLabel: 'Sodium', values: [130, 140, 150], lower: 135, upper: 145 });
+    expect(v.polygons.filter((p) => p.length === 4)).toHaveLength(2 + 1); // two diamonds outside, and the legend's
+    expect(JSON.stringify(extremes)).not.toContain(COLOR.bad);
+  });
+
+  it('put light bars in the tails of a histogram on a padded axis', () => {
+    const h = page();
+    const frame = histogramPlot(h.doc, { ...BOX, width: 480 }, {
+      title: 'Values', xLabel: 'Sodium (mmol/L)', resolution: 1,
+      bins: [{ from: 129.5, to: 130.5, count: 2, tail: 'lower' }, { from: 130.5, to: 131.5, count: 5, tail: null }, { from: 131.5, to: 132.5, count: 1, tail: 'upper' }],
+      markers: [], bands: [], legend: [],
+    });
+    expect(frame.xAxis.min).toBeLessThan(129.5);
+    expect(frame.xAxis.max).toBeGreaterThan(132.5);
+    expect(frame.xAxis.ticks.every(Number.isInteger)).toBe(true);
+  });
+
+  it('print the difference plot’s legend with the tables’ decimals in the comparison report', async () => {
+    const text = flat(pdfPages(await renderStudyReport(comparisonReport(40))));
+    expect(text).toContain('allowable bias ±0.30 mmol/L');
+    expect(text).toContain('decision levels 3.0 mmol/L, 10.0 mmol/L, 20.0 mmol/L');
+    expect(text).toMatch(/mean bias \d\.\d\d mmol\/L/);
+    expect(text).toMatch(/limits of agreement −\d\.\d\d mmol\/L and \d\.\d\d mmol\/L/);
+    expect(text).toMatch(/observed \d\.\d\d mmol\/L/);
+    const verify = flat(pdfPages(await renderStudyReport(verifyReport(20))));
+    expect(verify).toContain('outside');
+  });
+});
