@@ -27,7 +27,7 @@ describe('analyzeComparison', () => {
     expect(JSON.stringify(data)).toBe(copy);
     expect(JSON.parse(JSON.stringify(result))).toEqual(result);
     expect(result.caution).toBe(CAUTION);
-    expect(result.engine).toMatchObject({ version: 'parallax-stats 1.3.1 (xor128)', resamples: 1000 });
+    expect(result.engine).toMatchObject({ version: 'parallax-stats 1.4.0 (xor128)', resamples: 1000 });
   });
 
   it('leaves excluded rows out, counts them, and shows the estimates with them in sensitivity', () => {

@@ -93,6 +93,7 @@ function regressionSummary(reg: RegressionResult | null, o: ResolvedComparisonOp
     linearityP: reg ? reg.linearityP : null,
     ciMethod: reg ? reg.ciMethod : null,
     correlation: r,
+    band: reg ? reg.band : null,
   };
 }
 

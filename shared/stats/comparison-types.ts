@@ -31,6 +31,12 @@ export interface ComparisonRegression {
   ciMethod: 'rank' | 'bootstrap' | 'jackknife' | null;
   /** Pearson r of x and y, and the least-squares line, for reference. */
   correlation: number | null;
+  /**
+   * The fitted line and its pointwise CI at 21 values of x from the lowest to the highest comparative value,
+   * from the same resamples (or jackknife fits) as the decision-level biases; null when there is no line,
+   * absent from results of engines before 1.4.0.
+   */
+  band?: { x: number; fit: number | null; ci: Interval | null }[] | null;
 }
 
 export interface DecisionLevelResult {

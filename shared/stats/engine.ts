@@ -5,9 +5,11 @@
  * result 1.2.0 gave is given again bit for bit (the same draws, the same slopes).
  * 1.3.1: warnings word one of a thing in the singular ("1 possible outlier (row 7)", not "outlier(s)");
  * every number 1.3.0 gave is given again bit for bit.
+ * 1.4.0: the regression adds the fitted line's pointwise CI band (regression.band), estimated from the same
+ * resamples; every number 1.3.1 gave is given again bit for bit.
  */
 export const GENERATOR = 'seedrandom xor128';
-export const ENGINE_VERSION = 'parallax-stats 1.3.1 (xor128)';
+export const ENGINE_VERSION = 'parallax-stats 1.4.0 (xor128)';
 
 export interface EngineInfo {
   version: string;

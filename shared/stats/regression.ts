@@ -14,8 +14,17 @@ import { slopeOrder, type SlopeOrder } from './slope-selection';
  * Deming, weighted Deming and least squares get CIs by bootstrap of pairs (percentile or BCa) or, as an
  * option, by the jackknife (estimate ± t(n − 1)·SE, Linnet 1990). Decision-level biases always get
  * resampling CIs of the chosen kind. Resamples whose fit is undefined are left out and counted.
+ * The fitted line's pointwise CI band (the line a + b·x at BAND_POINTS values of x evenly spread over the
+ * comparative range, each with a CI of the same kind from the same resamples or jackknife fits) is what the
+ * scatter plots draw around the line: it is x plus the decision-level bias CI at that x, the same statistic.
  */
 export interface Estimate { estimate: number; ci: Interval | null }
+
+/** The number of x values at which the line's CI band is estimated. */
+export const BAND_POINTS = 21;
+
+/** The fitted line at one x, with its CI (null where no CI could be formed). */
+export interface BandPoint { x: number; fit: number; ci: Interval | null }
 
 export interface RegressionOptions {
   method: RegressionMethod;
@@ -34,6 +43,8 @@ export interface RegressionResult {
   linearityP: number | null;
   ciMethod: 'rank' | 'bootstrap' | 'jackknife';
   decisionLevelBias: Estimate[];
+  /** The fitted line with its pointwise CI from the lowest to the highest comparative value. */
+  band: BandPoint[];
   undefinedResamples: number;
   /** Names of the estimates whose BCa interval could not be formed (their CI is the percentile interval). */
   bcaFailed: string[];
@@ -46,11 +57,13 @@ export function regression(x: Float64Array, y: Float64Array, options: Regression
   const full = fit(new Int32Array(n).fill(1));
   if (!Number.isFinite(full.slope)) throw new RangeError('regression requires spread in x and a defined slope');
   const levels = options.decisionLevels;
-  const values = new Float64Array(2 + levels.length);
+  const bandX = bandValues(x);
+  const values = new Float64Array(2 + levels.length + bandX.length);
   const statistics = (line: { slope: number; intercept: number }): Float64Array => {
     values[0] = line.slope;
     values[1] = line.intercept;
     for (let k = 0; k < levels.length; k++) values[k + 2] = line.intercept + (line.slope - 1) * levels[k];
+    for (let g = 0; g < bandX.length; g++) values[g + 2 + levels.length] = line.intercept + line.slope * bandX[g];
     return values;
   };
   const estimates = Array.from(statistics(full));
@@ -72,7 +85,7 @@ export function regression(x: Float64Array, y: Float64Array, options: Regression
     });
     cis = estimates.map((e, k) => {
       const summary = summariseReplicates(reps[k].subarray(0, kept), e, options.level, options.interval, jack?.[k]);
-      if (summary.bcaFailed) bcaFailed.push(k === 0 ? 'the slope' : k === 1 ? 'the intercept' : `the bias at decision level ${levels[k - 2]}`);
+      if (summary.bcaFailed && k < 2 + levels.length) bcaFailed.push(k === 0 ? 'the slope' : k === 1 ? 'the intercept' : `the bias at decision level ${levels[k - 2]}`);
       return summary.ci;
     });
   }
@@ -83,10 +96,19 @@ export function regression(x: Float64Array, y: Float64Array, options: Regression
     linearityP: null,
     ciMethod: options.ciMethod,
     decisionLevelBias: levels.map((_, k) => ({ estimate: estimates[k + 2], ci: cis[k + 2] })),
+    band: bandX.map((bx, g) => ({ x: bx, fit: estimates[g + 2 + levels.length], ci: cis[g + 2 + levels.length] })),
     undefinedResamples,
     bcaFailed,
   };
   return slopes ? withRankCis(result, x, y, options.level, slopes) : result;
+}
+
+/** BAND_POINTS values of x from the lowest to the highest comparative value, evenly spaced. */
+function bandValues(x: Float64Array): number[] {
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (const v of x) { if (v < lo) lo = v; if (v > hi) hi = v; }
+  return Array.from({ length: BAND_POINTS }, (_, g) => (g === BAND_POINTS - 1 ? hi : lo + ((hi - lo) * g) / (BAND_POINTS - 1)));
 }
 
 function withRankCis(result: RegressionResult, x: Float64Array, y: Float64Array, level: number, slopes: SlopeOrder): RegressionResult {

@@ -7,7 +7,7 @@ import { COLOR } from '../theme';
 import { differenceLegend, differencePlot, type DifferenceInput } from './difference-plot';
 import type { Frame } from './frame';
 import { histogramPlot } from './histogram-plot';
-import { scatterPlot } from './scatter-plot';
+import { scatterLegend, scatterPlot } from './scatter-plot';
 import { stripPlot } from './strip-plot';
 
 const BOX = { x: 56, y: 100, width: 240, height: 270 };
@@ -57,6 +57,24 @@ describe('the PDF plots', () => {
     const strip = stripPlot(v.doc, BOX, { title: '5 values', xLabel: 'Sodium', values: [130, 135, 140, 140, 150], lower: 135, upper: 145 });
     expect(inside(strip, v.circles.map(([x]) => [x, strip.y + strip.height / 2]))).toBe(true);
     expect(strip.xAxis.ticks.every(Number.isInteger)).toBe(true);
+  });
+
+  it('shade the regression line’s CI band on the scatter and name it in the legend, only when there is a line', () => {
+    const base = { included: [[1, 1.2], [10, 10.1], [20, 20.6]] as [number, number][], excluded: [], xLabel: 'x', yLabel: 'y' };
+    const line = { slope: 1.02, intercept: 0.1, label: 'Passing–Bablok' };
+    const band = { points: [{ x: 1, lower: 0.8, upper: 1.5 }, { x: 20, lower: 20.1, upper: 21 }], label: '95% CI of the line' };
+    const fills = (input: Parameters<typeof scatterPlot>[2]): number => {
+      const { doc } = page();
+      let count = 0;
+      const fill = doc.fill.bind(doc);
+      doc.fill = ((...args: unknown[]) => { count++; return (fill as (...a: unknown[]) => PDFKit.PDFDocument)(...args); }) as typeof doc.fill;
+      scatterPlot(doc, BOX, input);
+      return count;
+    };
+    expect(fills({ ...base, line, band })).toBe(fills({ ...base, line, band: null }) + 1);
+    expect(fills({ ...base, line: null, band })).toBe(fills({ ...base, line: null, band: null }));
+    expect(scatterLegend({ ...base, line, band }).map((i) => i.label)).toEqual(['pairs', 'y = x', 'Passing–Bablok', '95% CI of the line']);
+    expect(scatterLegend({ ...base, line: null, band }).map((i) => i.label)).toEqual(['pairs', 'y = x']);
   });
 
   it('mark each decision level with a triangle standing on the x axis of the difference plot', () => {

@@ -1,6 +1,6 @@
 import { COLOR } from '../theme';
 import { clipped, dataWidth, drawAxes, makeFrame, type Frame } from './frame';
-import { dataLine, legend, legendRows, points, type LegendItem } from './marks';
+import { area, dataLine, legend, legendRows, points, type LegendItem } from './marks';
 import type { Box } from './plot-box';
 import { paddedAxis } from './scale';
 
@@ -9,6 +9,8 @@ export interface ScatterInput {
   excluded: [number, number][];
   /** The fitted line y = intercept + slope·x, when the fit exists. */
   line: { slope: number; intercept: number; label: string } | null;
+  /** The fitted line's pointwise CI over the comparative range, with its legend words; null when there is none. */
+  band?: { points: { x: number; lower: number; upper: number }[]; label: string } | null;
   xLabel: string;
   yLabel: string;
   /** The reporting step of the results (ticks are never finer). */
@@ -23,13 +25,15 @@ export function scatterLegend(input: ScatterInput): LegendItem[] {
     { label: 'pairs', color: COLOR.accent, kind: 'point' },
     { label: 'y = x', color: COLOR.muted, kind: 'dash' },
     ...(input.line ? [{ label: input.line.label, color: COLOR.warm, kind: 'line' as const }] : []),
+    ...(input.line && input.band ? [{ label: input.band.label, color: COLOR.warm, kind: 'area' as const }] : []),
     ...(input.excluded.length ? [{ label: 'excluded', color: COLOR.warm, kind: 'cross' as const }] : []),
   ];
 }
 
 /**
  * Candidate against comparative on one common scale, padded so no point sits on the frame, with the identity
- * line and the fitted line; excluded pairs as crosses (a shape, not only a colour).
+ * line and the fitted line with its CI band (lightly filled, dotted edges); excluded pairs as crosses (a shape,
+ * not only a colour).
  */
 export function scatterPlot(doc: PDFKit.PDFDocument, box: Box, input: ScatterInput): Frame {
   const all = [...input.included, ...input.excluded];
@@ -39,6 +43,7 @@ export function scatterPlot(doc: PDFKit.PDFDocument, box: Box, input: ScatterInp
   drawAxes(frame, { title: 'Scatter plot', x: input.xLabel, y: input.yLabel });
   clipped(frame, () => {
     dataLine(frame, [axis.min, axis.min], [axis.max, axis.max], { color: COLOR.muted, width: 0.8, dash: 3 });
+    if (input.line && input.band) area(frame, input.band.points, { fill: COLOR.warm, edge: COLOR.warm, opacity: 0.12 });
     if (input.line) {
       const { slope, intercept } = input.line;
       dataLine(frame, [axis.min, intercept + slope * axis.min], [axis.max, intercept + slope * axis.max], { color: COLOR.warm, width: 1.3 });

@@ -36,8 +36,10 @@ export function comparisonPlots(layout: Layout, report: StudyReport, results: Co
     const line = reg?.slope?.estimate != null && reg.intercept?.estimate != null
       ? { slope: reg.slope.estimate, intercept: reg.intercept.estimate, label: REGRESSION_WORDS[reg.method] ?? reg.method }
       : null;
+    const bandPoints = reg?.band && reg.band.length > 1 && reg.band.every((p) => p.ci) ? reg.band.map((p) => ({ x: p.x, lower: p.ci![0], upper: p.ci![1] })) : null;
+    const band = bandPoints ? { points: bandPoints, label: `${Math.round(100 * (results.settings?.level ?? 0.95))}% CI of the line` } : null;
     const scatter: ScatterInput = {
-      included: included.map((p) => [p.x, p.y]), excluded: excluded.map((p) => [p.x, p.y]), line,
+      included: included.map((p) => [p.x, p.y]), excluded: excluded.map((p) => [p.x, p.y]), line, band,
       xLabel: label('Comparative x', unit), yLabel: label('Candidate y', unit), resolution: step,
     };
     const difference: DifferenceInput = {

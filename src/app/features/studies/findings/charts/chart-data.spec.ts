@@ -5,7 +5,7 @@ import { biasHistogram, binBars, histogramAxes, nullHistogram, rangeWords, tailS
 import { markerRange } from './markers-plugin';
 import { PALETTE } from './palette';
 import type { PlotPoint } from './plot-points';
-import { extent, scatterAxis, scatterDatasets } from './scatter-data';
+import { extent, scatterAxis, scatterBand, scatterDatasets } from './scatter-data';
 
 const point = (x: number, y: number, excluded = false, position = 1): PlotPoint => ({ position, label: `S${position}`, x, y, mean: (x + y) / 2, difference: y - x, excluded });
 const points = [point(3, 3.2, false, 1), point(10, 10.4, false, 2), point(20, 19.5, true, 3)];
@@ -56,6 +56,18 @@ describe('comparison scatter', () => {
     const none = { ...regression, slope: { estimate: null, ci: null } };
     expect(scatterDatasets(points, none).map((d) => d.label)).not.toContain(expect.stringMatching(/Passing/));
     expect(scatterDatasets([], regression).map((d) => d.label)).toEqual(['Pairs']);
+  });
+
+  it('shades the regression line’s CI band from the engine, named with its level, and none without one', () => {
+    const band = [{ x: 3, fit: 3.16, ci: [2.9, 3.4] as [number, number] }, { x: 20, fit: 20.5, ci: [20.1, 20.9] as [number, number] }];
+    const area = scatterBand({ ...regression, band }, 0.9)!;
+    expect(area.points).toEqual([{ x: 3, lower: 2.9, upper: 3.4 }, { x: 20, lower: 20.1, upper: 20.9 }]);
+    expect(area.label).toBe('90% CI of the regression line');
+    expect(area.edge).toBe(PALETTE.regression);
+    expect(legendEntries([], { areas: [area] }, false)).toEqual([{ text: '90% CI of the regression line', kind: 'area', color: PALETTE.regression, fill: PALETTE.regressionBand, dash: [2, 3] }]);
+    expect(scatterBand(regression, 0.95)).toBeNull(); // a result of an engine before 1.4.0
+    expect(scatterBand({ ...regression, band: [band[0], { ...band[1], ci: null }] }, 0.95)).toBeNull();
+    expect(scatterBand(null, 0.95)).toBeNull();
   });
 });
 

@@ -10,6 +10,7 @@ export const PALETTE = {
   excluded: '#6b4f22',
   identity: '#727879',
   regression: '#8a6128',
+  regressionBand: 'rgba(176, 137, 74, 0.16)',
   bias: '#0b4852',
   biasBand: 'rgba(42, 102, 113, 0.18)',
   limits: '#8a6128',

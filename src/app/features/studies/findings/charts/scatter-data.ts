@@ -2,7 +2,8 @@ import type { ChartDataset } from 'chart.js';
 import { paddedAxis, type PlotAxis } from '../../../../../../shared/types/plot-axes';
 import type { ComparisonRegression } from '../comparison/engine-types';
 import { REGRESSION_LABELS } from '../../study-text';
-import { formatNumber } from '../comparison/number-format';
+import { formatNumber, levelLabel } from '../comparison/number-format';
+import type { MarkerArea } from './markers-plugin';
 import { PALETTE } from './palette';
 import type { PlotPoint } from './plot-points';
 
@@ -81,4 +82,19 @@ export function scatterDatasets(
     });
   }
   return datasets;
+}
+
+/**
+ * The regression line's pointwise CI as a shaded region over the comparative range (regression.band from the
+ * engine, the same resamples as the decision-level biases); null when the result has no band or a point lacks
+ * its CI (results of engines before 1.4.0 carry none).
+ */
+export function scatterBand(regression: ComparisonRegression | null, level: number): MarkerArea | null {
+  const band = regression?.band;
+  if (!band || band.length < 2 || band.some((p) => !p.ci)) return null;
+  return {
+    points: band.map((p) => ({ x: p.x, lower: p.ci![0], upper: p.ci![1] })),
+    color: PALETTE.regressionBand, edge: PALETTE.regression, dash: [2, 3],
+    label: `${levelLabel(level)} CI of the regression line`,
+  };
 }

@@ -4,7 +4,7 @@ import { allowableArea, decisionLevelMarks, differenceAxes, differenceDatasets, 
 import { FindingsChart } from '../../charts/findings-chart';
 import { type BinWords, biasHistogram, histogramAxes, nullHistogram, rangeWords, tailShare } from '../../charts/histogram-data';
 import type { PlotPoint } from '../../charts/plot-points';
-import { scatterAxis, scatterDatasets } from '../../charts/scatter-data';
+import { scatterAxis, scatterBand, scatterDatasets } from '../../charts/scatter-data';
 import { ComparisonFindingsResult, Units, withUnit } from '../comparison-result';
 import { formatCi, formatNumber, formatP, levelLabel } from '../number-format';
 import { type PairFormat, pairTip } from '../pairs-table/pair-rows';
@@ -62,8 +62,14 @@ export class FindingsPlots {
     const p = this.points();
     const axis = this.scatterFrame();
     if (!p || !axis) return null;
-    return { data: { datasets: scatterDatasets(p, this.result().regression, { tip: this.tip(), selected: this.selected(), axis }) } as ChartData, axis };
+    return { data: { datasets: scatterDatasets(p, this.result().regression, { tip: this.tip(), selected: this.selected(), axis }) } as ChartData, axis, markers: this.scatterMarkers() };
   });
+  private readonly scatterMarkers = computed(() => {
+    const band = scatterBand(this.result().regression, this.result().settings.level);
+    return { lines: [], bands: [], areas: band ? [band] : [] };
+  });
+  protected readonly scatterCaption = computed(() =>
+    `Dashed grey: identity y = x. Solid: the regression line${this.scatterMarkers().areas.length ? `; shaded between dotted edges: its ${levelLabel(this.result().settings.level)} confidence band` : ''}.`);
   protected readonly differenceCaption = computed(() => {
     const r = this.result();
     const goal = r.settings.allowableBias !== null || r.settings.allowableBiasPercent !== null;
