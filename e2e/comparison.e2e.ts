@@ -152,14 +152,15 @@ test('a technologist compares two chemistry lines: pastes 40 pairs, fixes a bad 
   // Sorted by difference: smallest first, then largest first; the specimen of the highest point leads the second.
   const differences = async (): Promise<number[]> =>
     (await page.getByTestId('pair-difference').allTextContents()).map((t) => Number(t.trim().replace('−', '-')));
-  await page.getByTestId('sort-difference').click();
-  const ascending = await differences();
-  expect(ascending).toHaveLength(40);
-  expect(ascending).toEqual([...ascending].sort((a, b) => a - b));
+  const unsorted = await differences();
+  expect(unsorted).toHaveLength(40);
+  const ascending = [...unsorted].sort((a, b) => a - b);
   expect(ascending[0]).toBeLessThan(ascending[39]);
+  // The table re-renders after the click: wait for the order rather than read it at once.
   await page.getByTestId('sort-difference').click();
-  const descending = await differences();
-  expect(descending).toEqual([...ascending].sort((a, b) => b - a));
+  await expect.poll(differences).toEqual(ascending);
+  await page.getByTestId('sort-difference').click();
+  await expect.poll(differences).toEqual([...ascending].reverse());
   await expect(page.locator('[data-testid="pairs-table"] tbody tr').first().locator('td').nth(4)).toHaveText(
     (await page.getByTestId(`pair-${key}`).getByTestId('pair-difference').textContent())!.trim(),
   );

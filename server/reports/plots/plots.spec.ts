@@ -71,7 +71,8 @@ describe('the PDF plots', () => {
       scatterPlot(doc, BOX, input);
       return count;
     };
-    expect(fills({ ...base, line, band })).toBe(fills({ ...base, line, band: null }) + 1);
+    // Two fills more: the band, and its key in the legend.
+    expect(fills({ ...base, line, band })).toBe(fills({ ...base, line, band: null }) + 2);
     expect(fills({ ...base, line: null, band })).toBe(fills({ ...base, line: null, band: null }));
     expect(scatterLegend({ ...base, line, band }).map((i) => i.label)).toEqual(['pairs', 'y = x', 'Passing–Bablok', '95% CI of the line']);
     expect(scatterLegend({ ...base, line: null, band }).map((i) => i.label)).toEqual(['pairs', 'y = x']);
