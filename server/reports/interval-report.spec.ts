@@ -16,6 +16,10 @@ describe('the reports of reference-interval studies', () => {
     expect(text).toContain('Partition by sex (Harris & Boyd)');
     expect(text).toContain(`z = ${results.partitions[0].z!.toFixed(2)} against z* = ${results.partitions[0].zCritical!.toFixed(2)}`);
     expect(text).toContain(`Histogram of ${results.n} values`);
+    // The histogram's legend names both limits with their values, in the tables' decimals.
+    const unit = report.analyte.unit;
+    expect(text).toContain(`limits ${lower.estimate!.toFixed(1)} ${unit} and ${results.upper!.estimate!.toFixed(1)} ${unit}`);
+    expect(text).toContain(`${Math.round(100 * results.settings.level)}% CI of each limit`);
     expect(text).toContain('On diuretics (questionnaire)');
   });
 

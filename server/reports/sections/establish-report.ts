@@ -88,6 +88,10 @@ function valuesHistogram(layout: Layout, report: StudyReport, results: Establish
     bins: resolutionBins([...values], results.resolution?.increment), resolution: results.resolution?.increment,
     markers: limits.map((l) => ({ value: l.estimate, color: COLOR.warm })),
     bands: limits.flatMap((l) => (l.ci ? [{ span: l.ci, color: COLOR.warm }] : [])),
-    legend: [{ label: 'limits', color: COLOR.warm, kind: 'line' }, { label: 'CI of each limit', color: COLOR.warm, kind: 'band' }],
+    // The legend names the limits with their values, in the tables' decimals, as the findings page does.
+    legend: [
+      ...(limits.length ? [{ label: `${limits.length === 2 ? 'limits' : 'limit'} ${limits.map((l) => withUnit(num(l.estimate, decimalsOf(report).stat), unit)).join(' and ')}`, color: COLOR.warm, kind: 'line' as const }] : []),
+      ...(limits.some((l) => l.ci) ? [{ label: `${Math.round(100 * (results.settings?.level ?? 0.9))}% CI of each limit`, color: COLOR.warm, kind: 'band' as const }] : []),
+    ],
   }, 'Count');
 }
