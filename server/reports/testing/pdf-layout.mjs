@@ -2,11 +2,9 @@
 // and the largest type size on it, read with pdfjs-dist (legacy build for Node) in a Node process of its own
 // (see pdf-layout.ts). Reads the PDF from stdin and prints JSON: [{ height, lines: [{ text, top, size }] }, ...].
 // Rotated text (a draft's watermark) is left out: it belongs to no line.
-import { getDocument } from 'pdfjs-dist/legacy/build/pdf.mjs';
+import { joinParts, pdfFromStdin } from './pdf-read.mjs';
 
-const chunks = [];
-for await (const chunk of process.stdin) chunks.push(chunk);
-const pdf = await getDocument({ data: new Uint8Array(Buffer.concat(chunks)), verbosity: 0, isEvalSupported: false }).promise;
+const pdf = await pdfFromStdin();
 const pages = [];
 for (let n = 1; n <= pdf.numPages; n++) {
   const page = await pdf.getPage(n);
@@ -25,14 +23,7 @@ for (let n = 1; n <= pdf.numPages; n++) {
   pages.push({
     height,
     lines: lines.map((l) => {
-      l.parts.sort((p, q) => p.x - q.x);
-      let text = '';
-      let end = -Infinity;
-      for (const p of l.parts) {
-        text += (text && p.x - end > 1 ? ' ' : '') + p.str;
-        end = p.end;
-      }
-      return { text: text.replace(/\s+/g, ' ').trim(), top: Math.round((height - l.y - l.size) * 10) / 10, size: Math.round(l.size * 100) / 100 };
+      return { text: joinParts(l.parts), top: Math.round((height - l.y - l.size) * 10) / 10, size: Math.round(l.size * 100) / 100 };
     }),
   });
 }
