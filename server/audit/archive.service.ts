@@ -1,3 +1,4 @@
+import { SERVER_KINDS } from '../kinds';
 import { sql, SQL } from 'drizzle-orm';
 import type { ArchiveItem, ArchivePage, ArchiveQuery } from '../../shared/schemas';
 import type { SignedInUser } from '../auth/session-user';
@@ -27,11 +28,7 @@ const BASE = sql`
   ), judged AS (
     SELECT *, CASE
       WHEN results IS NULL THEN NULL
-      WHEN kind = 'interval-verify' THEN CASE WHEN (results->>'accepted')::boolean THEN 'accepted' ELSE 'failed' END
-      WHEN kind = 'interval-establish' THEN 'established'
-      WHEN results->'decisionLevels' @> '[{"verdict":"exceeds"}]' THEN 'exceeds'
-      WHEN results->'decisionLevels' @> '[{"verdict":"inconclusive"}]' THEN 'inconclusive'
-      WHEN jsonb_array_length(COALESCE(results->'decisionLevels', '[]'::jsonb)) > 0 THEN 'within'
+      ${sql.join(SERVER_KINDS.map((k) => sql`WHEN kind = ${k.meta.kind} THEN (${k.archiveVerdict})`), sql` `)}
       ELSE NULL END AS verdict
     FROM chosen
   )`;

@@ -1,3 +1,4 @@
+import { serverKind } from '../kinds';
 import ExcelJS from 'exceljs';
 import { desc, eq } from 'drizzle-orm';
 import { StudySettings, type ArchiveQuery } from '../../shared/schemas';
@@ -109,7 +110,7 @@ export async function exportStudy(db: Database, me: SignedInUser, studyId: numbe
     : await db.select().from(analyses).where(eq(analyses.studyId, studyId)).orderBy(desc(analyses.id)).limit(1);
   const settings = StudySettings.parse(row.settings);
   const results = withRecordedWords(analysis?.results ?? null, row.settings);
-  resultsSheet(wb, study.kind, results, {
+  resultsSheet(wb, serverKind(study.kind), results, {
     unit: settings.unit || study.analyteUnit, decimals: settings.decimals,
     heading: {
       analysis: !analysis ? 'None: the study has not been analysed' : signedId ? `Analysis ${analysis.id}, the one the signature binds` : `Analysis ${analysis.id}, the latest`,

@@ -34,7 +34,7 @@ export async function checkIntegrity(db: Database, me: SignedInUser, studyId: nu
     detail: pdfHash === sig.pdfSha256 ? `The PDF's bytes still hash to ${sig.pdfSha256}.` : `The PDF's bytes hash to ${pdfHash || '(missing)'}, not to the recorded ${sig.pdfSha256}.`,
   });
   const [analysis] = await db.select().from(analyses).where(eq(analyses.id, sig.analysisId!));
-  const now = inputHash({ kind: study.kind, settings: analysedSettings(study.settings), rows: (await loadRows(db, studyId)).map(analysedFields) });
+  const now = inputHash({ kind: study.kind, settings: analysedSettings(study.settings, study.kind), rows: (await loadRows(db, studyId)).map(analysedFields) });
   checks.push({
     name: 'Analysis input', passed: now === analysis.inputHash,
     detail: now === analysis.inputHash ? 'The signed analysis was made from exactly the rows and settings stored now.' : 'The stored rows or settings differ from those the signed analysis used.',

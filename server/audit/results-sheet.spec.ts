@@ -1,3 +1,4 @@
+import { serverKind } from '../kinds';
 import ExcelJS from 'exceljs';
 import { analytes, instruments } from '../db/schema';
 import { renderStudyReport } from '../reports/render-report';
@@ -98,7 +99,7 @@ describe('the Results sheet of the full record', () => {
   it('names the regression\'s CI method exactly as the report does', async () => {
     const report = comparisonReport(40, { regression: 'deming', demingRatio: 1.5 });
     const results = report.results as ComparisonFindings;
-    const ws = resultsSheet(new ExcelJS.Workbook(), 'method-comparison', results, { unit: 'mmol/L', decimals: 1, heading: { analysis: 'fixture', findings: 'fixture' } });
+    const ws = resultsSheet(new ExcelJS.Workbook(), serverKind('method-comparison'), results, { unit: 'mmol/L', decimals: 1, heading: { analysis: 'fixture', findings: 'fixture' } });
     const named = String(line(ws, 'CIs of slope and intercept')['In words'].value);
     expect(named).toBe('percentile bootstrap of resampled pairs');
     const pdf = flat(pdfPages(await renderStudyReport(report)));

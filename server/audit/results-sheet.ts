@@ -6,7 +6,7 @@ import { agreementRows, differenceUnitOf, testRows, VERDICT_WORDS, type Comparis
 import {
   correlationDetails, interceptSentence, linearitySentence, REGRESSION_HEADING, regressionCiWords, regressionMethod, regressionRows, slopeSentence,
 } from '../../shared/types/regression-words';
-import type { StudyKind } from '../../shared/schemas';
+import type { ServerKind, SheetCell, SheetColumn, SheetLine } from '../kinds/kind';
 import { INTERVAL_METHOD_WORDS, PARTITION_WORDS } from '../reports/words';
 
 /**
@@ -17,31 +17,36 @@ import { INTERVAL_METHOD_WORDS, PARTITION_WORDS } from '../reports/words';
  * regression-words.ts), so the regression's CI method is named as the report names it.
  */
 
-type Cell = number | string | null;
-interface Line { section: string; name: string; cells: Record<string, Cell>; formats?: Record<string, string>; words?: string }
-interface ColumnSpec { header: string; key: string; width: number; numeric?: boolean }
+type Line = SheetLine;
+type ColumnSpec = SheetColumn;
+type Cell = SheetCell;
 
-const WORDS: ColumnSpec = { header: 'In words', key: 'words', width: 90 };
-const FRONT: ColumnSpec[] = [{ header: 'Section', key: 'section', width: 30 }, { header: 'Estimate', key: 'name', width: 44 }];
+export const WORDS: ColumnSpec = { header: 'In words', key: 'words', width: 90 };
+export const FRONT: ColumnSpec[] = [{ header: 'Section', key: 'section', width: 30 }, { header: 'Estimate', key: 'name', width: 44 }];
 
-/** The columns of each kind: a comparison has p-values, an establishment two kinds of CI, a verification neither. */
-export function resultColumns(kind: StudyKind, level: number): ColumnSpec[] {
+/** The columns of a comparison: value, CI and p. */
+export function comparisonColumns(level: number): ColumnSpec[] {
   const ci = levelLabel(level);
-  if (kind === 'method-comparison') {
-    return [...FRONT, { header: 'Value', key: 'value', width: 12, numeric: true }, { header: `${ci} CI low`, key: 'ciLow', width: 12, numeric: true },
-      { header: `${ci} CI high`, key: 'ciHigh', width: 12, numeric: true }, { header: 'p', key: 'p', width: 9, numeric: true }, { header: 'Unit', key: 'unit', width: 10 }, WORDS];
-  }
-  if (kind === 'interval-establish') {
-    return [...FRONT, { header: 'Percentile', key: 'percentile', width: 11, numeric: true }, { header: 'Value', key: 'value', width: 12, numeric: true },
-      { header: `${ci} CI low, rank-based`, key: 'rankLow', width: 16, numeric: true }, { header: `${ci} CI high, rank-based`, key: 'rankHigh', width: 16, numeric: true },
-      { header: `${ci} CI low, bootstrap`, key: 'ciLow', width: 16, numeric: true }, { header: `${ci} CI high, bootstrap`, key: 'ciHigh', width: 16, numeric: true },
-      { header: 'Unit', key: 'unit', width: 10 }, WORDS];
-  }
+  return [...FRONT, { header: 'Value', key: 'value', width: 12, numeric: true }, { header: `${ci} CI low`, key: 'ciLow', width: 12, numeric: true },
+    { header: `${ci} CI high`, key: 'ciHigh', width: 12, numeric: true }, { header: 'p', key: 'p', width: 9, numeric: true }, { header: 'Unit', key: 'unit', width: 10 }, WORDS];
+}
+
+/** The columns of an establishment: each limit with its rank-based and bootstrap CIs. */
+export function establishColumns(level: number): ColumnSpec[] {
+  const ci = levelLabel(level);
+  return [...FRONT, { header: 'Percentile', key: 'percentile', width: 11, numeric: true }, { header: 'Value', key: 'value', width: 12, numeric: true },
+    { header: `${ci} CI low, rank-based`, key: 'rankLow', width: 16, numeric: true }, { header: `${ci} CI high, rank-based`, key: 'rankHigh', width: 16, numeric: true },
+    { header: `${ci} CI low, bootstrap`, key: 'ciLow', width: 16, numeric: true }, { header: `${ci} CI high, bootstrap`, key: 'ciHigh', width: 16, numeric: true },
+    { header: 'Unit', key: 'unit', width: 10 }, WORDS];
+}
+
+/** The columns of a count: a value and its unit. */
+export function valueColumns(): ColumnSpec[] {
   return [...FRONT, { header: 'Value', key: 'value', width: 12, numeric: true }, { header: 'Unit', key: 'unit', width: 10 }, WORDS];
 }
 
 /** A shared table row as a sheet line: the numbers stored as numbers, in the decimals the tables print. */
-function fromRow(section: string, r: FindingsRow, words?: string): Line {
+export function fromRow(section: string, r: FindingsRow, words?: string): Line {
   const format = numberFormat(r.decimals);
   const cells: Record<string, Cell> = { value: r.estimate, unit: r.unit || null };
   const formats: Record<string, string> = { value: format, ciLow: format, ciHigh: format, p: P_VALUE_FORMAT };
@@ -51,7 +56,7 @@ function fromRow(section: string, r: FindingsRow, words?: string): Line {
   return { section, name: r.name, cells, formats, words: [words ?? r.words, missingCi].filter(Boolean).join('; ') || undefined };
 }
 
-function comparisonLines(r: ComparisonResult, unit: string, decimals: number): Line[] {
+export function comparisonLines(r: ComparisonResult, unit: string, decimals: number): Line[] {
   const units: ComparisonUnits = { unit, difference: differenceUnitOf(r.differenceType, unit), decimals: findingsDecimals(decimals, r.differenceType) };
   const d = units.decimals;
   const level = r.settings?.level ?? 0.95;
@@ -104,7 +109,7 @@ function limitLines(section: string, prefix: string, lower: LimitResult | null, 
   }));
 }
 
-function establishLines(r: IntervalResult, unit: string, decimals: number): Line[] {
+export function establishLines(r: IntervalResult, unit: string, decimals: number): Line[] {
   const d = findingsDecimals(decimals);
   const section = 'Reference interval';
   const lines: Line[] = [
@@ -126,7 +131,7 @@ function establishLines(r: IntervalResult, unit: string, decimals: number): Line
   return lines;
 }
 
-function verifyLines(r: VerifyIntervalResult & { stated?: { lower: number; upper: number; source: string } }, unit: string, decimals: number): Line[] {
+export function verifyLines(r: VerifyIntervalResult & { stated?: { lower: number; upper: number; source: string } }, unit: string, decimals: number): Line[] {
   const d = findingsDecimals(decimals);
   const section = 'Verification of the stated interval';
   const value = (name: string, v: number | null | undefined, format: string, u = '', words?: string): Line => ({ section, name, cells: { value: v ?? null, unit: u || null }, formats: { value: format }, words });
@@ -145,13 +150,12 @@ function verifyLines(r: VerifyIntervalResult & { stated?: { lower: number; upper
 export interface ResultsHeading { analysis: string; findings: string }
 
 /**
- * Writes the Results sheet for `kind` from stored results (those the signature binds, or the latest); with
- * no results the sheet says so in words.
+ * Writes the Results sheet for a study of `kind` (its server module says the columns and lines) from stored
+ * results (those the signature binds, or the latest); with no results the sheet says so in words.
  */
-export function resultsSheet(wb: ExcelJS.Workbook, kind: StudyKind, results: unknown, opts: { unit: string; decimals: number; heading: ResultsHeading }): ExcelJS.Worksheet {
-  const r = (results ?? null) as { kind?: string; settings?: { level?: number } } | null;
-  const level = r?.settings?.level ?? 0.95;
-  const columns = resultColumns(kind, kind === 'interval-verify' ? 0.95 : level);
+export function resultsSheet(wb: ExcelJS.Workbook, kind: ServerKind, results: unknown, opts: { unit: string; decimals: number; heading: ResultsHeading }): ExcelJS.Worksheet {
+  const r = (results ?? null) as { kind?: string } | null;
+  const columns = kind.resultsSheet.columns(kind.resultsSheet.level(results));
   const ws = wb.addWorksheet('Results');
   ws.columns = columns.map(({ header, key, width }) => ({ header, key, width }));
   ws.getRow(1).font = { bold: true };
@@ -160,9 +164,7 @@ export function resultsSheet(wb: ExcelJS.Workbook, kind: StudyKind, results: unk
     { section: 'Analysis', name: 'Which analysis', cells: {}, words: opts.heading.analysis },
     { section: 'Analysis', name: 'Findings', cells: {}, words: opts.heading.findings },
   ];
-  if (r?.kind === 'comparison' && kind === 'method-comparison') lines.push(...comparisonLines(r as ComparisonResult, opts.unit, opts.decimals));
-  else if (r?.kind === 'interval' && kind === 'interval-establish') lines.push(...establishLines(r as IntervalResult, opts.unit, opts.decimals));
-  else if (r?.kind === 'verify-interval' && kind === 'interval-verify') lines.push(...verifyLines(r as VerifyIntervalResult, opts.unit, opts.decimals));
+  if (r?.kind === kind.meta.resultKind) lines.push(...kind.resultsSheet.lines(r, opts.unit, opts.decimals));
   const keys = new Set(columns.map((c) => c.key));
   for (const line of lines) {
     const row = ws.addRow({ section: line.section, name: line.name, words: line.words ?? null });

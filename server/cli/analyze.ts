@@ -1,20 +1,30 @@
 /**
  * `npm run --silent analyze -- KIND FILE.csv [options]`: reads a CSV with a header row, runs one analysis of
  * shared/stats and prints its result as one JSON object on stdout. KIND: comparison | interval |
- * verify-interval | bootstrap-test. A bad file or option prints one line naming the row or option on
- * stderr and exits with status 2.
+ * verify-interval | bootstrap-test, with the engine's options as flags; or a study kind by its stored name
+ * (method-comparison | interval-establish | interval-verify | precision | …, from the kinds' registry) with
+ * `--settings FILE.json`, the study's settings object, run exactly as a stored study is (study-kinds.ts).
+ * A bad file or option prints one line naming the row or option on stderr and exits with status 2.
  */
 import { readFileSync } from 'node:fs';
 import { OptionError } from '../../shared/stats';
 import { CsvError, parseCsv } from './csv';
-import { FlagError, flagFor, parseFlags } from './flags';
-import { KINDS } from './kinds';
+import { FlagError, flagFor, parseFlags, textFlag } from './flags';
+import { KINDS, type Kind } from './kinds';
+import { readSettings, runStudyKind, STUDY_KIND_NAMES } from './study-kinds';
 
-const USAGE = `usage: npm run --silent analyze -- ${Object.keys(KINDS).join('|')} FILE.csv [--option value ...]`;
+const USAGE = `usage: npm run --silent analyze -- ${Object.keys(KINDS).join('|')} FILE.csv [--option value ...]\n` +
+  `   or: npm run --silent analyze -- ${STUDY_KIND_NAMES.join('|')} FILE.csv [--settings SETTINGS.json]`;
+
+/** A study kind on the command line: its only flag is the settings file. */
+const studyKind = (name: string): Kind => ({
+  flags: { '--settings': ['settings', textFlag] },
+  run: (table, options) => runStudyKind(name, table, options.settings === undefined ? {} : readSettings(options.settings as string)),
+});
 
 export function main(argv: string[]): number {
   const [kindName, file, ...rest] = argv;
-  const kind = KINDS[kindName ?? ''];
+  const kind = KINDS[kindName ?? ''] ?? (STUDY_KIND_NAMES.includes(kindName ?? '') ? studyKind(kindName) : undefined);
   if (!kind || !file) return fail(kindName && !kind ? `unknown analysis kind "${kindName}"; ${USAGE}` : USAGE);
   try {
     const options = parseFlags(rest, kind.flags);

@@ -150,6 +150,8 @@ export const specimens = pgTable('specimens', {
   excluded: boolean('excluded').notNull().default(false),
   exclusionReason: text('exclusion_reason'),
   note: text('note').notNull().default(''),
+  /** A kind's own row fields that have no column (shared/kinds/kind.ts RowField), e.g. a precision row's material, day and replicate; NULL for kinds without. */
+  extra: jsonb('extra').$type<Record<string, string | number | null>>(),
   uploadId: integer('upload_id').references(() => uploads.id),
   enteredBy: integer('entered_by').notNull().references(() => users.id),
 }, (t) => [

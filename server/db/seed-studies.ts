@@ -13,6 +13,7 @@ import { submitStudy } from '../signoff/signoff.service';
 import { DEMO_PASSWORD } from './seed-data';
 import type { Database } from './client';
 import { analytes, instruments, studies, users } from './schema';
+import { SERVER_KINDS } from '../kinds';
 
 const gaussian = (rng: () => number) => Math.sqrt(-2 * Math.log(1 - rng())) * Math.cos(2 * Math.PI * rng());
 
@@ -142,5 +143,20 @@ export async function seedDemoStudies(db: Database, labId: number, publicUrl: st
     await putRows(db, me, study.id, study.version, demo.rows as Record<string, unknown>[]);
     await analyseNow(db, jobs, me, study.id);
     await finish(study.id, demo.finish);
+  }
+  // The demos kinds bring themselves (server/kinds/<kind> demos); one instrument each.
+  for (const kind of SERVER_KINDS) {
+    for (const demo of kind.demos ?? []) {
+      const exists = await db.select({ id: studies.id }).from(studies).where(and(eq(studies.laboratoryId, labId), eq(studies.title, demo.title)));
+      if (exists.length) continue;
+      const [analyte] = await db.select().from(analytes).where(and(eq(analytes.laboratoryId, labId), eq(analytes.name, demo.analyte)));
+      const study = await createStudy(db, me, {
+        kind: kind.meta.kind as CreateStudyBody['kind'], title: demo.title, purpose: demo.purpose, analyteId: analyte.id, instrumentId: byName(demo.instrument), settings: demo.settings,
+      });
+      await putRows(db, me, study.id, study.version, demo.rows);
+      await analyseNow(db, jobs, me, study.id);
+      COMMENTS[kind.meta.kind] ??= demo.signComment ?? '';
+      await finish(study.id, demo.finish);
+    }
   }
 }

@@ -2,14 +2,12 @@ import PDFDocument from 'pdfkit';
 import { REGULAR } from './fonts';
 import { Layout } from './layout';
 import { markPages } from './page-marks';
-import type { ComparisonFindings, EstablishFindings, StudyReport, VerifyFindings } from './report-model';
+import type { StudyReport } from './report-model';
 import { cautionCallout } from './sections/caution';
-import { comparisonReport } from './sections/comparison-report';
-import { establishReport } from './sections/establish-report';
 import { titleBlock } from './sections/title';
-import { verifyReport } from './sections/verify-report';
 import { PAGE } from './theme';
-import { REPORT_TITLES } from './words';
+import { kindMeta } from '../../shared/kinds/kinds';
+import { serverKind } from '../kinds';
 
 /**
  * The verification PDF of one study. Pure: no I/O beyond reading the embedded fonts, no clock (the
@@ -27,7 +25,7 @@ export function renderStudyReport(report: StudyReport): Promise<Buffer> {
     info: {
       Title: `${report.study.title} (study ${report.study.id})`,
       Author: report.laboratory.name,
-      Subject: REPORT_TITLES[report.study.kind],
+      Subject: kindMeta(report.study.kind).reportTitle,
       Creator: 'Parallax',
       Producer: 'Parallax (pdfkit)',
       CreationDate: report.generatedAt,
@@ -49,16 +47,11 @@ export function renderStudyReport(report: StudyReport): Promise<Buffer> {
   return done;
 }
 
+/** The kind's own body (server/kinds/<kind>), given results only when they are of its kind. */
 function body(layout: Layout, report: StudyReport): void {
-  const results = report.results;
-  switch (report.study.kind) {
-    case 'method-comparison':
-      return comparisonReport(layout, report, results?.kind === 'comparison' ? (results as ComparisonFindings) : null);
-    case 'interval-establish':
-      return establishReport(layout, report, results?.kind === 'interval' ? (results as EstablishFindings) : null);
-    case 'interval-verify':
-      return verifyReport(layout, report, results?.kind === 'verify-interval' ? (results as VerifyFindings) : null);
-  }
+  const kind = serverKind(report.study.kind);
+  const results = report.results as { kind?: string } | null;
+  kind.report(layout, report, results?.kind === kind.meta.resultKind ? results : null);
 }
 
 function collect(doc: PDFKit.PDFDocument): Promise<Buffer> {

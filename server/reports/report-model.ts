@@ -1,4 +1,5 @@
-import type { SpecimenRow, StudyKind, StudySettings, StudyState } from '../../shared/schemas';
+import type { SpecimenRow, StudyKind, StudyState } from '../../shared/schemas';
+import type { KindSettings } from '../../shared/kinds/settings';
 import type { ComparisonResult, EngineInfo, IntervalResult, VerifyIntervalResult } from '../../shared/stats';
 
 /**
@@ -11,7 +12,8 @@ export interface StudyReport {
   study: { id: number; kind: StudyKind; title: string; purpose: string; state: StudyState; supersedesId: number | null };
   analyte: { name: string; unit: string };
   instruments: { comparative?: InstrumentInfo; candidate?: InstrumentInfo; instrument?: InstrumentInfo };
-  settings: StudySettings;
+  /** The common settings and the kind's own (shared/kinds/settings.ts). */
+  settings: KindSettings;
   engineVersion: string;
   rows: ReportRow[];
   /** The stored analysis results for the study's kind, or null when there is no current analysis. */
@@ -31,7 +33,10 @@ export interface InstrumentInfo { name: string; model: string; serial: string }
 /** A stored specimen row; the *Text fields, when given, keep the precision as reported. */
 export type ReportRow = Pick<SpecimenRow,
   'position' | 'label' | 'comparative' | 'candidate' | 'value' | 'sex' | 'ageBand' | 'excluded' | 'exclusionReason' | 'note'
-> & Partial<Pick<SpecimenRow, 'comparativeText' | 'candidateText' | 'valueText'>>;
+> & Partial<Pick<SpecimenRow, 'comparativeText' | 'candidateText' | 'valueText'>> & {
+  /** A kind's own row fields (a precision row's material, day, replicate), as GET /specimens answers them. */
+  readonly [kindField: string]: unknown;
+};
 
 /** A criterion changed after the plan was approved. */
 export interface Amendment { at: Date; by: string; field: string; from: string; to: string; reason: string }

@@ -10,19 +10,6 @@ export const VERDICT_WORDS = SHARED_VERDICT_WORDS;
 
 export const MEANING_WORDS = { accepted: 'Accepted for patient testing', 'not-accepted': 'Not accepted for patient testing' } as const;
 
-export const KIND_TITLES = {
-  'method-comparison': 'Method comparison',
-  'interval-establish': 'Reference interval: establishment',
-  'interval-verify': 'Reference interval: verification (transference)',
-} as const;
-
-/** The document's own title per kind of study. */
-export const REPORT_TITLES = {
-  'method-comparison': 'Method comparison: verification report',
-  'interval-establish': 'Reference interval establishment: study report',
-  'interval-verify': 'Reference interval verification: study report',
-} as const;
-
 export const REGRESSION_WORDS: Record<string, string> = REGRESSION_NAMES;
 
 export const DIFFERENCE_WORDS: Record<string, string> = {

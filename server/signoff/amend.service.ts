@@ -7,7 +7,7 @@ import { signatures, specimens, studies } from '../db/schema';
 import { AppError } from '../http/app-error';
 import { loadRows, storeInputHash } from '../specimens/input-hash';
 import { findStudy, type StudyRow } from '../studies/studies.repository';
-import { PLAN_FIELDS } from '../studies/study-settings';
+import { planFieldsOf } from '../studies/study-settings';
 import { studyView } from '../studies/study-view';
 import { contentHashOf, verificationCode } from './content-hash';
 import { confirmPassword, step, studyAttempt } from './signoff.service';
@@ -45,7 +45,7 @@ export async function approvePlan(ctx: AppContext, me: SignedInUser, id: number,
   await confirmPassword(ctx, me, body.password, address, studyAttempt(id, 'plan-approved'));
   return step(ctx, async (tx) => {
     const study = draftForPlan(await findStudy(tx, me.laboratoryId, id, true));
-    const plan = Object.fromEntries(PLAN_FIELDS.map((f) => [f, (study.settings as Record<string, unknown>)[f]]));
+    const plan = Object.fromEntries(planFieldsOf(study.kind).map((f) => [f, (study.settings as Record<string, unknown>)[f]]));
     const contentHash = contentHashOf({ studyId: id, kind: study.kind, analyteId: study.analyteId, plan });
     const signedAt = new Date();
     const [sig] = await tx.insert(signatures).values({

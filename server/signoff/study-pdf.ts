@@ -1,3 +1,4 @@
+import { parseKindSettings } from '../../shared/kinds/settings';
 import { and, asc, desc, eq } from 'drizzle-orm';
 import { show } from '../../shared/types/audit-words';
 import { StudySettings, type StudyKind, type StudyState } from '../../shared/schemas';
@@ -45,7 +46,7 @@ export async function renderStudyPdf(db: Executor, study: StudyRow, analysisId: 
       candidate: await instrument(db, study.candidateInstrumentId),
       instrument: await instrument(db, study.instrumentId),
     },
-    settings: StudySettings.parse(study.settings),
+    settings: parseKindSettings(study.kind, study.settings),
     engineVersion: analysis?.engineVersion ?? '',
     rows: (await loadRows(db, study.id)).map(rowView),
     results: (withRecordedWords(analysis?.results, study.settings) as ReportResults | undefined) ?? null,

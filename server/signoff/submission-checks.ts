@@ -1,4 +1,5 @@
-import { StudySettings } from '../../shared/schemas';
+import { parseKindSettings } from '../../shared/kinds/settings';
+import { serverKind } from '../kinds';
 import { repeatedLabels, repeatedLabelsSentence } from '../../shared/types/repeated-labels';
 import type { Executor } from '../db/client';
 import { loadRows } from '../specimens/input-hash';
@@ -8,7 +9,7 @@ import { findingsOf } from '../studies/study-view';
 /** Reasons a draft cannot be submitted yet, in words; empty when it can. */
 export async function submissionProblems(db: Executor, study: StudyRow): Promise<{ path: string; message: string }[]> {
   const problems: { path: string; message: string }[] = [];
-  const s = StudySettings.parse(study.settings);
+  const s = parseKindSettings(study.kind, study.settings);
   const findings = await findingsOf(db, study);
   if (findings.status !== 'current') {
     problems.push({ path: 'findings', message: findings.status === 'none' ? 'Run the analysis first' : 'The findings are out of date or not finished; run the analysis again' });
@@ -18,18 +19,7 @@ export async function submissionProblems(db: Executor, study: StudyRow): Promise
   // Unresolved repeats: two or more included rows with one label (trimmed, any case); excluding a row resolves its repeat.
   const repeats = repeatedLabelsSentence(repeatedLabels(rows), ' among the included rows');
   if (repeats) problems.push({ path: 'rows', message: `${repeats}; give each specimen its own label, or exclude the extra rows with a reason` });
-  if (study.kind === 'method-comparison') {
-    if (!s.decisionLevels.length) problems.push({ path: 'settings.decisionLevels', message: 'Name at least one medical decision level' });
-    if (s.allowableBiasAbsolute === null && s.allowableBiasPercent === null) problems.push({ path: 'settings.allowableBiasAbsolute', message: 'Set the allowable bias' });
-  }
-  if (study.kind !== 'interval-verify' && !s.allowableBiasSource && study.kind === 'method-comparison') {
-    problems.push({ path: 'settings.allowableBiasSource', message: 'Name the source of the allowable bias' });
-  }
-  if (study.kind === 'interval-verify' && (s.statedLower === null || s.statedUpper === null || !s.statedSource)) {
-    problems.push({ path: 'settings.statedSource', message: 'Give the stated interval and its source' });
-  }
-  if (study.kind === 'interval-establish' && !s.populationDescription.trim()) {
-    problems.push({ path: 'settings.populationDescription', message: 'Describe the reference population and the exclusion criteria used' });
-  }
+  // What the kind itself needs (server/kinds/<kind>): goals, a stated interval, a population, materials with claims.
+  problems.push(...serverKind(study.kind).submissionProblems(s, rows));
   return problems;
 }

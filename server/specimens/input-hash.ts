@@ -3,21 +3,35 @@ import type { Executor } from '../db/client';
 import { specimens, studies } from '../db/schema';
 import { canonicalJson, sha256Hex } from '../audit/canonical-json';
 import type { StudyRow } from '../studies/studies.repository';
+import { KIND_METAS } from '../../shared/kinds/kinds';
+import type { KindMeta } from '../../shared/kinds/kind';
 
 export type StoredRow = typeof specimens.$inferSelect;
 
 export const loadRows = (db: Executor, studyId: number): Promise<StoredRow[]> =>
   db.select().from(specimens).where(eq(specimens.studyId, studyId)).orderBy(asc(specimens.position));
 
-/** What an analysis reads of a row; the input hash covers exactly this. */
+/**
+ * What an analysis reads of a row; the input hash covers exactly this. A kind's own fields (`extra`) are added
+ * only where a row has them, so the rows of kinds without them hash as they always did.
+ */
 export const analysedFields = (r: StoredRow) => ({
   position: r.position, label: r.label,
   comparative: r.comparative, candidate: r.candidate, value: r.value,
   comparativeText: r.comparativeText, candidateText: r.candidateText, valueText: r.valueText,
   sex: r.sex, ageBand: r.ageBand, excluded: r.excluded, exclusionReason: r.exclusionReason,
-});
+  ...(r.extra ? { extra: r.extra } : {}),
+}) as AnalysedRow;
 
-export interface AnalysisInput { kind: string; settings: unknown; rows: ReturnType<typeof analysedFields>[] }
+/** An analysed row; `extra` only for kinds with fields of their own. */
+export interface AnalysedRow {
+  position: number; label: string; comparative: number | null; candidate: number | null; value: number | null;
+  comparativeText: string | null; candidateText: string | null; valueText: string | null;
+  sex: string | null; ageBand: string | null; excluded: boolean; exclusionReason: string | null;
+  extra?: Record<string, string | number | null>;
+}
+
+export interface AnalysisInput { kind: string; settings: unknown; rows: AnalysedRow[] }
 
 /**
  * Settings that are not inputs of the engine: words for people, and how results are read on entry
@@ -26,11 +40,14 @@ export interface AnalysisInput { kind: string; settings: unknown; rows: ReturnTy
 const RECORD_ONLY = ['allowableBiasSource', 'comparativeLot', 'candidateLot', 'reagentLot', 'runsFrom', 'runsTo', 'plannedSpecimens',
   'outlierRule', 'acceptanceRule', 'populationDescription', 'statedSource', 'decimalMark'];
 
-export const analysedSettings = (settings: unknown): Record<string, unknown> =>
-  Object.fromEntries(Object.entries((settings ?? {}) as Record<string, unknown>).filter(([k]) => !RECORD_ONLY.includes(k)));
+/** The settings an analysis reads: all but the record-only ones, those of every study and the kind's own (KindMeta.recordOnly). */
+export const analysedSettings = (settings: unknown, kind?: string): Record<string, unknown> => {
+  const own = kind ? (KIND_METAS.find((m) => m.kind === kind) as KindMeta | undefined)?.recordOnly ?? [] : [];
+  return Object.fromEntries(Object.entries((settings ?? {}) as Record<string, unknown>).filter(([k]) => !RECORD_ONLY.includes(k) && !own.includes(k)));
+};
 
 export async function analysisInput(db: Executor, study: StudyRow): Promise<AnalysisInput> {
-  return { kind: study.kind, settings: analysedSettings(study.settings), rows: (await loadRows(db, study.id)).map(analysedFields) };
+  return { kind: study.kind, settings: analysedSettings(study.settings, study.kind), rows: (await loadRows(db, study.id)).map(analysedFields) };
 }
 
 /** SHA-256 of canonical JSON of rows and settings: findings are current when their hash equals this. */

@@ -18,6 +18,16 @@ export function diffRows(before: CleanRow[], after: CleanRow[]) {
         else more++;
       }
     }
+    // A kind's own fields (a precision row's material, day, replicate).
+    const extras = new Set([...Object.keys(before[i].extra ?? {}), ...Object.keys(after[i].extra ?? {})]);
+    for (const f of extras) {
+      const from = before[i].extra?.[f] ?? null;
+      const to = after[i].extra?.[f] ?? null;
+      if (from !== to) {
+        if (changes.length < LIMIT) changes.push({ row: i + 1, field: f, from, to });
+        else more++;
+      }
+    }
   }
   return {
     changes,
@@ -28,4 +38,4 @@ export function diffRows(before: CleanRow[], after: CleanRow[]) {
 }
 
 const compact = (r: CleanRow) =>
-  Object.fromEntries(Object.entries({ label: r.label, comparative: r.comparativeText, candidate: r.candidateText, value: r.valueText, sex: r.sex, ageBand: r.ageBand, excluded: r.excluded || undefined, exclusionReason: r.exclusionReason ?? undefined, note: r.note || undefined }).filter(([, v]) => v !== null && v !== undefined));
+  Object.fromEntries(Object.entries({ ...(r.extra ?? {}), label: r.label, comparative: r.comparativeText, candidate: r.candidateText, value: r.valueText, sex: r.sex, ageBand: r.ageBand, excluded: r.excluded || undefined, exclusionReason: r.exclusionReason ?? undefined, note: r.note || undefined }).filter(([, v]) => v !== null && v !== undefined));

@@ -17,12 +17,14 @@ export const rowView = (r: StoredRow): SpecimenRow => ({
   position: r.position, label: r.label, comparative: r.comparative, candidate: r.candidate, value: r.value,
   comparativeText: r.comparativeText, candidateText: r.candidateText, valueText: r.valueText,
   sex: r.sex, ageBand: r.ageBand, excluded: r.excluded, exclusionReason: r.exclusionReason, note: r.note, uploadId: r.uploadId,
+  // A kind's own fields (shared/kinds/kind.ts) sit beside the columns, as the grid and the exports read them.
+  ...(r.extra ?? {}),
 });
 
 export const asClean = (r: StoredRow): CleanRow => ({
   label: r.label, comparative: r.comparative, candidate: r.candidate, value: r.value,
   comparativeText: r.comparativeText, candidateText: r.candidateText, valueText: r.valueText,
-  sex: r.sex, ageBand: r.ageBand, excluded: r.excluded, exclusionReason: r.exclusionReason, note: r.note,
+  sex: r.sex, ageBand: r.ageBand, excluded: r.excluded, exclusionReason: r.exclusionReason, note: r.note, extra: r.extra ?? null,
 });
 
 /**

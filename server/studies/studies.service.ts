@@ -9,7 +9,11 @@ import { invalid } from '../http/app-error';
 import { bumpVersion, findLabAnalyte, findLabInstrument, findStudy } from './studies.repository';
 import { fieldWords } from '../../shared/types/audit-words';
 import { assertEditable } from './study-rules';
-import { initialSettings, PLAN_FIELDS } from './study-settings';
+import { initialSettings, planFieldsOf } from './study-settings';
+import { kindMeta } from '../../shared/kinds/kinds';
+import { ownSettingKeys, parseKindSettings, type KindSettings } from '../../shared/kinds/settings';
+import { AppError } from '../http/app-error';
+import * as z from 'zod';
 import { studyView, summarise } from './study-view';
 import { storeInputHash } from '../specimens/input-hash';
 import { signableBy } from '../signoff/who-may-sign';
@@ -20,7 +24,7 @@ async function checkRefs(tx: Tx, me: SignedInUser, kind: string, ids: { analyteI
     const id = ids[field];
     if (id !== undefined && id !== null && !(await findLabInstrument(tx, me.laboratoryId, id))) throw invalid(field, 'Choose an instrument from the catalog');
   }
-  if (kind === 'method-comparison' && ids.comparativeInstrumentId && ids.comparativeInstrumentId === ids.candidateInstrumentId) {
+  if (kindMeta(kind).instruments === 'pair' && ids.comparativeInstrumentId && ids.comparativeInstrumentId === ids.candidateInstrumentId) {
     throw invalid('candidateInstrumentId', 'The candidate instrument must differ from the comparative one');
   }
 }
@@ -28,15 +32,16 @@ async function checkRefs(tx: Tx, me: SignedInUser, kind: string, ids: { analyteI
 export async function createStudy(db: Database, me: SignedInUser, body: CreateStudyBody): Promise<Study> {
   return db.transaction(async (tx) => {
     await checkRefs(tx, me, body.kind, body);
-    if (body.kind === 'method-comparison' && (!body.comparativeInstrumentId || !body.candidateInstrumentId)) {
-      throw invalid(body.comparativeInstrumentId ? 'candidateInstrumentId' : 'comparativeInstrumentId', 'A method comparison needs a comparative and a candidate instrument');
+    const pair = kindMeta(body.kind).instruments === 'pair';
+    if (pair && (!body.comparativeInstrumentId || !body.candidateInstrumentId)) {
+      throw invalid(body.comparativeInstrumentId ? 'candidateInstrumentId' : 'comparativeInstrumentId', `A ${kindMeta(body.kind).label.toLowerCase()} needs a comparative and a candidate instrument`);
     }
-    if (body.kind !== 'method-comparison' && !body.instrumentId) throw invalid('instrumentId', 'Choose the instrument');
+    if (!pair && !body.instrumentId) throw invalid('instrumentId', 'Choose the instrument');
     const analyte = (await findLabAnalyte(tx, me.laboratoryId, body.analyteId))!;
     const [row] = await tx.insert(studies).values({
       laboratoryId: me.laboratoryId, kind: body.kind, title: body.title, purpose: body.purpose, analyteId: body.analyteId,
       comparativeInstrumentId: body.comparativeInstrumentId ?? null, candidateInstrumentId: body.candidateInstrumentId ?? null,
-      instrumentId: body.instrumentId ?? null, settings: initialSettings(body.kind, analyte, body.settings), createdBy: me.id,
+      instrumentId: body.instrumentId ?? null, settings: checkedSettings(() => initialSettings(body.kind, analyte, body.settings)), createdBy: me.id,
     }).returning();
     await recordAudit(tx, actorOf(me), { action: 'study.created', entity: 'study', entityId: row.id, studyId: row.id, after: { ...body, settings: row.settings } });
     await storeInputHash(tx, row.id);
@@ -49,8 +54,9 @@ export async function updateStudy(db: Database, me: SignedInUser, id: number, bo
     const study = await findStudy(tx, me.laboratoryId, id, true);
     assertEditable(study);
     await checkRefs(tx, me, study.kind, body);
-    const { version, settings, reason, ...fields } = body;
-    const merged = settings ? StudySettings.parse({ ...(study.settings as object), ...settings }) : undefined;
+    const { version, settings: given, reason, ...fields } = body;
+    const settings = given && knownSettings(study.kind, given);
+    const merged = settings ? checkedSettings(() => parseKindSettings(study.kind, { ...(study.settings as object), ...settings })) : undefined;
     const moved = planChanges(study, merged);
     if (moved.length && !reason?.trim()) {
       throw invalid('reason', `The plan was approved; give a reason for changing the ${moved.map((m) => fieldWords(m.field)).join(', the ')}`);
@@ -77,11 +83,31 @@ export async function updateStudy(db: Database, me: SignedInUser, id: number, bo
   });
 }
 
+/**
+ * Settings parsed for the study's kind; a kind's own setting that fails its schema (shared/kinds/<kind>/meta.ts)
+ * answers 400 naming it ("settings.materials.0.claimRepeatability: The repeatability claim must be above 0").
+ */
+/** Only the settings the kind knows (the common ones and its own); others are dropped, as zod drops unknown keys. */
+function knownSettings(kind: string, given: Record<string, unknown>): Record<string, unknown> {
+  const known = new Set([...Object.keys(StudySettings.shape), ...ownSettingKeys(kind)]);
+  return Object.fromEntries(Object.entries(given).filter(([k]) => known.has(k)));
+}
+
+function checkedSettings(parse: () => KindSettings): KindSettings {
+  try {
+    return parse();
+  } catch (error) {
+    if (!(error instanceof z.ZodError)) throw error;
+    const issues = error.issues.map((e) => ({ path: ['settings', ...e.path].join('.'), message: `${['settings', ...e.path].join('.')}: ${e.message}` }));
+    throw new AppError('invalid_request', issues[0].message, issues);
+  }
+}
+
 /** Plan fields whose value changes after the director approved the plan. */
-function planChanges(study: typeof studies.$inferSelect, merged: StudySettings | undefined) {
+function planChanges(study: typeof studies.$inferSelect, merged: KindSettings | undefined) {
   if (!study.planApprovedAt || !merged) return [];
   const before = study.settings as Record<string, unknown>;
-  return PLAN_FIELDS.filter((f) => JSON.stringify(before[f] ?? null) !== JSON.stringify((merged as Record<string, unknown>)[f] ?? null))
+  return planFieldsOf(study.kind).filter((f) => JSON.stringify(before[f] ?? null) !== JSON.stringify((merged as Record<string, unknown>)[f] ?? null))
     .map((f) => ({ field: f, from: before[f] ?? null, to: (merged as Record<string, unknown>)[f] ?? null }));
 }
 

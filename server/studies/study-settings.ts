@@ -1,23 +1,24 @@
 import { randomBytes } from 'node:crypto';
-import { StudySettings, type StudyKind, type StudySettingsPatch } from '../../shared/schemas';
+import { kindMeta } from '../../shared/kinds/kinds';
+import { parseKindSettings, type KindSettings } from '../../shared/kinds/settings';
+import type { StudyKind, StudySettingsPatch } from '../../shared/schemas';
 import type { analytes } from '../db/schema';
+import { serverKind } from '../kinds';
 
-const ACCEPTANCE: Record<Exclude<StudyKind, 'method-comparison'>, string> = {
-  'interval-establish': 'Nonparametric limits with 90% CIs from at least 120 reference individuals per partition; partitions where Harris & Boyd recommend them',
-  'interval-verify': 'Accept the stated interval when at most 10% of the local values (2 of 20) fall outside it',
-};
-
-/** A new study's settings: the analyte's unit, decimals, decision levels and goal, then what the caller gave. */
-export function initialSettings(kind: StudyKind, analyte: typeof analytes.$inferSelect, given: StudySettingsPatch = {}): StudySettings {
-  return StudySettings.parse({
+/**
+ * A new study's settings: the analyte's unit, decimals, decision levels and goal, the kind's own starting
+ * values (server/kinds/<kind> initialSettings), then what the caller gave; the kind's own settings are checked
+ * with its schema (shared/kinds/<kind>/meta.ts).
+ */
+export function initialSettings(kind: StudyKind, analyte: typeof analytes.$inferSelect, given: StudySettingsPatch & Record<string, unknown> = {}): KindSettings {
+  return parseKindSettings(kind, {
     unit: analyte.unit,
     decimals: analyte.decimals,
     decisionLevels: analyte.decisionLevels,
     allowableBiasAbsolute: analyte.allowableBiasAbsolute,
     allowableBiasPercent: analyte.allowableBiasPercent,
     allowableBiasSource: analyte.allowableBiasSource,
-    confidenceLevel: kind === 'method-comparison' ? 0.95 : 0.9,
-    ...(kind === 'method-comparison' ? {} : { acceptanceRule: ACCEPTANCE[kind], outlierRule: 'Tukey fences and Dixon\'s D/R > 1/3 rule (flags only; exclusion needs a reason)' }),
+    ...serverKind(kind).initialSettings(analyte),
     seed: randomBytes(5).toString('hex'),
     ...given,
   });
@@ -28,3 +29,6 @@ export const PLAN_FIELDS = [
   'decisionLevels', 'allowableBiasAbsolute', 'allowableBiasPercent', 'allowableBiasSource', 'plannedSpecimens',
   'outlierRule', 'acceptanceRule', 'percentiles', 'statedLower', 'statedUpper',
 ] as const;
+
+/** The plan fields of a kind: those of every study and the kind's own (KindMeta.planFields). */
+export const planFieldsOf = (kind: string): string[] => [...PLAN_FIELDS, ...(kindMeta(kind).planFields ?? [])];

@@ -1,3 +1,5 @@
+import { kindMeta } from '../../shared/kinds/kinds';
+import { parseKindSettings } from '../../shared/kinds/settings';
 import { sql } from 'drizzle-orm';
 import { StudySettings, type FindingsStatus, type Study, type StudyKind, type StudyState, type StudySummary } from '../../shared/schemas';
 import type { Executor } from '../db/client';
@@ -85,7 +87,7 @@ async function summariseAll(db: Executor, rows: StudyRow[]): Promise<Summarised>
   const summaries = rows.map((r): StudySummary => ({
     id: r.id, kind: r.kind as StudyKind, title: r.title,
     analyte: { id: r.analyteId, name: analyteMap.get(r.analyteId)?.name ?? '' },
-    instruments: r.kind === 'method-comparison'
+    instruments: kindMeta(r.kind).instruments === 'pair'
       ? `${name(instrumentNames, r.comparativeInstrumentId) || '?'} → ${name(instrumentNames, r.candidateInstrumentId) || '?'}`
       : name(instrumentNames, r.instrumentId),
     n: known.get(r.id)!.included,
@@ -118,7 +120,7 @@ export async function studyView(db: Executor, row: StudyRow, me: SignedInUser): 
     comparativeInstrument: inst(row.comparativeInstrumentId),
     candidateInstrument: inst(row.candidateInstrumentId),
     instrument: inst(row.instrumentId),
-    settings: StudySettings.parse(row.settings),
+    settings: parseKindSettings(row.kind, row.settings),
     version: row.version,
     supersedesId: row.supersedesId,
     supersededById: row.supersededById,

@@ -1,5 +1,5 @@
 import { and, eq, sql } from 'drizzle-orm';
-import { COMPARISON_FIELDS, INTERVAL_FIELDS, type ImportBody, type SpecimenRows, type UploadPreview } from '../../shared/schemas';
+import { type ImportBody, type SpecimenRows, type UploadPreview } from '../../shared/schemas';
 import { recordAudit } from '../audit/audit';
 import { sha256Hex } from '../audit/canonical-json';
 import { actorOf, SignedInUser } from '../auth/session-user';
@@ -10,7 +10,8 @@ import { loadRows } from '../specimens/input-hash';
 import { asClean, cleanRowsFor, writeRows } from '../specimens/specimens.service';
 import { findStudy } from '../studies/studies.repository';
 import { assertEditable } from '../studies/study-rules';
-import { suggestMapping, unmappedNotes } from './column-mapping';
+import { neededFields, suggestMapping, unmappedNotes } from './column-mapping';
+import { kindMeta } from '../../shared/kinds/kinds';
 import type { ParsedTable } from './parse-file';
 import { uploadParser } from './parse-pool';
 
@@ -54,13 +55,15 @@ export async function importUpload(db: Database, me: SignedInUser, studyId: numb
     const [upload] = await tx.select().from(uploads).where(and(eq(uploads.id, uploadId), eq(uploads.studyId, study.id)));
     if (!upload) throw notFound('Upload');
     const table = upload.parsed as ParsedTable;
-    const fields: readonly string[] = study.kind === 'method-comparison' ? COMPARISON_FIELDS : INTERVAL_FIELDS;
+    const fields: readonly string[] = [...kindMeta(study.kind).rowFields.map((f) => f.field), 'excluded', 'exclusionReason', 'note'];
     for (const [field, column] of Object.entries(body.mapping)) {
       if (!fields.includes(field)) throw invalid(`mapping.${field}`, `"${field}" is not a field of this study's rows`);
       if (!table.columns.includes(column)) throw invalid(`mapping.${field}`, `The file has no column "${column}"`);
     }
-    const needed = study.kind === 'method-comparison' ? ['comparative', 'candidate'] : ['value'];
-    for (const f of needed) if (!body.mapping[f]) throw invalid(`mapping.${f}`, `Choose the column that holds the ${f === 'value' ? 'values' : `${f} results`}`);
+    for (const f of neededFields(study.kind)) {
+      const what = f.field === 'value' ? 'values' : f.type === 'result' ? `${f.field} results` : f.words;
+      if (!body.mapping[f.field]) throw invalid(`mapping.${f.field}`, `Choose the column that holds the ${what}`);
+    }
     const raw = table.rows.map((r) => Object.fromEntries(Object.entries(body.mapping).map(([f, c]) => [f, r[table.columns.indexOf(c)]])));
     const offset = table.hasHeader ? 1 : 0;
     const imported = await cleanRowsFor(tx, study, raw.map((r) => ({ ...r, excluded: false }))).catch((err) => {

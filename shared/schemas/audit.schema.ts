@@ -1,4 +1,7 @@
 import * as z from 'zod';
+import { KIND_METAS } from '../kinds/kinds';
+
+type VerdictKey = (typeof KIND_METAS)[number]['verdicts'][number]['key'];
 import { CalendarDay } from './common.schema';
 import { StudyKind, StudyState } from './study.schema';
 
@@ -23,7 +26,8 @@ export const AuditQuery = z.object({
 });
 export type AuditQuery = z.infer<typeof AuditQuery>;
 
-export const VERDICTS = ['within', 'inconclusive', 'exceeds', 'accepted', 'failed', 'established'] as const;
+/** Every kind's overall verdicts (shared/kinds/<kind>/meta.ts), as the archive filters them. */
+export const VERDICTS = KIND_METAS.flatMap((m) => m.verdicts.map((v) => v.key)) as unknown as readonly [VerdictKey, ...VerdictKey[]];
 export const OverallVerdict = z.enum(VERDICTS);
 export type OverallVerdict = z.infer<typeof OverallVerdict>;
 

@@ -31,8 +31,11 @@ export const PutSpecimensBody = z.object({
 });
 export type PutSpecimensBody = z.infer<typeof PutSpecimensBody>;
 
-/** A stored row, as GET answers it (numbers parsed; the text keeps the reported precision). */
-export const SpecimenRow = z.object({
+/**
+ * A stored row, as GET answers it (numbers parsed; the text keeps the reported precision). A kind's own fields
+ * without a column (shared/kinds/kind.ts), such as a precision row's material, day and replicate, come beside these.
+ */
+export const SpecimenRow = z.looseObject({
   position: z.number(),
   label: z.string(),
   comparative: z.number().nullable(),

@@ -1,15 +1,13 @@
 import * as z from 'zod';
 import { CalendarDay } from './common.schema';
 import { DECIMAL_MARKS } from './result-text';
+import { KIND_METAS, type StudyKindName } from '../kinds/kinds';
 
-export const STUDY_KINDS = ['method-comparison', 'interval-establish', 'interval-verify'] as const;
-export const StudyKind = z.enum(STUDY_KINDS);
+/** The kinds' names, from their registry (shared/kinds/kinds.ts). */
+export const STUDY_KINDS = KIND_METAS.map((m) => m.kind) as unknown as readonly [StudyKindName, ...StudyKindName[]];
+export const StudyKind = z.enum(STUDY_KINDS, { error: `Choose a kind of study: ${KIND_METAS.map((m) => m.kind).join(', ')}` });
 export type StudyKind = z.infer<typeof StudyKind>;
-export const STUDY_KIND_LABELS: Record<StudyKind, string> = {
-  'method-comparison': 'Method comparison',
-  'interval-establish': 'Reference interval: establish',
-  'interval-verify': 'Reference interval: verify',
-};
+export const STUDY_KIND_LABELS = Object.fromEntries(KIND_METAS.map((m) => [m.kind, m.label])) as Record<StudyKind, string>;
 
 export const STUDY_STATES = ['draft', 'awaiting-signoff', 'signed'] as const;
 export const StudyState = z.enum(STUDY_STATES);
@@ -87,7 +85,8 @@ export const CreateStudyBody = z.object({
   comparativeInstrumentId: id.optional(),
   candidateInstrumentId: id.optional(),
   instrumentId: id.optional(),
-  settings: StudySettingsPatch.optional(),
+  /** The common settings, and the kind's own (shared/kinds/<kind>/meta.ts), which the server checks for the kind. */
+  settings: StudySettingsPatch.loose().optional(),
 });
 export type CreateStudyBody = z.infer<typeof CreateStudyBody>;
 
@@ -99,7 +98,7 @@ export const UpdateStudyBody = z.object({
   comparativeInstrumentId: id.nullable().optional(),
   candidateInstrumentId: id.nullable().optional(),
   instrumentId: id.nullable().optional(),
-  settings: StudySettingsPatch.optional(),
+  settings: StudySettingsPatch.loose().optional(),
   /** Required when the plan was approved and a plan field changes. */
   reason: z.string().max(500).optional(),
 });
@@ -139,7 +138,8 @@ export const Study = StudySummary.extend({
   comparativeInstrument: Ref.nullable(),
   candidateInstrument: Ref.nullable(),
   instrument: Ref.nullable(),
-  settings: StudySettings,
+  /** The common settings and the kind's own (shared/kinds/settings.ts). */
+  settings: StudySettings.loose(),
   version: z.number(),
   supersedesId: z.number().nullable(),
   supersededById: z.number().nullable(),

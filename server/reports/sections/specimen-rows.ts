@@ -1,3 +1,4 @@
+import { kindMeta } from '../../../shared/kinds/kinds';
 import { num, orDash } from '../format';
 import type { Layout } from '../layout';
 import type { ReportRow, StudyReport } from '../report-model';
@@ -49,7 +50,8 @@ export function exclusions(layout: Layout, report: StudyReport): void {
     return;
   }
   const d = decimalsOf(report);
-  const comparison = report.study.kind === 'method-comparison';
+  // A kind with two results a row (a comparison's x and y) shows both.
+  const comparison = kindMeta(report.study.kind).rowFields.filter((f) => f.type === 'result').length > 1;
   const result = (r: ReportRow): string => comparison
     ? `${valueText(r.comparativeText, r.comparative, d.value)} / ${valueText(r.candidateText, r.candidate, d.value)}`
     : valueText(r.valueText, r.value, d.value);

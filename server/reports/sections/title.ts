@@ -6,13 +6,14 @@ import { drawTable } from '../table';
 import { drawText } from '../text';
 import { COLOR, SIZE } from '../theme';
 import { laboratoryTime } from '../../../shared/types/lab-time';
-import { KIND_TITLES, REPORT_TITLES, STATE_WORDS } from '../words';
+import { STATE_WORDS } from '../words';
+import { kindMeta } from '../../../shared/kinds/kinds';
 
 /** The first lines: laboratory, kind of study, title, identity and state. */
 export function titleBlock(layout: Layout, report: StudyReport): void {
   const { doc } = layout;
   layout.y += drawText(doc, report.laboratory.name, layout.left, layout.y, { size: SIZE.body, color: COLOR.muted }, { width: layout.width });
-  layout.y += drawText(doc, REPORT_TITLES[report.study.kind], layout.left, layout.y, { size: SIZE.title, bold: true, color: COLOR.accent }, { width: layout.width });
+  layout.y += drawText(doc, kindMeta(report.study.kind).reportTitle, layout.left, layout.y, { size: SIZE.title, bold: true, color: COLOR.accent }, { width: layout.width });
   layout.y += drawText(doc, report.study.title, layout.left, layout.y, { size: SIZE.heading, bold: true }, { width: layout.width });
   const identity = [
     `Study ${report.study.id}`,
@@ -34,7 +35,7 @@ export function studyBlock(layout: Layout, report: StudyReport): void {
   const runs = s.runsFrom || s.runsTo ? `${orDash(s.runsFrom)} to ${orDash(s.runsTo)}` : 'Not recorded';
   const pairs: [string, string][] = [
     ['Analyte', report.analyte.unit ? `${report.analyte.name} (${report.analyte.unit})` : report.analyte.name],
-    ['Kind of study', KIND_TITLES[report.study.kind]],
+    ['Kind of study', kindMeta(report.study.kind).reportKind],
     ['Runs', runs],
     ['Specimens', `${plural(report.rows.length, 'row')} entered${s.plannedSpecimens ? `; ${integer(s.plannedSpecimens)} planned` : ''}`],
     ['Purpose', orDash(report.study.purpose)],
@@ -47,7 +48,7 @@ export function studyBlock(layout: Layout, report: StudyReport): void {
   const add = (role: string, i: InstrumentInfo | undefined, lot: string): void => {
     rows.push([role, orDash(i?.name), orDash(i?.model), orDash(i?.serial), orDash(lot)]);
   };
-  if (report.study.kind === 'method-comparison') {
+  if (kindMeta(report.study.kind).instruments === 'pair') {
     add('Comparative method (x)', comparative, s.comparativeLot);
     add('Candidate method (y)', candidate, s.candidateLot);
   } else {

@@ -9,7 +9,7 @@ import { verdictView } from './verdict-view';
   changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [MatIconModule],
   template: `
-    <span class="verdict" [attr.data-verdict]="view().key" [attr.title]="view().sentence" data-testid="verdict">
+    <span class="verdict" [attr.data-verdict]="view().key" [attr.data-tone]="view().tone" [attr.title]="view().sentence" data-testid="verdict">
       <mat-icon aria-hidden="true">{{ view().icon }}</mat-icon>
       <span>{{ view().word }}</span>
       <span class="sr-only">: {{ view().sentence }}</span>
@@ -27,16 +27,16 @@ import { verdictView } from './verdict-view';
       width: 20px;
       height: 20px;
     }
-    [data-verdict='within'] mat-icon, [data-verdict='accepted'] mat-icon, [data-verdict='established'] mat-icon {
+    [data-tone='pass'] mat-icon, [data-tone='record'] mat-icon {
       color: var(--mat-sys-primary);
     }
-    [data-verdict='exceeds'] mat-icon, [data-verdict='failed'] mat-icon {
+    [data-tone='fail'] mat-icon {
       color: var(--mat-sys-error);
     }
-    [data-verdict='inconclusive'] mat-icon {
+    [data-tone='open'] mat-icon {
       color: var(--mat-sys-tertiary);
     }
-    [data-verdict='none'] {
+    [data-tone='none'] {
       color: var(--mat-sys-on-surface-variant);
     }
     .sr-only {

@@ -1,0 +1,45 @@
+import { sql } from 'drizzle-orm';
+import { precisionMeta, PrecisionSettings } from '../../../shared/kinds/precision/meta';
+import { StudySettings } from '../../../shared/schemas';
+import { analyzePrecision } from '../../../shared/stats/analyze-precision';
+import type { PrecisionRow } from '../../../shared/stats/precision-types';
+import type { ServerKind } from '../kind';
+import { precisionReport } from './report';
+import { precisionSheet } from './results-sheet';
+
+export const PRECISION_OUTLIER_RULE = 'Flag a replicate more than 5.5 repeatability SDs from its day\'s mean (flags only; exclusion needs a reason)';
+
+/** Precision verification on the server: days × replicates per material against the manufacturer's claims (CLSI EP15 practice). */
+export const precisionKind: ServerKind = {
+  meta: precisionMeta,
+  initialSettings: () => ({
+    confidenceLevel: 0.95,
+    outlierRule: PRECISION_OUTLIER_RULE,
+    acceptanceRule: 'Each SD within its claim, or within the upper verification limit of the claim (α adjusted for the number of materials)',
+  }),
+  analyse(input) {
+    const common = StudySettings.parse(input.settings);
+    const own = PrecisionSettings.parse(input.settings);
+    if (!own.materials.length) throw new Error('Name the materials and their claims in Setup before running the analysis');
+    const rows: PrecisionRow[] = input.rows.filter((r) => r.value !== null).map((r) => ({
+      material: String(r.extra?.material ?? ''), day: String(r.extra?.day ?? ''),
+      replicate: typeof r.extra?.replicate === 'number' ? r.extra.replicate : null, value: r.value!,
+      excluded: r.excluded, exclusionReason: r.exclusionReason ?? undefined, position: r.position,
+    }));
+    return analyzePrecision(rows, {
+      materials: own.materials, days: own.days, replicates: own.replicates, alpha: own.alpha, decimals: common.decimals, seed: common.seed,
+    });
+  },
+  submissionProblems(s) {
+    const own = PrecisionSettings.safeParse(s);
+    if (!own.success || !own.data.materials.length) return [{ path: 'settings.materials', message: 'Name at least one material with its repeatability and within-laboratory claims' }];
+    return [];
+  },
+  // Verified when no repeatability or within-laboratory SD lies above its upper verification limit.
+  archiveVerdict: sql`CASE
+      WHEN results->'materials' @> '[{"verdicts":{"repeatability":"not-verified"}}]' OR results->'materials' @> '[{"verdicts":{"withinLab":"not-verified"}}]' THEN 'claims-not-verified'
+      WHEN jsonb_array_length(COALESCE(results->'materials', '[]'::jsonb)) > 0 THEN 'claims-verified'
+      ELSE NULL END`,
+  report: (layout, report, results) => precisionReport(layout, report, results as never),
+  resultsSheet: precisionSheet,
+};
