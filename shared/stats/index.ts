@@ -4,6 +4,9 @@
 export { analyzeComparison } from './analyze-comparison';
 export { analyzeInterval } from './analyze-interval';
 export { verifyInterval, type VerifyIntervalResult } from './verify-interval';
+// Precision verification (CLSI EP15-A3 practice): see README.md "Precision".
+export { analyzePrecision } from './analyze-precision';
+export type { PrecisionResult, PrecisionRow, PrecisionOptions, PrecisionMaterialSetting, PrecisionMaterialResult, PrecisionComponent, PrecisionVerdict } from './precision-types';
 export { bootstrapTest, bootstrapCi, type BootstrapTestOptions, type BootstrapTestResult, type BootstrapCiOptions } from './one-sample';
 export { resolveComparisonOptions, REGRESSION_METHODS, DIFFERENCE_TYPES, type ComparisonOptions, type ResolvedComparisonOptions } from './comparison-options';
 export { resolveIntervalOptions, type IntervalOptions, type ResolvedIntervalOptions, type PartitionField } from './interval-options';

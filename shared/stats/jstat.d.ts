@@ -5,5 +5,6 @@ declare module 'jstat' {
     erfc(x: number): number;
     normal: { cdf(x: number, mean: number, sd: number): number; inv(p: number, mean: number, sd: number): number };
     studentt: { cdf(x: number, dof: number): number; inv(p: number, dof: number): number };
+    chisquare: { cdf(x: number, dof: number): number; inv(p: number, dof: number): number };
   };
 }

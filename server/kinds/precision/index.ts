@@ -4,10 +4,11 @@ import { StudySettings } from '../../../shared/schemas';
 import { analyzePrecision } from '../../../shared/stats/analyze-precision';
 import type { PrecisionRow } from '../../../shared/stats/precision-types';
 import type { ServerKind } from '../kind';
+import { PRECISION_DEMOS } from './demo';
 import { precisionReport } from './report';
 import { precisionSheet } from './results-sheet';
 
-export const PRECISION_OUTLIER_RULE = 'Flag a replicate more than 5.5 repeatability SDs from its day\'s mean (flags only; exclusion needs a reason)';
+export const PRECISION_OUTLIER_RULE = 'Flag a replicate more than 5.5 repeatability SDs (computed without it) from the mean of its day\'s other results (flags only; exclusion needs a reason)';
 
 /** Precision verification on the server: days × replicates per material against the manufacturer's claims (CLSI EP15 practice). */
 export const precisionKind: ServerKind = {
@@ -42,4 +43,5 @@ export const precisionKind: ServerKind = {
       ELSE NULL END`,
   report: (layout, report, results) => precisionReport(layout, report, results as never),
   resultsSheet: precisionSheet,
+  demos: PRECISION_DEMOS,
 };

@@ -18,7 +18,8 @@ export type PrecisionMaterial = z.infer<typeof PrecisionMaterial>;
 
 /** The settings only a precision study has (the others, such as the lots and the outlier rule, every study carries). */
 export const PrecisionSettings = z.object({
-  materials: z.array(PrecisionMaterial).min(1, 'Name at least one material').max(6, 'At most 6 materials')
+  // A new study may start without materials; submission needs at least one (server/kinds/precision).
+  materials: z.array(PrecisionMaterial).max(6, 'At most 6 materials')
     .refine((ms) => new Set(ms.map((m) => m.name.trim().toLowerCase())).size === ms.length, 'Give each material its own name')
     .default([]),
   days: z.number().int().min(2, 'Plan at least 2 days').max(60, 'At most 60 days').default(5),
