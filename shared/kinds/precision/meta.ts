@@ -51,8 +51,8 @@ export const precisionMeta = {
   resultKind: 'precision',
   instruments: 'one',
   verdicts: [
-    { key: 'claims-verified', tone: 'pass', icon: 'verified', word: 'Claims verified', sentence: 'Every repeatability and within-laboratory SD lies within its claim or its upper verification limit.' },
-    { key: 'claims-not-verified', tone: 'fail', icon: 'block', word: 'Claim not verified', sentence: 'At least one SD lies above the upper verification limit of its claim.' },
+    { key: 'claims-verified', tone: 'pass', icon: 'task_alt', word: 'Claims verified', sentence: 'Every repeatability and within-laboratory SD lies within its claim or its upper verification limit.' },
+    { key: 'claims-not-verified', tone: 'fail', icon: 'error', word: 'Claim not verified', sentence: 'At least one SD lies above the upper verification limit of its claim.' },
   ],
   row: PrecisionRowInput,
   rowFields: [

@@ -1,4 +1,4 @@
-import type { OverallVerdict } from '../../../../shared/schemas';
+import { VERDICTS, type OverallVerdict } from '../../../../shared/schemas';
 import { KIND_METAS } from '../../../../shared/kinds/kinds';
 
 /** How a study's overall verdict reads in the archive: an icon, a short word and a sentence; never colour alone. */
@@ -26,9 +26,7 @@ export function verdictView(verdict: OverallVerdict | null | undefined): Verdict
 }
 
 /** The verdicts a search may ask for, with their words, in the order the chooser lists them. */
-export const VERDICT_CHOICES: readonly VerdictView[] = (['within', 'inconclusive', 'exceeds', 'accepted', 'failed', 'established'] as const).map(
-  (v) => VIEWS[v],
-);
+export const VERDICT_CHOICES: readonly VerdictView[] = VERDICTS.map((v) => VIEWS[v]);
 
 const MEANINGS: Record<string, string> = {
   accepted: 'Accepted for patient testing',

@@ -11,9 +11,12 @@ export interface ComparisonView {
   points: PlotPoint[] | null;
 }
 
-/** The comparison findings of a finished analysis; null for other kinds, runs not done, or results of another shape. */
+/**
+ * The comparison findings of a finished analysis, for a kind whose view shows them with the review's comparison panels
+ * (KindView.reviewPanel); null for runs not done, or results of another shape.
+ */
 export function comparisonView(study: Study, analysis: Analysis | null, rows: readonly GridRow[], rowsReady: boolean): ComparisonView | null {
-  if (study.kind !== 'method-comparison' || analysis?.state !== 'done') return null;
+  if (analysis?.state !== 'done') return null;
   const result = asComparison(analysis.results);
   if (!result) return null;
   const points = analysis.current && rowsReady ? plotPoints(rows, result.differenceType) : null;

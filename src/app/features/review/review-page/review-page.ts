@@ -19,7 +19,7 @@ import { SensitivityPanel } from '../../studies/findings/comparison/sensitivity-
 import { VerdictPanel } from '../../studies/findings/comparison/verdict-panel/verdict-panel';
 import { PrintLayout } from '../../studies/print-layout';
 import { SpecimensStore } from '../../studies/specimens/specimens-store';
-import { hasKindView, kindView } from '../../studies/study-kinds';
+import { hasKindView, kindView } from '../../studies/kinds';
 import { kindLabel, stateLabel } from '../../studies/study-text';
 import { StudyStore } from '../../studies/study/study-store';
 import { ReasonData, ReasonDialog } from '../dialogs/reason-dialog';
@@ -68,13 +68,18 @@ export class ReviewPage {
   protected readonly state = computed(() => (this.study() ? stateLabel(this.study()!) : ''));
   protected readonly decide = computed(() => !!this.study() && mayDecide(this.study()!, this.auth.roles()));
   protected readonly pdf = computed(() => (this.study() ? reportUrl(this.study()!.id) : ''));
+  /** How the study's kind shows its findings here: the review's comparison panels, or its own Findings panel. */
+  private readonly reviewPanel = computed(() => {
+    const s = this.study();
+    return s && hasKindView(s.kind) ? kindView(s.kind).reviewPanel : null;
+  });
   protected readonly comparison = computed(() => {
     const s = this.study();
     const ready = this.specimens.version() > 0 && !this.specimens.loading();
-    return s ? comparisonView(s, this.store.analysis(), this.specimens.rows(), ready) : null;
+    return s && this.reviewPanel() === 'comparison-view' ? comparisonView(s, this.store.analysis(), this.specimens.rows(), ready) : null;
   });
   protected readonly exclusions = computed(() => exclusionRows(this.specimens.rows(), this.specimens.layout));
-  /** Another kind's own findings panel, when the studies feature has one. */
+  /** The kind's own Findings panel, for a kind whose view asks for it (reviewPanel 'own-panel'). */
   protected readonly panel = signal<Type<unknown> | null>(null);
   protected readonly viewable = computed(() => !!this.study() && hasKindView(this.study()!.kind));
   protected readonly stale = computed(() => {
@@ -89,7 +94,7 @@ export class ReviewPage {
     });
     effect(() => {
       const s = this.study();
-      if (!s || s.kind === 'method-comparison' || !hasKindView(s.kind)) return;
+      if (!s || this.reviewPanel() !== 'own-panel') return;
       untracked(() => void kindView(s.kind).findings().then((c) => this.panel.set(c)));
     });
   }

@@ -6,7 +6,7 @@ import { ApiError } from '../../../core/http/api-error';
 import { HistoryApi } from '../../archive/history-api';
 import { AnalysesApi } from '../../studies/api/analyses-api';
 import { SpecimensStore } from '../../studies/specimens/specimens-store';
-import { hasKindView, kindView } from '../../studies/study-kinds';
+import { hasKindView, kindView } from '../../studies/kinds';
 import { StudyStore } from '../../studies/study/study-store';
 import { SignoffApi } from '../signoff-api';
 import { analysisToShow, planApprovalOf, signOffOf } from '../signatures';

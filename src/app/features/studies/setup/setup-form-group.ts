@@ -1,4 +1,6 @@
 import { AbstractControl, FormControl, FormGroup, ValidationErrors, ValidatorFn, Validators } from '@angular/forms';
+import type { ZodType } from 'zod';
+import { kindMeta } from '../../../../../shared/kinds/kinds';
 import type { StudyKind } from '../../../../../shared/schemas';
 import { CreateStudyBody, StudySettings } from '../../../../../shared/schemas';
 import { parseDecisionLevels } from '../../admin/analytes/decision-levels';
@@ -34,8 +36,20 @@ const runOrder: ValidatorFn = (group: AbstractControl): ValidationErrors | null 
   return null;
 };
 
+/**
+ * The controls of a kind's own settings (those StudySettings lacks, such as a precision study's materials), built from
+ * the stored settings with the kind's defaults where a key is missing: a kind's view may give it (KindView.settingsControls).
+ */
+export type OwnSettingsControls = (stored: Readonly<Record<string, unknown>>) => Record<string, AbstractControl>;
+
+/** The settings group with its own settings' keys as well (their controls are the kind's). */
+export type OpenSettingsGroup = FormGroup<Record<string, AbstractControl>>;
+
+/** True for a setting every study carries (StudySettings); the others are a kind's own. */
+export const isCommonSetting = (key: string): boolean => Object.hasOwn(StudySettings.shape, key);
+
 /** The shared schema's rule, with plain words for a number left empty. */
-function settingsRule(schema: Parameters<typeof schemaRule>[0]): ValidatorFn {
+export function settingsRule(schema: ZodType): ValidatorFn {
   const rule = schemaRule(schema);
   return (control) => {
     const errors = rule(control);
@@ -51,11 +65,37 @@ function settingsControl<K extends keyof SettingsValues>(key: K, value: Settings
   return new FormControl(value, { nonNullable: true, validators }) as FormControl<SettingsValues[K]>;
 }
 
-export function buildSetupForm(values: SetupValues): SetupGroup {
+/** A control checked with a schema of one setting (the setting as the Setup form holds it). */
+export function ruleControl<T>(schema: ZodType, value: T): FormControl<T> {
+  return new FormControl(value, { nonNullable: true, validators: [settingsRule(schema)] });
+}
+
+/** A control of one of a kind's own settings, checked with the kind's own schema (its KindMeta.settings) when it names the key. */
+export function ownSettingControl(kind: string, key: string, value: unknown): FormControl<unknown> {
+  const schema = kindMeta(kind).settings?.shape[key] as ZodType | undefined;
+  return schema ? ruleControl(schema, value) : new FormControl(value, { nonNullable: true });
+}
+
+/** The controls of the kind's own settings among the values: the kind's (`own`), else one checked control per key. */
+function ownControls(values: SetupValues, own?: OwnSettingsControls): Record<string, AbstractControl> {
+  const stored = values.settings as unknown as Record<string, unknown>;
+  const controls = own?.(stored) ?? {};
+  for (const key of Object.keys(stored)) {
+    if (!isCommonSetting(key) && !controls[key]) controls[key] = ownSettingControl(values.kind, key, stored[key]);
+  }
+  return controls;
+}
+
+/**
+ * The Setup form of the values: one control per setting every study carries, checked with the shared schema, and the
+ * kind's own settings' controls (`own`, the kind view's settingsControls; or one control per own key of the values).
+ */
+export function buildSetupForm(values: SetupValues, own?: OwnSettingsControls): SetupGroup {
   const settings = {} as Controls<SettingsValues>;
   for (const key of Object.keys(values.settings) as (keyof SettingsValues)[]) {
-    (settings as Record<string, FormControl>)[key] = settingsControl(key, values.settings[key]);
+    if (isCommonSetting(key)) (settings as Record<string, FormControl>)[key] = settingsControl(key, values.settings[key]);
   }
+  Object.assign(settings, ownControls(values, own));
   return new FormGroup({
     kind: new FormControl(values.kind, { nonNullable: true }),
     title: new FormControl(values.title, { nonNullable: true, validators: [Validators.required, schemaRule(CreateStudyBody.shape.title)] }),
@@ -67,6 +107,25 @@ export function buildSetupForm(values: SetupValues): SetupGroup {
     settings: new FormGroup(settings, { validators: [runOrder] }),
     reason: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(500)] }),
   });
+}
+
+/**
+ * Puts a study's values into the form: the own settings of another kind leave, the kind's own are built afresh from the
+ * values (so a list such as the materials has as many entries as the values, with the kind's defaults for what they lack),
+ * then every control takes its value. In a read-only (disabled) form they come disabled.
+ */
+export function resetSetupForm(form: SetupGroup, values: SetupValues, own?: OwnSettingsControls): void {
+  const settings = form.controls.settings as unknown as OpenSettingsGroup;
+  for (const key of Object.keys(settings.controls)) {
+    if (!isCommonSetting(key)) settings.removeControl(key, { emitEvent: false });
+  }
+  const stored: Record<string, unknown> = { ...values.settings };
+  for (const [key, control] of Object.entries(ownControls(values, own))) {
+    stored[key] = control.value;
+    if (settings.disabled) control.disable({ emitEvent: false });
+    settings.setControl(key, control, { emitEvent: false });
+  }
+  form.reset({ ...values, settings: stored as unknown as SettingsValues });
 }
 
 /** The form's values in the model's shape (date fields left empty become null). */

@@ -20,10 +20,10 @@ import { schemaIssues } from '../../../ui/schema-rule';
 import { ActionBanner } from '../action-banner';
 import { StudiesApi } from '../api/studies-api';
 import { StudyCatalog, StudyCatalogApi } from '../api/catalog-api';
-import { SUPPORTED_KINDS, kindView } from '../study-kinds';
+import { SUPPORTED_KINDS, hasKindView, kindView } from '../kinds';
 import { STUDY_CONFLICT_TEXT, StudyStore } from '../study/study-store';
 import { INTERVAL_LABELS } from '../study-text';
-import { buildSetupForm, readSetup } from './setup-form-group';
+import { buildSetupForm, readSetup, resetSetupForm } from './setup-form-group';
 import { createBody, randomSeed, settingsFromAnalyte, setupValues, updateBody } from './setup-model';
 
 /** The choices of settings.decimalMark, in words: how a comma and a point in a result are read. */
@@ -35,7 +35,7 @@ const DECIMAL_MARK_LABELS: Record<DecimalMark, string> = {
 
 /**
  * The Setup form of a study (or of a new one when `study` is null): what is compared, the goals,
- * the analysis settings and the plan. The kind of study adds its own fields (study-kinds.ts).
+ * the analysis settings and the plan. The kind of study adds its own fields (its view in kinds/).
  */
 @Component({
   selector: 'app-setup-form',
@@ -81,7 +81,9 @@ export class SetupForm {
     effect(() => {
       const study = this.study();
       untracked(() => {
-        if (study && !this.form.dirty) this.form.reset(setupValues(study, study.settings.seed));
+        if (study && !this.form.dirty) {
+          resetSetupForm(this.form, setupValues(study, study.settings.seed), hasKindView(study.kind) ? kindView(study.kind).settingsControls : undefined);
+        }
       });
     });
     effect(() => {

@@ -1,7 +1,7 @@
 /**
  * What the shared Setup form says and shows for one kind of study: the analyte's hint, the planned number
  * and its rule of thumb, and which analysis settings the kind's engine reads (the others are not shown).
- * Each kind's view (study-kinds.ts) names its guidance; the numbers are those of the design notes' DOMAIN.md.
+ * Each kind's view (kinds/<kind>/index.ts) names its guidance; the numbers are those of the design notes' DOMAIN.md.
  */
 export interface SetupGuidance {
   analyteHint: string;
@@ -15,12 +15,3 @@ export interface SetupGuidance {
   /** A sentence under the analysis settings, or under the plan when the kind has none. */
   analysisNote: string;
 }
-
-/** Method comparison: at least 40 patient specimens across the working range (Westgard; CLSI EP09 practice). */
-export const COMPARISON_GUIDANCE: SetupGuidance = {
-  analyteHint: 'Brings its unit, decision levels and allowable bias; you may change them for this study.',
-  plannedLabel: 'Planned specimens',
-  plannedHint: 'At least 40 patient specimens across the measuring range, covering the decision levels (CLSI EP09 practice).',
-  analysis: 'regression',
-  analysisNote: '',
-};

@@ -1,8 +1,13 @@
 import type { Analyte, CreateStudyBody, Study, StudyKind, StudySettings, UpdateStudyBody } from '../../../../../shared/schemas';
 import { StudySettings as SettingsSchema } from '../../../../../shared/schemas';
+import type { KindMeta } from '../../../../../shared/kinds/kind';
+import { kindMeta } from '../../../../../shared/kinds/kinds';
 import { formatDecisionLevels, parseDecisionLevels } from '../../admin/analytes/decision-levels';
 
-/** The Setup form's settings as the fields hold them (decision levels as text, numbers possibly empty). */
+/**
+ * The Setup form's settings as the fields hold them (decision levels as text, numbers possibly empty). A study of a kind
+ * with settings of its own (KindMeta.settings) carries those beside them, under their own keys.
+ */
 export interface SettingsValues extends Omit<StudySettings, 'decisionLevels' | 'decimals' | 'resamples' | 'demingRatio'> {
   decisionLevels: string;
   decimals: number | null;
@@ -21,11 +26,12 @@ export interface SetupValues {
   settings: SettingsValues;
 }
 
-/** The instrument fields each kind uses; the others are not sent. */
-const INSTRUMENT_FIELDS: Record<StudyKind, readonly ('comparativeInstrumentId' | 'candidateInstrumentId' | 'instrumentId')[]> = {
-  'method-comparison': ['comparativeInstrumentId', 'candidateInstrumentId'],
-  'interval-establish': ['instrumentId'],
-  'interval-verify': ['instrumentId'],
+type InstrumentField = 'comparativeInstrumentId' | 'candidateInstrumentId' | 'instrumentId';
+
+/** The instrument fields a kind uses (its KindMeta says a pair or one); the others are not sent. */
+const INSTRUMENT_FIELDS: Record<KindMeta['instruments'], readonly InstrumentField[]> = {
+  pair: ['comparativeInstrumentId', 'candidateInstrumentId'],
+  one: ['instrumentId'],
 };
 
 /** A seed for a new study: 12 random hexadecimal digits, shown so the analysis can be repeated. */
@@ -67,7 +73,10 @@ export function settingsFromAnalyte(analyte: Analyte): Partial<SettingsValues> {
   };
 }
 
-/** The settings as the API takes them; empty numbers become NaN so the shared schema names the field. */
+/**
+ * The settings as the API takes them; empty numbers become NaN so the shared schema names the field. A kind's own
+ * settings (such as a precision study's materials) travel beside them as the form holds them.
+ */
 export function settingsBody(values: SettingsValues): StudySettings {
   return {
     ...values,
@@ -79,9 +88,9 @@ export function settingsBody(values: SettingsValues): StudySettings {
   };
 }
 
-function instruments(values: SetupValues): Partial<Record<'comparativeInstrumentId' | 'candidateInstrumentId' | 'instrumentId', number>> {
-  const out: Partial<Record<'comparativeInstrumentId' | 'candidateInstrumentId' | 'instrumentId', number>> = {};
-  for (const field of INSTRUMENT_FIELDS[values.kind]) if (values[field] !== null) out[field] = values[field] as number;
+function instruments(values: SetupValues): Partial<Record<InstrumentField, number>> {
+  const out: Partial<Record<InstrumentField, number>> = {};
+  for (const field of INSTRUMENT_FIELDS[kindMeta(values.kind).instruments]) if (values[field] !== null) out[field] = values[field] as number;
   return out;
 }
 

@@ -29,17 +29,22 @@ function cellValue(field: SpecimenField, text: string, mark: DecimalMark): strin
  * Writes a block copied from a spreadsheet into the rows, starting at the target cell and going right
  * and down; past the last row it adds rows. A header line is detected and skipped (see hasHeader);
  * a short (ragged) line fills only its own cells. Results are read with the study's decimal mark
- * (normaliseDecimal); one that does not read stays as pasted, to be marked. The input rows are not changed.
+ * (normaliseDecimal); one that does not read stays as pasted, to be marked. A block the layout reads in a shape of its
+ * own (SpecimenLayout.pasteRows) is written as the rows it gives, from the first column of the target row. The input
+ * rows are not changed.
  */
 export function applyPaste(
   rows: readonly GridRow[], layout: SpecimenLayout, target: PasteTarget, text: string, mark: DecimalMark = 'auto',
 ): PasteOutcome {
-  const start = Math.max(0, layout.fields.findIndex((f) => f.field === target.field));
   let lines = splitClipboard(text);
+  // A shape of the kind's own (its layout's pasteRows) becomes whole rows from the first column; its header is used up.
+  const reshaped = layout.pasteRows?.(lines) ?? null;
+  const start = reshaped ? 0 : Math.max(0, layout.fields.findIndex((f) => f.field === target.field));
   const width = Math.max(0, ...lines.map((l) => l.length));
   const resultColumns = Array.from({ length: width }, (_, k) => k).filter((k) => layout.fields[start + k]?.kind === 'result');
-  const skippedHeader = hasHeader(lines, resultColumns);
-  if (skippedHeader) lines = lines.slice(1);
+  const skippedHeader = reshaped !== null || hasHeader(lines, resultColumns);
+  if (reshaped) lines = reshaped;
+  else if (skippedHeader) lines = lines.slice(1);
   const out = [...rows];
   let added = 0;
   let ignoredCells = 0;

@@ -26,6 +26,12 @@ export interface GridRow {
 /** The columns a kind of study enters; pasting, validation and saving all follow this list. */
 export interface SpecimenLayout {
   fields: readonly SpecimenField[];
+  /**
+   * A kind's own reading of a pasted block (lines of cells, as split from the clipboard): when it recognises a shape
+   * of its own (such as one column per replicate), the rows to write instead, each in the order of `fields` from the
+   * first; null pastes the block as it stands.
+   */
+  pasteRows?(lines: string[][]): string[][] | null;
 }
 
 export const COMPARISON_LAYOUT: SpecimenLayout = {

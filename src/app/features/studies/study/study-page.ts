@@ -8,7 +8,7 @@ import { SignoffBar } from '../../review/signoff-bar/signoff-bar';
 import { PrintLayout } from '../print-layout';
 import { AnalysisStore } from '../findings/analysis-store';
 import { SpecimensStore } from '../specimens/specimens-store';
-import { hasKindView } from '../study-kinds';
+import { hasKindView } from '../kinds';
 import { FINDINGS_LABELS, kindLabel, stateLabel } from '../study-text';
 import { StudyStore } from './study-store';
 

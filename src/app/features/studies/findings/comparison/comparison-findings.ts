@@ -2,8 +2,8 @@ import { ChangeDetectionStrategy, Component, computed, effect, inject, input, si
 import type { Analysis, Study } from '../../../../../../shared/schemas';
 import { Notices } from '../../../../core/notify/notices';
 import { ErrorBanner } from '../../../../ui/error-banner';
+import { COMPARISON_LAYOUT } from '../../specimens/specimen-layout';
 import { SpecimensStore } from '../../specimens/specimens-store';
-import { kindView } from '../../study-kinds';
 import { StudyStore } from '../../study/study-store';
 import { plotPoints } from '../charts/plot-points';
 import { asComparison, unitsOf } from './comparison-result';
@@ -73,7 +73,7 @@ export class ComparisonFindings {
   constructor() {
     effect(() => {
       const study = this.study();
-      untracked(() => this.specimens.ensureLoaded(study.id, kindView(study.kind).layout));
+      untracked(() => this.specimens.ensureLoaded(study.id, COMPARISON_LAYOUT));
     });
   }
 

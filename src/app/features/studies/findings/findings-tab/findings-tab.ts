@@ -7,7 +7,7 @@ import { CAUTION } from '../../../../../../shared/stats/comparison-types';
 import { ErrorBanner } from '../../../../ui/error-banner';
 import { ActionBanner } from '../../action-banner';
 import { SpecimensStore } from '../../specimens/specimens-store';
-import { kindView } from '../../study-kinds';
+import { kindView } from '../../kinds';
 import { StudyStore } from '../../study/study-store';
 import { AnalysisStore } from '../analysis-store';
 import { failureText, runStateText } from './run-state';
@@ -49,7 +49,10 @@ export class FindingsTab {
       const study = this.study.study();
       if (!study) return;
       untracked(() => {
-        if (!this.panel()) void kindView(study.kind).findings().then((component) => this.panel.set(component));
+        const view = kindView(study.kind);
+        // The rows are read with the kind's layout before its panel opens, so a panel may take them as loaded.
+        this.specimens.ensureLoaded(study.id, view.layout);
+        if (!this.panel()) void view.findings().then((component) => this.panel.set(component));
         const id = study.latestAnalysisId;
         if (id !== null && !this.analyses.analysis() && !this.analyses.working()) this.analyses.follow(id);
       });

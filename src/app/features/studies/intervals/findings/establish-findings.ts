@@ -13,6 +13,7 @@ import { IntervalPlots } from './interval-plots';
 import { asEstablish, intervalStepWords } from './interval-result';
 import { METHOD_WORDS } from './interval-wording';
 import { LimitsTable } from './limits-table';
+import { INTERVAL_LAYOUT } from '../interval-layout';
 import { savedRows } from './saved-rows';
 import { PartitionPanel } from './partition-panel';
 
@@ -55,7 +56,7 @@ export class EstablishFindings {
   readonly analysis = input.required<Analysis>();
   readonly results = input.required<unknown>();
 
-  private readonly rows = savedRows(this.study, this.analysis);
+  private readonly rows = savedRows(this.study, this.analysis, INTERVAL_LAYOUT);
   protected readonly specimens = this.rows.store;
   /** The analysed rows are the saved rows while the findings are current and nothing on screen is unsaved. */
   protected readonly current = this.rows.current;

@@ -7,6 +7,7 @@ import { formatP } from '../../findings/comparison/number-format';
 import { analysedValues, stripData } from './interval-charts';
 import { valueFormat } from './interval-format';
 import { asVerify } from './interval-result';
+import { INTERVAL_LAYOUT } from '../interval-layout';
 import { savedRows } from './saved-rows';
 import { acceptanceWords, outsideWords, powerWords } from './interval-wording';
 
@@ -58,7 +59,7 @@ export class VerifyFindings {
   readonly analysis = input.required<Analysis>();
   readonly results = input.required<unknown>();
 
-  private readonly rows = savedRows(this.study, this.analysis);
+  private readonly rows = savedRows(this.study, this.analysis, INTERVAL_LAYOUT);
   protected readonly result = computed(() => asVerify(this.results()));
   /** Measured values and stated limits are written as reported: the study's decimals, none added. */
   private readonly format = computed(() => valueFormat(this.study(), 0));

@@ -5,7 +5,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { ErrorBanner } from '../../../../ui/error-banner';
-import { kindView } from '../../study-kinds';
+import { kindView } from '../../kinds';
 import { StudyStore } from '../../study/study-store';
 import type { PasteOutcome } from '../apply-paste';
 import { allProblems } from '../row-validation';

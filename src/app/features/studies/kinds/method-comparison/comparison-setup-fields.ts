@@ -9,13 +9,13 @@ import { DayDates } from '../../../../ui/day-dates';
 import { FieldErrorPipe } from '../../../../ui/field-error';
 import type { StudyCatalog } from '../../api/catalog-api';
 import { DIFFERENCE_LABELS, REGRESSION_LABELS, usesDemingRatio } from '../../study-text';
-import type { SetupGroup } from '../setup-form-group';
+import type { SetupGroup } from '../../setup/setup-form-group';
 
 /** The Setup fields of a method comparison: the two methods, the goals, and the difference and regression. */
 @Component({
   selector: 'app-comparison-setup-fields',
   templateUrl: './comparison-setup-fields.html',
-  styleUrl: '../setup-form.scss',
+  styleUrl: '../../setup/setup-form.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatSelectModule, FieldErrorPipe, DayDates],
 })
