@@ -129,16 +129,20 @@ describe('the report of a precision verification', () => {
     expect(text).toContain('Kind of study Precision verification (days × replicates)');
   });
 
-  it('leads page 1 with each material judged in words against its claim and UVL, then the counts, the caution, the sign-off and the plan', () => {
+  it('leads page 1 with the overall verdict and each material judged in the findings’ sentences, then the counts, the caution, the sign-off and the plan', () => {
     const page1 = flat(pages[0]);
-    const level1 = `${LEVEL_1}: repeatability verified (SD ${f(one.repeatability.sd, 3)} mmol/L, at or below the claim of 0.040 mmol/L; UVL ${f(one.uvl.repeatability, 3)} mmol/L); ` +
-      `within-laboratory verified (SD ${f(one.withinLab.sd, 3)} mmol/L, at or below the claim of 0.050 mmol/L; UVL ${f(one.uvl.withinLab, 3)} mmol/L). ` +
-      `Trueness verified: the mean ${f(one.mean, 3)} mmol/L lies within the verification interval ${f(one.trueness!.interval.lower, 3)} to ${f(one.trueness!.interval.upper, 3)} mmol/L of the assigned value 3.50 mmol/L.`;
-    const level2 = `${LEVEL_2}: repeatability verified (CV ${f(two.repeatability.cv, 1)}%, at or below the claim of 1.0%; UVL ${f(two.uvl.repeatability, 1)}%); ` +
-      `within-laboratory consistent with the claim (CV ${f(two.withinLab.cv, 1)}%, above the claim of 1.2% but not above the UVL of ${f(two.uvl.withinLab, 1)}%).`;
+    const t = one.trueness!;
+    // The sentences of the Findings panel (shared/kinds/precision/words.ts), written out here.
+    const overall = '4 claims over 2 materials: 3 verified, 1 consistent with the claim, 0 not verified. Trueness verified for 1 of 1 material with an assigned value.';
+    const level1 = `${LEVEL_1} — Repeatability verified: SD ${f(one.repeatability.sd, 3)} mmol/L is within the claim 0.040 mmol/L. ` +
+      `Within-laboratory precision verified: SD ${f(one.withinLab.sd, 3)} mmol/L is within the claim 0.050 mmol/L. ` +
+      `Trueness verified: the mean ${f(one.mean, 3)} mmol/L lies within the verification interval ${f(t.interval.lower, 3)} to ${f(t.interval.upper, 3)} mmol/L ` +
+      `around the assigned value 3.50 mmol/L (bias ${f(t.bias, 3)} mmol/L, ${f(t.biasPercent, 1)}%).`;
+    const level2 = `${LEVEL_2} — Repeatability verified: CV ${f(two.repeatability.cv, 1)}% is within the claim 1.0%. ` +
+      `Within-laboratory precision consistent with the claim: CV ${f(two.withinLab.cv, 1)}% exceeds the claim 1.2% but not the upper verification limit ${f(two.uvl.withinLab, 1)}% (α = 0.05, 2 materials).`;
     const order = [
-      `CONCLUSION ${level1} ${level2} UVL: the upper verification limit, the largest estimate still consistent with the claim (α = 0.05, shared by 2 materials).`,
-      'Results 50 used of 51 entered; 1 excluded',
+      `CONCLUSION ${overall} ${level1} ${level2} Results`,
+      'Results 50 used of 51 entered; 1 excluded Caution',
       `Caution ${CAUTION}`,
       'Sign-off Signed by Dr. Imani Okafor',
     ];
@@ -162,7 +166,7 @@ describe('the report of a precision verification', () => {
     expect(plan).toContain('u: the standard uncertainty of the assigned value.');
     expect(plan).toContain('Control insert, lot');
     expect(plan).toContain('KC-2611 (manufacturer’s mean)');
-    expect(plan).toContain('K control level 2 CV, % 1.0% 1.2% None —');
+    expect(plan).toContain('K control level 2 CV, % 1.0 1.2 None —');
     // Cells are broken at spaces only: no unit is split at its slash anywhere in the report.
     expect(text).not.toContain('mmol/ L');
   });
@@ -171,28 +175,46 @@ describe('the report of a precision verification', () => {
     const section = (m: PrecisionMaterialResult): string => text.slice(text.indexOf(`Material: ${m.name}`));
     expect(section(one)).toContain(`Repeatability ${f(one.repeatability.sd, 3)} ${f(one.repeatability.cv, 1)} 20 ${f(one.repeatability.ci.lower, 3)} to ${f(one.repeatability.ci.upper, 3)} 0.040 ${f(one.uvl.repeatability, 3)} Verified`);
     expect(section(one)).toContain(`Between-day ${f(one.betweenDay.sd, 3)} ${f(one.betweenDay.cv, 1)} — — — — No claim`);
-    expect(section(two)).toContain(`Within-laboratory ${f(two.withinLab.sd, 3)} ${f(two.withinLab.cv, 1)} ${f(two.withinLab.df, 1)} ${f(two.withinLab.ci.lower, 3)} to ${f(two.withinLab.ci.upper, 3)} 1.2% ${f(two.uvl.withinLab, 1)}% Consistent with the claim`);
-    expect(section(one)).toContain('The claims were given as SDs, in mmol/L');
-    expect(section(two)).toContain('The claims were given as CVs, in %');
+    // "Within-laboratory precision" and "Consistent with the claim" each take two lines of their cells.
+    expect(section(two)).toContain(`Within-laboratory ${f(two.withinLab.sd, 3)} ${f(two.withinLab.cv, 1)} ${f(two.withinLab.df, 1)} ${f(two.withinLab.ci.lower, 3)} to ${f(two.withinLab.ci.upper, 3)} 1.2 ${f(two.uvl.withinLab, 1)} Consistent with the precision claim`);
+    const note = (terms: string, as: string): string => `The claims are ${terms}, so each estimate is judged as ${as}. Verified: within the claim. ` +
+      'Consistent with the claim: above the claim but within its upper verification limit (UVL), the most a laboratory whose true precision equals the claim would see by chance. ' +
+      'Not verified: above that limit. Between-day precision has no claim of its own: it is part of the within-laboratory precision.';
+    expect(section(one)).toContain(note('SDs in mmol/L', 'an SD'));
+    expect(section(two)).toContain(note('CVs in %', 'a CV'));
     // Level 1's days differ less than its replicates: the between-day SD is 0 and said so.
     expect(one.betweenDay.sd).toBe(0);
     expect(section(one)).toContain('so the between-day SD is set to 0 and the within-laboratory SD equals the repeatability SD');
     expect(section(two)).not.toContain('so the between-day SD is set to 0');
-    expect(text).toContain('Component SD (mmol/L) CV (%) df 95% CI of the SD Claim UVL Verdict');
-    expect(text).toContain(`Results 25 results over 5 days; mean ${f(two.mean, 3)} mmol/L`);
+    // The headings wrap in their columns: "95% CI of the SD (mmol/L)", "Claim (SD, mmol/L)", "UVL (SD, mmol/L)".
+    expect(section(one)).toContain('Component SD (mmol/L) CV (%) df 95% CI of the SD Claim (SD, UVL (SD, Verdict (mmol/L) mmol/L) mmol/L)');
+    expect(section(two)).toContain('Component SD (mmol/L) CV (%) df 95% CI of the SD Claim (CV, UVL (CV, Verdict (mmol/L) %) %)');
+    expect(text).toContain(`Results 25 results over 5 days; grand mean ${f(two.mean, 3)} mmol/L.`);
   });
 
   it('prints trueness where a value is assigned, the notes, a picture per material and the warnings', () => {
     const t = one.trueness!;
     expect(text).toContain('Trueness against the assigned value');
-    expect(text).toContain(`Bias (mean − assigned value) ${f(t.bias, 3)} mmol/L (${f(t.biasPercent, 1)}% of the assigned value)`);
-    expect(text).toContain(`Verification interval ${f(t.interval.lower, 3)} to ${f(t.interval.upper, 3)} mmol/L`);
+    expect(text).toContain('Assigned value 3.50 mmol/L Standard uncertainty of the assigned value 0.02 mmol/L Source of the assigned value Control insert, lot KC-2611 (manufacturer’s mean)');
+    expect(text).toContain(`Grand mean of the results ${f(one.mean, 3)} mmol/L Bias (mean − assigned value) ${f(t.bias, 3)} mmol/L (${f(t.biasPercent, 1)}%)`);
+    expect(text).toContain(`Standard error of the grand mean ${f(t.se, 3)} mmol/L (${t.seDf} df) Degrees of freedom of the interval ${Math.round(t.df)}`);
+    // The interval's label takes two lines beside its value.
+    expect(text).toContain(`Verification interval, assigned value ± t·√(SE² + ${f(t.interval.lower, 3)} to ${f(t.interval.upper, 3)} mmol/L u²) (α = 0.05, 2 materials)`);
+    expect(text).toContain(`Verdict Trueness verified: the mean ${f(one.mean, 3)} mmol/L lies within the verification interval`);
     expect(text.split('Trueness against the assigned value').length - 1).toBe(1);
     for (const m of [LEVEL_1, LEVEL_2]) expect(text).toContain(`${m}: results by day around the grand mean`);
     expect(text).toContain("result day's mean grand mean ±2 within-laboratory SDs");
     for (const day of DAYS) expect(text).toContain(day);
     expect(text).toContain('No replicate was flagged by the outlier rule.');
     expect(text).toMatch(/Warnings None\./);
+  });
+
+  it('prints the design of the analysis as the Findings panel lists it', () => {
+    expect(text).toContain(
+      `Design of the analysis Materials tested (ℓ) 2 Results analysed (N) 50 (${LEVEL_1}: 25; ${LEVEL_2}: 25) Days with results ${LEVEL_1}: 5; ${LEVEL_2}: 5 ` +
+      'Excluded with a reason 1 Significance level α 0.05, shared among 2 materials (α/ℓ = 0.025 for each upper verification limit) ' +
+      `CIs of the SDs 95%, two-sided, from the χ² distribution Engine version ${resultsOf(report).engine.version}`,
+    );
   });
 
   it('lists the exclusion with its reason and every row as typed, with material, day and replicate', () => {
@@ -246,10 +268,15 @@ describe('a precision report in other states', () => {
     expect(m.outliers).toHaveLength(1);
     const o = m.outliers[0];
     const text = flat(pdfPages(await renderStudyReport(report)));
-    expect(text).toContain(`Flagged replicate (kept in the analysis unless excluded with a reason) Row Day Replicate Result Why ${o.position} ${o.day} ${o.replicate} ${f(o.value, 2)} ${o.why}`);
+    expect(text).toContain(`Flagged replicate (kept in the analysis unless excluded with a reason) Row Day Replicate Result (mmol/L) Why ${o.position} ${o.day} ${o.replicate} ${f(o.value, 2)} ${o.why}`);
     expect(text).toContain(`${o.position} ${LEVEL_1} ${o.day} ${o.replicate} ${f(o.value, 2)} Flagged by the outlier rule`);
     expect(text).toContain('flagged by the outlier rule');
-    expect(text).toContain('UVL: the upper verification limit, the largest estimate still consistent with the claim (α = 0.05).');
+    // The outlier makes both SDs exceed their limits: said first, with α for the one material.
+    expect(m.verdicts).toEqual({ repeatability: 'not-verified', withinLab: 'not-verified' });
+    expect(text).toContain(
+      'CONCLUSION 2 claims over 1 material: 0 verified, 0 consistent with the claim, 2 not verified. Trueness verified for 1 of 1 material with an assigned value. ' +
+      `${LEVEL_1} — Repeatability not verified: SD ${f(m.repeatability.sd, 3)} mmol/L exceeds the upper verification limit ${f(m.uvl.repeatability, 3)} mmol/L of the claim 0.040 mmol/L (α = 0.05, 1 material).`,
+    );
     await expectLaidOut(report);
   });
 
@@ -262,8 +289,8 @@ describe('a precision report in other states', () => {
     const text = flat(pdfPages(await renderStudyReport(report)));
     expect(text).toContain(`•  ${two.notes[0]}`.replace(/\s+/g, ' '));
     expect(text).toContain('unbalanced, effective day size n0 = ');
-    expect(text).toContain('K control level 2 CV, % 1.05% 1.25%');
-    expect(text).toContain('at or below the claim of 1.05%');
+    expect(text).toContain('K control level 2 CV, % 1.05 1.25');
+    expect(text).toContain(`Repeatability verified: CV ${f(two.repeatability.cv, 2)}% is within the claim 1.05%.`);
   });
 });
 
@@ -290,7 +317,7 @@ describe('the Results sheet of a precision verification', () => {
       section: at1, name: 'Repeatability SD',
       cells: { value: one.repeatability.sd, ciLow: one.repeatability.ci.lower, ciHigh: one.repeatability.ci.upper, df: 20, claim: 0.04, uvl: one.uvl.repeatability, unit: 'mmol/L' },
       formats: { value: '0.000', ciLow: '0.000', ciHigh: '0.000', df: '0', claim: '0.000', uvl: '0.000' },
-      words: `Repeatability verified (SD ${f(one.repeatability.sd, 3)} mmol/L, at or below the claim of 0.040 mmol/L; UVL ${f(one.uvl.repeatability, 3)} mmol/L)`,
+      words: `Repeatability verified: SD ${f(one.repeatability.sd, 3)} mmol/L is within the claim 0.040 mmol/L.`,
     });
     expect(line(at1, 'Repeatability CV').cells.claim).toBeNull();
     expect(line(at1, 'Between-day SD').cells).toMatchObject({ value: one.betweenDay.sd, ciLow: null, df: null, claim: null });
@@ -301,7 +328,7 @@ describe('the Results sheet of a precision verification', () => {
       df: two.withinLab.df, claim: 1.2, uvl: two.uvl.withinLab, unit: '%',
     });
     expect(cv.formats).toMatchObject({ value: '0.0', df: '0.0' });
-    expect(cv.words).toBe(`Within-laboratory consistent with the claim (CV ${f(two.withinLab.cv, 1)}%, above the claim of 1.2% but not above the UVL of ${f(two.uvl.withinLab, 1)}%)`);
+    expect(cv.words).toBe(`Within-laboratory precision consistent with the claim: CV ${f(two.withinLab.cv, 1)}% exceeds the claim 1.2% but not the upper verification limit ${f(two.uvl.withinLab, 1)}% (α = 0.05, 2 materials).`);
     expect(line(at2, 'Within-laboratory SD').words).toBe('The claim is given as a CV');
   });
 
@@ -311,9 +338,12 @@ describe('the Results sheet of a precision verification', () => {
     expect(line(at1, 'Assigned value')).toMatchObject({ cells: { value: 3.5, unit: 'mmol/L' }, words: 'source: Control insert, lot KC-2611 (manufacturer’s mean)' });
     expect(line(at1, 'Bias (mean − assigned value)').cells).toEqual({ value: t.bias, unit: 'mmol/L' });
     expect(line(at1, 'Verification interval').cells).toEqual({ ciLow: t.interval.lower, ciHigh: t.interval.upper, df: t.df, unit: 'mmol/L' });
-    expect(line(at1, 'Trueness').words).toMatch(/^Trueness verified: the mean \d\.\d{3} mmol\/L lies within the verification interval/);
+    expect(line(at1, 'Trueness').words).toBe(
+      `Trueness verified: the mean ${f(one.mean, 3)} mmol/L lies within the verification interval ${f(t.interval.lower, 3)} to ${f(t.interval.upper, 3)} mmol/L ` +
+      `around the assigned value 3.50 mmol/L (bias ${f(t.bias, 3)} mmol/L, ${f(t.biasPercent, 1)}%).`,
+    );
     expect(lines.some((l) => l.section === `Material: ${LEVEL_2}` && l.name === 'Trueness')).toBe(false);
-    expect(line('Precision verification', 'Significance level α')).toMatchObject({ cells: { value: 0.05 }, words: 'shared by 2 materials: each upper verification limit at α/2' });
+    expect(line('Precision verification', 'Significance level α')).toMatchObject({ cells: { value: 0.05 }, words: 'shared among 2 materials (α/ℓ = 0.025 for each upper verification limit)' });
     expect(line('Precision verification', 'Results excluded').cells).toEqual({ value: 1 });
   });
 

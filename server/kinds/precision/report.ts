@@ -1,9 +1,11 @@
 import { PrecisionSettings, type PrecisionMaterial } from '../../../shared/kinds/precision/meta';
-import { decimalsOf as decimalsOfValue } from '../../../shared/stats/precision';
-import type { PrecisionComponent, PrecisionMaterialResult, PrecisionResult, PrecisionVerdict } from '../../../shared/stats/precision-types';
-import { findingsDecimals, levelLabel, PERCENT_DECIMALS } from '../../../shared/types/findings-numbers';
+import {
+  alphaText, claimText, componentHeadings, componentRows, designRows, dfText, flaggedRows, givenText, materialSummary, overallSentence,
+  precisionFormat, resultHeading, termsNote, truenessRows, truenessSentence, verdictLines, type PrecisionFormat,
+} from '../../../shared/kinds/precision/words';
+import type { PrecisionMaterialResult, PrecisionResult, PrecisionVerdict } from '../../../shared/stats/precision-types';
 import { nounFor, plural } from '../../../shared/types/plural';
-import { integer, NOT_AVAILABLE, num, orDash, range, withUnit } from '../../reports/format';
+import { integer, NOT_AVAILABLE, num, orDash } from '../../reports/format';
 import type { Layout } from '../../reports/layout';
 import { plotRow } from '../../reports/plots/plot-box';
 import type { ReportRow, StudyReport } from '../../reports/report-model';
@@ -19,123 +21,19 @@ import { COLOR, SIZE } from '../../reports/theme';
 import { dayPlot } from './day-plot';
 
 /*
- * The words and numbers of a precision verification, as the PDF and the Results sheet (results-sheet.ts) say
- * them. SDs are printed with one decimal more than the results (the findings' `stat` decimals), CVs with one.
+ * The layout of a precision verification's PDF. Its words and numbers (verdicts, sentences, table cells,
+ * decimals) come from shared/kinds/precision/words.ts, as the Findings panel's and the Results sheet's do.
  */
-
-/** A verdict in the words of a sentence. */
-export const PRECISION_VERDICT_WORDS: Record<PrecisionVerdict, string> = {
-  verified: 'verified',
-  consistent: 'consistent with the claim',
-  'not-verified': 'not verified',
-};
-
-/** The components in words, as sentences name them. */
-export const COMPONENT_WORDS = { repeatability: 'repeatability', withinLab: 'within-laboratory', betweenDay: 'between-day' } as const;
-
-const capital = (text: string): string => text.charAt(0).toUpperCase() + text.slice(1);
-
-/** A verdict as a table cell or the sheet's first word: "Verified", "Consistent with the claim", "Not verified". */
-export const verdictLabel = (verdict: PrecisionVerdict | null | undefined): string => (verdict ? capital(PRECISION_VERDICT_WORDS[verdict]) : NOT_AVAILABLE);
 
 const finite = (v: number | null | undefined): v is number => typeof v === 'number' && Number.isFinite(v);
 
-/** α as given: 0.05, 0.1, 0.0125. */
-export const alphaText = (alpha: number | null | undefined): string => (finite(alpha) ? String(Number(alpha.toPrecision(6))) : NOT_AVAILABLE);
+/** How this report writes its numbers: the analyte's unit and the study's decimals. */
+const formatOf = (report: StudyReport): PrecisionFormat => precisionFormat(report.analyte.unit, report.settings.decimals);
 
-/** The decimals of each kind of number of a precision study with the results' `decimals`. */
-export function precisionDecimals(decimals: number | null | undefined): { value: number; sd: number; cv: number } {
-  const d = findingsDecimals(decimals);
-  return { value: d.value, sd: d.stat, cv: PERCENT_DECIMALS };
+/** A material's line of the conclusion: its name, then its verdicts in the findings' sentences. */
+function materialConclusion(m: PrecisionMaterialResult, results: PrecisionResult, f: PrecisionFormat): string {
+  return `${m.name} — ${verdictLines(m, results, f).map((v) => v.text).join(' ')}`;
 }
-
-/** The decimals of a number as typed (a claim, an assigned value, its uncertainty), never fewer than `base` and at most 4 more. */
-export const givenDecimals = (value: number | null | undefined, base: number): number => (finite(value) ? Math.max(base, Math.min(decimalsOfValue(value), base + 4)) : base);
-
-/**
- * The decimals that print an estimate and the limits it is judged against (claim, UVL) so that two different
- * numbers never print alike: the usual decimals, one or two more where rounding would make an SD above its
- * claim read as equal to it. A claim typed with more decimals than the usual keeps them (givenDecimals).
- */
-export function judgedDecimals(base: number, estimate: number | null | undefined, claim: number | null | undefined, uvl: number | null | undefined): number {
-  let d = givenDecimals(claim, base);
-  const clash = (): boolean => finite(estimate) && [claim, uvl].some((l) => finite(l) && l !== estimate && num(l, d) === num(estimate, d));
-  while (clash() && d < base + 2) d++;
-  return d;
-}
-
-/** A number in the terms of a claim: an SD with its unit, or a CV in %. */
-export function inTerms(value: number | null | undefined, as: 'sd' | 'cv', decimals: number, unit: string): string {
-  return as === 'cv' ? (finite(value) ? `${num(value, decimals)}%` : NOT_AVAILABLE) : withUnit(num(value, decimals), unit);
-}
-
-/** One judged component of a material: the estimate in the claim's terms, the claim, the UVL and the verdict, with their decimals. */
-export interface JudgedComponent {
-  which: 'repeatability' | 'withinLab';
-  as: 'sd' | 'cv';
-  estimate: number | null;
-  claim: number | null;
-  uvl: number | null;
-  verdict: PrecisionVerdict | null;
-  decimals: number;
-}
-
-export function judged(m: PrecisionMaterialResult, which: 'repeatability' | 'withinLab', unitDecimals: number | null | undefined): JudgedComponent {
-  const as = m.claims?.as === 'cv' ? 'cv' : 'sd';
-  const component = m[which] as PrecisionComponent | undefined;
-  const estimate = (as === 'cv' ? component?.cv : component?.sd) ?? null;
-  const claim = m.claims?.[which] ?? null;
-  const uvl = m.uvl?.[which] ?? null;
-  const base = as === 'cv' ? precisionDecimals(unitDecimals).cv : precisionDecimals(unitDecimals).sd;
-  return { which, as, estimate, claim, uvl, verdict: m.verdicts?.[which] ?? null, decimals: judgedDecimals(base, estimate, claim, uvl) };
-}
-
-/**
- * One component judged in words: "repeatability verified (SD 0.04 mmol/L, at or below the claim of
- * 0.05 mmol/L; UVL 0.07 mmol/L)"; "within-laboratory consistent with the claim (CV 2.9%, above the claim of
- * 2.5% but not above the UVL of 3.2%)"; "… not verified (SD …, above the UVL of …; claim …)".
- */
-export function componentSentence(c: JudgedComponent, unit: string): string {
-  const name = COMPONENT_WORDS[c.which];
-  const estimate = `${c.as === 'cv' ? 'CV' : 'SD'} ${inTerms(c.estimate, c.as, c.decimals, unit)}`;
-  const claim = inTerms(c.claim, c.as, c.decimals, unit);
-  const uvl = inTerms(c.uvl, c.as, c.decimals, unit);
-  if (c.verdict === 'verified') return `${name} verified (${estimate}, at or below the claim of ${claim}; UVL ${uvl})`;
-  if (c.verdict === 'consistent') return `${name} consistent with the claim (${estimate}, above the claim of ${claim} but not above the UVL of ${uvl})`;
-  if (c.verdict === 'not-verified') return `${name} not verified (${estimate}, above the UVL of ${uvl}; claim ${claim})`;
-  return `${name}: no verdict (${estimate}; claim ${claim})`;
-}
-
-/** Trueness in words: "trueness verified: the mean 4.03 mmol/L lies within the verification interval 3.95 to 4.09 mmol/L of the assigned value 4.02 mmol/L". */
-export function truenessSentence(m: PrecisionMaterialResult, unit: string, unitDecimals: number | null | undefined): string | null {
-  const t = m.trueness;
-  if (!t) return null;
-  const d = precisionDecimals(unitDecimals).sd;
-  const assigned = withUnit(num(t.assigned, givenDecimals(t.assigned, precisionDecimals(unitDecimals).value)), unit);
-  const interval = withUnit(range([t.interval.lower, t.interval.upper], d), unit);
-  const where = t.verdict === 'verified' ? 'within' : 'outside';
-  return `trueness ${t.verdict === 'verified' ? 'verified' : 'not verified'}: the mean ${withUnit(num(m.mean, d), unit)} lies ${where} the verification interval ${interval} of the assigned value ${assigned}`;
-}
-
-/** A material's findings in one or two sentences, for the conclusion. */
-export function materialConclusion(m: PrecisionMaterialResult, unit: string, unitDecimals: number | null | undefined): string {
-  const parts = [componentSentence(judged(m, 'repeatability', unitDecimals), unit), componentSentence(judged(m, 'withinLab', unitDecimals), unit)];
-  const trueness = truenessSentence(m, unit, unitDecimals);
-  return `${m.name}: ${parts.join('; ')}.${trueness ? ` ${capital(trueness)}.` : ''}`;
-}
-
-/** The key to the conclusion's abbreviation: "UVL: the upper verification limit, … (α = 0.05, shared by 2 materials)." */
-export function uvlKey(results: Pick<PrecisionResult, 'alpha' | 'materialsTested'>): string {
-  const l = results.materialsTested ?? 1;
-  const shared = l > 1 ? `, shared by ${l} materials` : '';
-  return `UVL: the upper verification limit, the largest estimate still consistent with the claim (α = ${alphaText(results.alpha)}${shared}).`;
-}
-
-/** Degrees of freedom: whole numbers as they are, Satterthwaite's with one decimal (from 100 on, whole). */
-export const dfText = (df: number | null | undefined): string => (finite(df) ? (Number.isInteger(df) || df >= 100 ? integer(df) : num(df, 1)) : NOT_AVAILABLE);
-
-/** The CI level of an SD at the results' α. */
-export const ciLevel = (results: { alpha?: number | null } | null | undefined): number => (finite(results?.alpha) ? 1 - results.alpha : 0.95);
 
 /** The table's cell padding (reports/table.ts). */
 const CELL_PAD = { x: 4, y: 2.5 };
@@ -184,10 +82,8 @@ export function precisionReport(layout: Layout, report: StudyReport, results: Pr
     return;
   }
   const materials = results.materials ?? [];
-  const unit = report.analyte.unit;
-  const decimals = report.settings.decimals;
-  const lines = materials.map((m) => materialConclusion(m, unit, decimals));
-  layout.conclusion('Conclusion', lines.length ? `${lines.join('\n')}\n${uvlKey(results)}` : 'No material could be analysed; see the warnings.');
+  const f = formatOf(report);
+  layout.conclusion('Conclusion', [overallSentence(results), ...materials.map((m) => materialConclusion(m, results, f))].join('\n'));
   layout.keyValues([['Results', resultCounts(report, results)]], 60);
   cautionCallout(layout);
   signatureBlock(layout, report);
@@ -195,6 +91,9 @@ export function precisionReport(layout: Layout, report: StudyReport, results: Pr
   amendments(layout, report);
   for (const m of materials) materialSection(layout, report, results, m);
   warningsList(layout, results.warnings);
+  const design = designRows(results);
+  layout.subheading('Design of the analysis', layout.keyValuesHeight(design, 150, 3));
+  layout.keyValues(design);
   studyBlock(layout, report);
   precisionExclusions(layout, report);
   const flagged = new Set(materials.flatMap((m) => (m.outliers ?? []).map((o) => o.position)).filter(finite));
@@ -214,14 +113,6 @@ function ownSettings(report: StudyReport): PrecisionSettings {
   // Without materials (a study not yet set up) the rest of the plan still reads as stored.
   const rest = PrecisionSettings.safeParse({ ...report.settings, materials: undefined });
   return rest.success ? rest.data : { materials: [], days: 5, replicates: 5, alpha: 0.05, controlLot: '' };
-}
-
-
-/** "0.040" (an SD, its unit in the table's "Claims as" column) or "2.5%": a claim as given, never rounded below the decimals it was typed with. */
-function claimText(value: number, as: 'sd' | 'cv', report: StudyReport): string {
-  const d = precisionDecimals(report.settings.decimals);
-  const base = as === 'cv' ? d.cv : d.sd;
-  return inTerms(value, as, givenDecimals(value, base), '');
 }
 
 /** The plan of a precision study: materials with their claims and assigned values, the design, α and the rules. */
@@ -246,13 +137,13 @@ export function precisionPlan(layout: Layout, report: StudyReport): void {
   if (own.materials.length) claimsTable(layout, report, own.materials);
 }
 
+/** The claims as given (in the terms the "Claims as" column names, never rounded below their typed decimals) and the assigned values. */
 function claimsTable(layout: Layout, report: StudyReport, materials: PrecisionMaterial[]): void {
   const unit = report.analyte.unit;
-  const valueDecimals = precisionDecimals(report.settings.decimals).value;
-  const given = (v: number): string => withUnit(num(v, givenDecimals(v, valueDecimals)), unit);
+  const f = formatOf(report);
   const assigned = (m: PrecisionMaterial): string => {
     if (m.assignedValue === null) return 'None';
-    return `${given(m.assignedValue)}${m.assignedUncertainty !== null ? ` (u = ${given(m.assignedUncertainty)})` : ''}`;
+    return `${givenText(m.assignedValue, f)}${m.assignedUncertainty !== null ? ` (u = ${givenText(m.assignedUncertainty, f)})` : ''}`;
   };
   const columns: Column[] = [
     { header: 'Material', weight: 1.3 }, { header: 'Claims as', weight: 0.9 },
@@ -261,7 +152,7 @@ function claimsTable(layout: Layout, report: StudyReport, materials: PrecisionMa
   ];
   const rows = materials.map((m) => [
     m.name, m.claimAs === 'cv' ? 'CV, %' : `SD${unit ? `, ${unit}` : ''}`,
-    claimText(m.claimRepeatability, m.claimAs, report), claimText(m.claimWithinLab, m.claimAs, report),
+    claimText(m.claimRepeatability, m.claimAs, f), claimText(m.claimWithinLab, m.claimAs, f),
     assigned(m), m.assignedValue === null ? NOT_AVAILABLE : orDash(m.assignedSource),
   ]);
   layout.subheading('Materials, claims and assigned values', tableStart(layout, columns, rows));
@@ -272,46 +163,28 @@ function claimsTable(layout: Layout, report: StudyReport, materials: PrecisionMa
 /** One material: the counts, the components against the claims, trueness, flags, notes and the picture. */
 function materialSection(layout: Layout, report: StudyReport, results: PrecisionResult, m: PrecisionMaterialResult): void {
   const unit = report.analyte.unit;
-  const d = precisionDecimals(report.settings.decimals);
-  const ciHeader = `${levelLabel(ciLevel(results))} CI of the SD`;
+  const f = formatOf(report);
   const a = m.anova;
   const counts: [string, string][] = [
-    ['Results', `${plural(m.n ?? 0, 'result')} over ${plural(m.days ?? 0, 'day')}; mean ${withUnit(num(m.mean, d.sd), unit)}`],
+    ['Results', materialSummary(m, f)],
     ['Analysis of variance by day', a
-      ? `mean square between days ${num(a.msBetween, 2 * d.sd)} (${dfText(a.dfBetween)} df), within days ${num(a.msWithin, 2 * d.sd)} (${dfText(a.dfWithin)} df); ${a.balanced ? 'balanced' : `unbalanced, effective day size n0 = ${num(a.n0, 2)}`}`
+      ? `mean square between days ${num(a.msBetween, 2 * f.stat)} (${dfText(a.dfBetween)} df), within days ${num(a.msWithin, 2 * f.stat)} (${dfText(a.dfWithin)} df); ${a.balanced ? 'balanced' : `unbalanced, effective day size n0 = ${num(a.n0, 2)}`}`
       : NOT_AVAILABLE],
   ];
   layout.heading(`Material: ${m.name}`, layout.keyValuesHeight(counts, 150) + 70);
   layout.keyValues(counts);
-  const row = (label: string, component: { sd: number; cv: number; df?: number; ci?: { lower: number; upper: number } } | undefined, j: JudgedComponent | null): string[] => {
-    const sdDecimals = j?.as === 'sd' ? j.decimals : d.sd;
-    const cvDecimals = j?.as === 'cv' ? j.decimals : d.cv;
-    return [
-      label, num(component?.sd, sdDecimals), num(component?.cv, cvDecimals), dfText(component?.df),
-      component?.ci ? range([component.ci.lower, component.ci.upper], sdDecimals) : NOT_AVAILABLE,
-      j ? inTerms(j.claim, j.as, j.decimals, '') : NOT_AVAILABLE, j ? inTerms(j.uvl, j.as, j.decimals, '') : NOT_AVAILABLE,
-      j ? verdictLabel(j.verdict) : 'No claim',
-    ];
-  };
-  const repeatability = judged(m, 'repeatability', report.settings.decimals);
-  const withinLab = judged(m, 'withinLab', report.settings.decimals);
-  const verdicts = [repeatability.verdict, null, withinLab.verdict];
+  // The table's cells and headings are the Findings panel's; the narrow UVL column takes the short heading the terms note spells out.
+  const rows = componentRows(m, f);
+  const h = componentHeadings(m, f, results.alpha);
   table(layout, [
-    { header: 'Component', weight: 1.25 }, { header: `SD${unit ? ` (${unit})` : ''}`, weight: 1, align: 'right' },
-    { header: 'CV (%)', weight: 0.6, align: 'right' }, { header: 'df', weight: 0.5, align: 'right' },
-    { header: ciHeader, weight: 1.3, align: 'right' }, { header: 'Claim', weight: 0.8, align: 'right' },
-    { header: 'UVL', weight: 0.8, align: 'right' }, { header: 'Verdict', weight: 1.35 },
-  ], [
-    row('Repeatability', m.repeatability, repeatability),
-    row('Between-day', m.betweenDay, null),
-    row('Within-laboratory', m.withinLab, withinLab),
-  ], { color: (r, c) => (c === 7 && verdicts[r] ? VERDICT_COLOR[verdicts[r]!] : undefined) });
-  const terms = m.claims?.as === 'cv' ? 'CVs, in %' : `SDs${unit ? `, in ${unit}` : ''}`;
-  const clipped = a && !(a.msBetween > a.msWithin)
-    ? ' The days differ less than the replicates within them (mean square between days not above that within), so the between-day SD is set to 0 and the within-laboratory SD equals the repeatability SD.'
-    : '';
-  layout.paragraph(`The claims were given as ${terms}: each estimate, its claim and its upper verification limit (UVL) are compared in those terms. The between-day SD has no claim of its own; it is part of the within-laboratory SD.${clipped}`, { color: COLOR.muted, size: 8 });
-  truenessBlock(layout, report, m);
+    { header: 'Component', weight: 1.4 }, { header: h.sd, weight: 0.95, align: 'right' },
+    { header: h.cv, weight: 0.55, align: 'right' }, { header: 'df', weight: 0.4, align: 'right' },
+    { header: h.ci, weight: 1.2, align: 'right' }, { header: h.claim, weight: 0.8, align: 'right' },
+    { header: h.uvlShort, weight: 0.8, align: 'right' }, { header: 'Verdict', weight: 1.65 },
+  ], rows.map((r) => [r.name, r.sd, r.cv, r.df, r.ci, r.claim, r.uvl, r.verdict]),
+  { color: (k, c) => (c === 7 && rows[k].verdictKey ? VERDICT_COLOR[rows[k].verdictKey!] : undefined) });
+  layout.paragraph(termsNote(m, f), { color: COLOR.muted, size: 8 });
+  truenessBlock(layout, report, results, m);
   flagsBlock(layout, report, m);
   for (const note of m.notes ?? []) layout.paragraph(`•  ${note}`, { color: COLOR.warm });
   if ((m.byDay ?? []).some((day) => day.values.length)) {
@@ -326,21 +199,14 @@ function materialSection(layout: Layout, report: StudyReport, results: Precision
   }
 }
 
-function truenessBlock(layout: Layout, report: StudyReport, m: PrecisionMaterialResult): void {
-  const t = m.trueness;
-  if (!t) return;
-  const unit = report.analyte.unit;
-  const d = precisionDecimals(report.settings.decimals);
-  const pairs: [string, string][] = [
-    ['Assigned value', `${withUnit(num(t.assigned, givenDecimals(t.assigned, d.value)), unit)}, standard uncertainty ${withUnit(num(t.uncertainty, givenDecimals(t.uncertainty, d.value)), unit)}`],
-    ['Source of the assigned value', orDash(t.source)],
-    ['Bias (mean − assigned value)', `${withUnit(num(t.bias, d.sd), unit)} (${finite(t.biasPercent) ? `${num(t.biasPercent, d.cv)}%` : NOT_AVAILABLE} of the assigned value)`],
-    ['Standard error of the mean', `${withUnit(num(t.se, d.sd), unit)}; ${dfText(t.df)} df for the interval`],
-    ['Verification interval', withUnit(range([t.interval.lower, t.interval.upper], d.sd), unit)],
-    ['Verdict', capital(truenessSentence(m, unit, report.settings.decimals) ?? '')],
-  ];
-  layout.subheading('Trueness against the assigned value', layout.keyValuesHeight(pairs, 150, 3));
-  layout.keyValues(pairs);
+/** The trueness details as the Findings panel lists them, and the verdict's sentence. */
+function truenessBlock(layout: Layout, report: StudyReport, results: PrecisionResult, m: PrecisionMaterialResult): void {
+  if (!m.trueness) return;
+  const f = formatOf(report);
+  const pairs: [string, string][] = [...truenessRows(m, f, results), ['Verdict', truenessSentence(m, f) ?? NOT_AVAILABLE]];
+  // Its labels are long (the interval's formula): a wider label column than the other blocks'.
+  layout.subheading('Trueness against the assigned value', layout.keyValuesHeight(pairs, 210, 3));
+  layout.keyValues(pairs, 210);
 }
 
 function flagsBlock(layout: Layout, report: StudyReport, m: PrecisionMaterialResult): void {
@@ -349,17 +215,12 @@ function flagsBlock(layout: Layout, report: StudyReport, m: PrecisionMaterialRes
     layout.paragraph('No replicate was flagged by the outlier rule.');
     return;
   }
-  const d = precisionDecimals(report.settings.decimals);
-  const byPosition = new Map(report.rows.map((r) => [r.position, r]));
+  const f = formatOf(report);
   const columns: Column[] = [
     { header: 'Row', weight: 0.5, align: 'right' }, { header: 'Day', weight: 1 }, { header: 'Replicate', weight: 0.85, align: 'right' },
-    { header: 'Result', weight: 0.8, align: 'right' }, { header: 'Why', weight: 4 },
+    { header: resultHeading(f), weight: 1.15, align: 'right' }, { header: 'Why', weight: 3.65 },
   ];
-  const rows = outliers.map((o) => {
-    const row = o.position !== undefined ? byPosition.get(o.position) : undefined;
-    return [o.position !== undefined ? String(o.position) : NOT_AVAILABLE, o.day, o.replicate !== null ? String(o.replicate) : NOT_AVAILABLE,
-      row?.valueText ?? num(o.value, d.value), o.why];
-  });
+  const rows = flaggedRows(m, f).map((o) => [o.row, o.day, o.replicate, o.value, o.why]);
   layout.subheading(`Flagged ${nounFor(outliers.length, 'replicate')} (kept in the analysis unless excluded with a reason)`, tableStart(layout, columns, rows));
   table(layout, columns, rows);
 }
@@ -375,7 +236,7 @@ export function precisionExclusions(layout: Layout, report: StudyReport): void {
     layout.paragraph('No row was excluded.');
     return;
   }
-  const d = precisionDecimals(report.settings.decimals);
+  const d = formatOf(report);
   const columns: Column[] = [
     { header: 'Row', weight: 0.5, align: 'right' }, { header: 'Material', weight: 1.2 }, { header: 'Day', weight: 1 },
     { header: 'Replicate', weight: 0.85, align: 'right' }, { header: 'Result', weight: 0.8, align: 'right' }, { header: 'Reason', weight: 3.1 },
@@ -387,7 +248,7 @@ export function precisionExclusions(layout: Layout, report: StudyReport): void {
 
 /** Every row as entered, excluded ones included, in grid order: material, day, replicate, the result as typed, status and note. */
 export function precisionRows(layout: Layout, report: StudyReport, flagged: Set<number>): void {
-  const d = precisionDecimals(report.settings.decimals);
+  const d = formatOf(report);
   const status = (r: ReportRow): string => (r.excluded ? `Excluded: ${orDash(r.exclusionReason)}` : flagged.has(r.position) ? 'Flagged by the outlier rule' : '');
   const columns: Column[] = [
     { header: 'Row', weight: 0.5, align: 'right' }, { header: 'Material', weight: 1.2 }, { header: 'Day', weight: 1 },
