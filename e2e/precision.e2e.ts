@@ -84,7 +84,9 @@ test('a technologist verifies precision on two controls and the director signs i
   await expect(page.getByTestId('verdict-repeatability-0')).toContainText(/Repeatability verified/);
   await expect(page.getByTestId('verdict-withinLab-0')).toContainText(/verified/);
   await expect(page.getByTestId('verdict-withinLab-1')).toContainText(/consistent with the claim/);
-  await expect(page.getByTestId('trueness-0')).toContainText(/verified/i);
+  await expect(page.getByTestId('verdict-trueness-0')).toContainText('Trueness verified: the mean 5.416 mmol/L lies within the verification interval 5.282 to 5.518 mmol/L');
+  await expect(page.getByTestId('precision-overall')).toHaveText('4 claims over 2 materials: 3 verified, 1 consistent with the claim, 0 not verified. Trueness verified for 1 of 1 material with an assigned value.');
+  await expect(page.getByTestId('run-state')).toContainText('no resampling');
   await expect(page.getByTestId('caution')).toContainText('Decision support only');
   await expect(page.getByTestId('plot-days-1')).toBeVisible();
   await fullShot(page, 'precision-findings.png');
@@ -101,6 +103,7 @@ test('a technologist verifies precision on two controls and the director signs i
   await expect(director.getByTestId('review-title')).toHaveText(title);
   await expect(director.getByTestId('verdict-withinLab-1')).toContainText(/consistent with the claim/, { timeout: 20_000 });
   await expect(director.getByTestId('review-caution')).toContainText('Decision support only');
+  await expect(director.getByTestId('review-analysis')).toContainText('no resampling');
   await fullShot(director, 'precision-review.png');
   await director.getByTestId('open-sign').click();
   const dialog = director.getByRole('dialog');

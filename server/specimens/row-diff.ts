@@ -38,4 +38,4 @@ export function diffRows(before: CleanRow[], after: CleanRow[]) {
 }
 
 const compact = (r: CleanRow) =>
-  Object.fromEntries(Object.entries({ ...(r.extra ?? {}), label: r.label, comparative: r.comparativeText, candidate: r.candidateText, value: r.valueText, sex: r.sex, ageBand: r.ageBand, excluded: r.excluded || undefined, exclusionReason: r.exclusionReason ?? undefined, note: r.note || undefined }).filter(([, v]) => v !== null && v !== undefined));
+  Object.fromEntries(Object.entries({ ...(r.extra ?? {}), label: r.extra && !r.label ? undefined : r.label, comparative: r.comparativeText, candidate: r.candidateText, value: r.valueText, sex: r.sex, ageBand: r.ageBand, excluded: r.excluded || undefined, exclusionReason: r.exclusionReason ?? undefined, note: r.note || undefined }).filter(([, v]) => v !== null && v !== undefined));

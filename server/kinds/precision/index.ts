@@ -1,5 +1,5 @@
 import { sql } from 'drizzle-orm';
-import { precisionMeta, PrecisionSettings } from '../../../shared/kinds/precision/meta';
+import { PRECISION_RULES, precisionMeta, PrecisionSettings } from '../../../shared/kinds/precision/meta';
 import { StudySettings } from '../../../shared/schemas';
 import { analyzePrecision } from '../../../shared/stats/analyze-precision';
 import type { PrecisionRow } from '../../../shared/stats/precision-types';
@@ -8,15 +8,14 @@ import { PRECISION_DEMOS } from './demo';
 import { precisionReport } from './report';
 import { precisionSheet } from './results-sheet';
 
-export const PRECISION_OUTLIER_RULE = 'Flag a replicate more than 5.5 repeatability SDs (computed without it) from the mean of its day\'s other results (flags only; exclusion needs a reason)';
+export const PRECISION_OUTLIER_RULE = PRECISION_RULES.outlierRule;
 
 /** Precision verification on the server: days × replicates per material against the manufacturer's claims (CLSI EP15 practice). */
 export const precisionKind: ServerKind = {
   meta: precisionMeta,
   initialSettings: () => ({
     confidenceLevel: 0.95,
-    outlierRule: PRECISION_OUTLIER_RULE,
-    acceptanceRule: 'Each SD within its claim, or within the upper verification limit of the claim (α adjusted for the number of materials)',
+    ...PRECISION_RULES,
   }),
   analyse(input) {
     const common = StudySettings.parse(input.settings);

@@ -42,6 +42,12 @@ export const PrecisionRowInput = z.object({
   note: z.string().max(1000).default(''),
 });
 
+/** The rules a new precision study starts with (Setup shows them, the server stores them; both take them from here). */
+export const PRECISION_RULES = {
+  outlierRule: 'Flag a replicate more than 5.5 repeatability SDs (computed without it) from the mean of its day\'s other results (flags only; exclusion needs a reason)',
+  acceptanceRule: 'Each SD within its claim, or within the upper verification limit of the claim (α adjusted for the number of materials)',
+} as const;
+
 /** Precision verification: days × replicates per material, against the manufacturer's claims. */
 export const precisionMeta = {
   kind: 'precision',

@@ -66,6 +66,10 @@ export class ReviewPage {
   protected readonly study = this.store.study;
   protected readonly kind = computed(() => (this.study() ? kindLabel(this.study()!) : ''));
   protected readonly state = computed(() => (this.study() ? stateLabel(this.study()!) : ''));
+  /** False when the findings say their engine drew no resamples (a kind computed in closed form, such as precision). */
+  protected resampled(a: { results: unknown }): boolean {
+    return (a.results as { engine?: { resamples?: number } } | null)?.engine?.resamples !== 0;
+  }
   protected readonly decide = computed(() => !!this.study() && mayDecide(this.study()!, this.auth.roles()));
   protected readonly pdf = computed(() => (this.study() ? reportUrl(this.study()!.id) : ''));
   /** How the study's kind shows its findings here: the review's comparison panels, or its own Findings panel. */

@@ -43,6 +43,8 @@ export class FindingsTab {
   protected readonly unsavedRows = computed(() => this.specimens.status() !== 'saved' && this.specimens.version() > 0);
   protected readonly canRun = computed(() => this.study.editable() && !this.analyses.working() && !this.unsavedRows());
   protected readonly results = computed(() => (this.analysis()?.state === 'done' ? this.analysis()!.results : null));
+  /** False when the finished findings say their engine drew no resamples (a kind computed in closed form, such as precision). */
+  protected readonly resampled = computed(() => (this.results() as { engine?: { resamples?: number } } | null)?.engine?.resamples !== 0);
 
   constructor() {
     effect(() => {

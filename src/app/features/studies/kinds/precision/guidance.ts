@@ -13,8 +13,5 @@ export const PRECISION_GUIDANCE: SetupGuidance = {
   analysisNote: 'The findings come from a one-way analysis of variance by day for each material (repeatability, between-day and within-laboratory SDs against the claims at the chosen α); nothing is resampled, so there is no confidence level, resamples or seed to set.',
 };
 
-/** The rules a new precision study starts with in place of the comparison's (the server starts one with the same words). */
-export const PRECISION_RULES = {
-  outlierRule: "Flag a replicate more than 5.5 repeatability SDs from its day's mean (flags only; exclusion needs a reason)",
-  acceptanceRule: 'Each SD within its claim, or within the upper verification limit of the claim (α adjusted for the number of materials)',
-} as const;
+/** The rules a new precision study starts with in place of the comparison's (shared with the server). */
+export { PRECISION_RULES } from '../../../../../../shared/kinds/precision/meta';
