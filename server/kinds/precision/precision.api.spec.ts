@@ -30,8 +30,9 @@ const rowsOf = () => [
 ];
 
 async function precisionStudy(s: Session, settings: object = { materials: MATERIALS, decimals: 2 }, status = 201) {
-  const glucose = (await h.database.db.select().from(analytes)).find((a) => a.name === 'Glucose')!;
-  const line = (await h.database.db.select().from(instruments)).find((i) => i.laboratoryId === glucose.laboratoryId && i.name === 'Chemistry line 2')!;
+  // The demo laboratory's (another laboratory keeps a glucose of its own).
+  const line = (await h.database.db.select().from(instruments)).find((i) => i.name === 'Chemistry line 2')!;
+  const glucose = (await h.database.db.select().from(analytes)).find((a) => a.laboratoryId === line.laboratoryId && a.name === 'Glucose')!;
   return post(s, '/studies', { kind: 'precision', title: `Precision ${Date.now()}`, analyteId: glucose.id, instrumentId: line.id, settings }).expect(status);
 }
 
@@ -40,6 +41,17 @@ async function analysed(s: Session) {
   const saved = await put(s, `/studies/${study.id}/specimens`, { version: study.version, rows: rowsOf() }).expect(200);
   const queued = await post(s, `/studies/${study.id}/analyses`).expect(202);
   return { study, saved: saved.body, done: await waitForAnalysis(s, queued.body.id) };
+}
+
+/** An analysed precision study, submitted by the technologist and signed by the director; with the people involved. */
+async function signedPrecision() {
+  const tech = await signedIn(h, 'tech@valeharbor.example');
+  const director = await signedIn(h, 'director@valeharbor.example');
+  const quality = await signedIn(h, 'quality@valeharbor.example');
+  const { study } = await analysed(tech);
+  await post(tech, `/studies/${study.id}/submit`).expect(200);
+  await post(director, `/studies/${study.id}/sign`, { meaning: 'accepted', password: 'parallax-demo' }).expect(200);
+  return { study, director, quality };
 }
 
 describe('precision studies', () => {
@@ -115,12 +127,7 @@ describe('precision studies', () => {
   });
 
   it('goes from submission to a signed PDF, the archive, the full record and both re-checks', async () => {
-    const tech = await signedIn(h, 'tech@valeharbor.example');
-    const director = await signedIn(h, 'director@valeharbor.example');
-    const quality = await signedIn(h, 'quality@valeharbor.example');
-    const { study } = await analysed(tech);
-    await post(tech, `/studies/${study.id}/submit`).expect(200);
-    await post(director, `/studies/${study.id}/sign`, { meaning: 'accepted', password: 'parallax-demo' }).expect(200);
+    const { study, director, quality } = await signedPrecision();
     const pdf = (await director.agent.get(`/api/v1/studies/${study.id}/report.pdf`).buffer(true).parse(binary).expect(200)).body as Buffer;
     const text = flat(await pdfPages(pdf));
     expect(text).toContain('Precision verification: study report');
@@ -145,12 +152,7 @@ describe('precision studies', () => {
   });
 
   it('fails the content-hash check when a precision row\'s day is changed behind the application\'s back', async () => {
-    const tech = await signedIn(h, 'tech@valeharbor.example');
-    const director = await signedIn(h, 'director@valeharbor.example');
-    const quality = await signedIn(h, 'quality@valeharbor.example');
-    const { study } = await analysed(tech);
-    await post(tech, `/studies/${study.id}/submit`).expect(200);
-    await post(director, `/studies/${study.id}/sign`, { meaning: 'accepted', password: 'parallax-demo' }).expect(200);
+    const { study, director, quality } = await signedPrecision();
     await h.database.db.transaction(async (tx) => {
       await tx.execute(sql`SET LOCAL session_replication_role = replica`);
       await tx.execute(sql`UPDATE specimens SET extra = jsonb_set(extra, '{day}', '"4"') WHERE study_id = ${study.id} AND position = 2`);

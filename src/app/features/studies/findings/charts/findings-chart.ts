@@ -1,10 +1,11 @@
-import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, input, output, signal, viewChild } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, input, output, signal, viewChild } from '@angular/core';
 import type { ActiveElement, Chart, ChartData, ChartEvent, ChartOptions, ChartType, TooltipModel } from 'chart.js';
 import { BaseChartDirective, provideCharts } from 'ng2-charts';
 import type { PlotAxis } from '../../../../../../shared/types/plot-axes';
 import { CHART_SETUP } from './chart-setup';
 import { keyOf, legendEntries, linearScale, tipOf } from './chart-options';
 import type { Markers } from './markers-plugin';
+import { fitChartOnPrint } from './print-fit';
 
 interface Tip {
   title: string;
@@ -114,14 +115,7 @@ export class FindingsChart {
   private readonly chart = viewChild(BaseChartDirective);
 
   constructor() {
-    // The printed page is narrower than the screen: redraw the canvas to the paper's width and back.
-    const fit = (): void => this.chart()?.chart?.resize();
-    window.addEventListener('beforeprint', fit);
-    window.addEventListener('afterprint', fit);
-    inject(DestroyRef).onDestroy(() => {
-      window.removeEventListener('beforeprint', fit);
-      window.removeEventListener('afterprint', fit);
-    });
+    fitChartOnPrint(this.chart);
   }
 
   private showTip(chart: Chart, tooltip: TooltipModel<ChartType>): void {

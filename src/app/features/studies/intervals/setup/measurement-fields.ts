@@ -8,7 +8,10 @@ import type { StudyCatalog } from '../../api/catalog-api';
 import type { SetupGroup } from '../../setup/setup-form-group';
 import { requireWhileShown } from './require-fields';
 
-/** What a reference-interval study measures on: the instrument (required), the reagent lot, the unit and decimals. */
+/**
+ * What a study on one instrument measures on: the instrument (required while shown), the reagent lot, the unit and
+ * decimals. Used by the reference-interval kinds and by precision; `instrumentHint` says what the instrument is for.
+ */
 @Component({
   selector: 'app-interval-measurement-fields',
   styleUrl: '../../setup/setup-form.scss',
@@ -25,7 +28,7 @@ import { requireWhileShown } from './require-fields';
               <mat-option [value]="i.id">{{ i.name }}</mat-option>
             }
           </mat-select>
-          <mat-hint>The analyser that measured the reference individuals</mat-hint>
+          <mat-hint>{{ instrumentHint() }}</mat-hint>
           <mat-error>{{ form().controls.instrumentId.errors | fieldError: 'The instrument' }}</mat-error>
         </mat-form-field>
         <ng-container formGroupName="settings">
@@ -52,6 +55,7 @@ import { requireWhileShown } from './require-fields';
 export class IntervalMeasurementFields {
   readonly form = input.required<SetupGroup>();
   readonly catalog = input<StudyCatalog | null>(null);
+  readonly instrumentHint = input('The analyser that measured the reference individuals');
 
   protected readonly settings = computed(() => this.form().controls.settings.controls);
   protected readonly instruments = computed(() =>

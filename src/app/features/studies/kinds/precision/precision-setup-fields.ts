@@ -10,7 +10,7 @@ import { scan, startWith, switchMap } from 'rxjs';
 import { StudySettings } from '../../../../../../shared/schemas';
 import { FieldErrorPipe } from '../../../../ui/field-error';
 import type { StudyCatalog } from '../../api/catalog-api';
-import { requireWhileShown } from '../../intervals/setup/require-fields';
+import { IntervalMeasurementFields } from '../../intervals/setup/measurement-fields';
 import type { OpenSettingsGroup, SetupGroup } from '../../setup/setup-form-group';
 import { PRECISION_RULES } from './guidance';
 import { MAX_MATERIALS, type MaterialGroup, type MaterialsArray, PRECISION_KEYS, materialGroup, precisionControls } from './settings-controls';
@@ -46,7 +46,7 @@ const plannedOf = (form: SetupGroup): number | null => {
   templateUrl: './precision-setup-fields.html',
   styleUrls: ['../../setup/setup-form.scss', './precision-setup-fields.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatSelectModule, FieldErrorPipe],
+  imports: [ReactiveFormsModule, IntervalMeasurementFields, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatSelectModule, FieldErrorPipe],
 })
 export class PrecisionSetupFields {
   readonly form = input.required<SetupGroup>();
@@ -84,14 +84,10 @@ export class PrecisionSetupFields {
     this.changes();
     return this.form().controls.settings.enabled;
   });
-  protected readonly instruments = computed(() =>
-    (this.catalog()?.instruments ?? []).filter((i) => i.active || i.id === this.form().controls.instrumentId.value),
-  );
   /** The planned count the design gave last, so a count the user typed is left alone. */
   private lastPlanned: number | null = null;
 
   constructor() {
-    requireWhileShown(this.form, (f) => [f.controls.instrumentId]);
     effect(() => {
       const form = this.form();
       untracked(() => this.join(form));

@@ -1,9 +1,10 @@
-import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, input, viewChild } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, input, viewChild } from '@angular/core';
 import type { ChartData, ChartOptions } from 'chart.js';
 import { BaseChartDirective, provideCharts } from 'ng2-charts';
 import { legendEntries } from '../../../findings/charts/chart-options';
 import { CHART_SETUP } from '../../../findings/charts/chart-setup';
 import { dayPlotOptions, type DayPlot } from './precision-chart';
+import { fitChartOnPrint } from '../../../findings/charts/print-fit';
 
 /**
  * One material's results by day, drawn as the other Findings plots are (chart.js through ng2-charts, the same
@@ -74,13 +75,6 @@ export class PrecisionDayPlot {
   private readonly chart = viewChild(BaseChartDirective);
 
   constructor() {
-    // The printed page is narrower than the screen: redraw the canvas to the paper's width and back.
-    const fit = (): void => this.chart()?.chart?.resize();
-    window.addEventListener('beforeprint', fit);
-    window.addEventListener('afterprint', fit);
-    inject(DestroyRef).onDestroy(() => {
-      window.removeEventListener('beforeprint', fit);
-      window.removeEventListener('afterprint', fit);
-    });
+    fitChartOnPrint(this.chart);
   }
 }
