@@ -1,18 +1,6 @@
-import { spawnSync } from 'node:child_process';
-import { mkdtempSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import path from 'node:path';
+import { analyze, scratchFiles } from '../test/cli';
 
-/** The command line is a contract other tools rely on: run it as they would, in a child process. */
-const root = path.resolve(__dirname, '../..');
-const dir = mkdtempSync(path.join(tmpdir(), 'parallax-cli-'));
-const file = (name: string, text: string) => {
-  const p = path.join(dir, name);
-  writeFileSync(p, text);
-  return p;
-};
-const analyze = (...args: string[]) =>
-  spawnSync(path.join(root, 'node_modules/.bin/tsx'), [path.join(root, 'server/cli/analyze.ts'), ...args], { encoding: 'utf8', cwd: root });
+const file = scratchFiles('parallax-cli-');
 
 const pairs = ['specimen,x,y', ...Array.from({ length: 30 }, (_, i) => `S${i + 1},${(4 + i * 0.5).toFixed(1)},${(4.1 + i * 0.5 + ((i % 3) - 1) * 0.1).toFixed(1)}`)].join('\n');
 

@@ -2,7 +2,7 @@ import { readFileSync } from 'node:fs';
 import { KIND_METAS, kindMeta } from '../../shared/kinds/kinds';
 import { parseKindSettings } from '../../shared/kinds/settings';
 import { runAnalysis } from '../analyses/run-analysis';
-import { analysedSettings, type AnalysisInput } from '../specimens/input-hash';
+import { analysedFields, analysedSettings, type AnalysisInput } from '../specimens/input-hash';
 import { validateRows } from '../specimens/row-validation';
 import { CsvError, type CsvTable } from './csv';
 import { FlagError } from './flags';
@@ -62,12 +62,7 @@ export function runStudyKind(kind: string, table: CsvTable, settings: Record<str
   const input: AnalysisInput = {
     kind,
     settings: analysedSettings(parsed, kind),
-    rows: rows.map((r, i) => ({
-      position: i + 1, label: r.label, comparative: r.comparative, candidate: r.candidate, value: r.value,
-      comparativeText: r.comparativeText, candidateText: r.candidateText, valueText: r.valueText,
-      sex: r.sex, ageBand: r.ageBand, excluded: r.excluded, exclusionReason: r.exclusionReason,
-      ...(r.extra ? { extra: r.extra } : {}),
-    })),
+    rows: rows.map((r, i) => analysedFields({ ...r, position: i + 1 })),
   };
   try {
     return runAnalysis(input);

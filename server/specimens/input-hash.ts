@@ -3,8 +3,7 @@ import type { Executor } from '../db/client';
 import { specimens, studies } from '../db/schema';
 import { canonicalJson, sha256Hex } from '../audit/canonical-json';
 import type { StudyRow } from '../studies/studies.repository';
-import { KIND_METAS } from '../../shared/kinds/kinds';
-import type { KindMeta } from '../../shared/kinds/kind';
+import { kindMeta } from '../../shared/kinds/kinds';
 
 export type StoredRow = typeof specimens.$inferSelect;
 
@@ -15,13 +14,16 @@ export const loadRows = (db: Executor, studyId: number): Promise<StoredRow[]> =>
  * What an analysis reads of a row; the input hash covers exactly this. A kind's own fields (`extra`) are added
  * only where a row has them, so the rows of kinds without them hash as they always did.
  */
-export const analysedFields = (r: StoredRow) => ({
+export const analysedFields = (r: AnalysedSource) => ({
   position: r.position, label: r.label,
   comparative: r.comparative, candidate: r.candidate, value: r.value,
   comparativeText: r.comparativeText, candidateText: r.candidateText, valueText: r.valueText,
   sex: r.sex, ageBand: r.ageBand, excluded: r.excluded, exclusionReason: r.exclusionReason,
   ...(r.extra ? { extra: r.extra } : {}),
 }) as AnalysedRow;
+
+/** What a row is read from: a stored row, or a checked one with its position (the CLI's). */
+type AnalysedSource = Omit<AnalysedRow, 'extra'> & { extra: Record<string, string | number | null> | null };
 
 /** An analysed row; `extra` only for kinds with fields of their own. */
 export interface AnalysedRow {
@@ -41,8 +43,8 @@ const RECORD_ONLY = ['allowableBiasSource', 'comparativeLot', 'candidateLot', 'r
   'outlierRule', 'acceptanceRule', 'populationDescription', 'statedSource', 'decimalMark'];
 
 /** The settings an analysis reads: all but the record-only ones, those of every study and the kind's own (KindMeta.recordOnly). */
-export const analysedSettings = (settings: unknown, kind?: string): Record<string, unknown> => {
-  const own = kind ? (KIND_METAS.find((m) => m.kind === kind) as KindMeta | undefined)?.recordOnly ?? [] : [];
+export const analysedSettings = (settings: unknown, kind: string): Record<string, unknown> => {
+  const own = kindMeta(kind).recordOnly ?? [];
   return Object.fromEntries(Object.entries((settings ?? {}) as Record<string, unknown>).filter(([k]) => !RECORD_ONLY.includes(k) && !own.includes(k)));
 };
 

@@ -83,16 +83,16 @@ export async function updateStudy(db: Database, me: SignedInUser, id: number, bo
   });
 }
 
-/**
- * Settings parsed for the study's kind; a kind's own setting that fails its schema (shared/kinds/<kind>/meta.ts)
- * answers 400 naming it ("settings.materials.0.claimRepeatability: The repeatability claim must be above 0").
- */
 /** Only the settings the kind knows (the common ones and its own); others are dropped, as zod drops unknown keys. */
 function knownSettings(kind: string, given: Record<string, unknown>): Record<string, unknown> {
   const known = new Set([...Object.keys(StudySettings.shape), ...ownSettingKeys(kind)]);
   return Object.fromEntries(Object.entries(given).filter(([k]) => known.has(k)));
 }
 
+/**
+ * Settings parsed for the study's kind; a kind's own setting that fails its schema (shared/kinds/<kind>/meta.ts)
+ * answers 400 naming it ("settings.materials.0.claimRepeatability: The repeatability claim must be above 0").
+ */
 function checkedSettings(parse: () => KindSettings): KindSettings {
   try {
     return parse();

@@ -1,6 +1,6 @@
 import { sql } from 'drizzle-orm';
 import { PRECISION_RULES, precisionMeta, PrecisionSettings } from '../../../shared/kinds/precision/meta';
-import { StudySettings } from '../../../shared/schemas';
+import { parseKindSettings, type KindSettings } from '../../../shared/kinds/settings';
 import { analyzePrecision } from '../../../shared/stats/analyze-precision';
 import type { PrecisionRow } from '../../../shared/stats/precision-types';
 import type { ServerKind } from '../kind';
@@ -18,16 +18,15 @@ export const precisionKind: ServerKind = {
     ...PRECISION_RULES,
   }),
   analyse(input) {
-    const common = StudySettings.parse(input.settings);
-    const own = PrecisionSettings.parse(input.settings);
-    if (!own.materials.length) throw new Error('Name the materials and their claims in Setup before running the analysis');
+    const s = parseKindSettings(input.kind, input.settings) as KindSettings & PrecisionSettings;
+    if (!s.materials.length) throw new Error('Name the materials and their claims in Setup before running the analysis');
     const rows: PrecisionRow[] = input.rows.filter((r) => r.value !== null).map((r) => ({
       material: String(r.extra?.material ?? ''), day: String(r.extra?.day ?? ''),
       replicate: typeof r.extra?.replicate === 'number' ? r.extra.replicate : null, value: r.value!,
       excluded: r.excluded, exclusionReason: r.exclusionReason ?? undefined, position: r.position,
     }));
     return analyzePrecision(rows, {
-      materials: own.materials, days: own.days, replicates: own.replicates, alpha: own.alpha, decimals: common.decimals, seed: common.seed,
+      materials: s.materials, days: s.days, replicates: s.replicates, alpha: s.alpha, decimals: s.decimals, seed: s.seed,
     });
   },
   submissionProblems(s) {

@@ -1,19 +1,9 @@
-import { spawnSync } from 'node:child_process';
-import { mkdtempSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import path from 'node:path';
-import { precisionRuns } from './demo';
+import { analyze, scratchFiles } from '../../test/cli';
+import { precisionRuns } from './runs';
 
 /** `npm run analyze -- precision FILE.csv --settings SETTINGS.json`, run as other tools run it, in a child process. */
-const root = path.resolve(__dirname, '../../..');
-const dir = mkdtempSync(path.join(tmpdir(), 'parallax-precision-cli-'));
-const file = (name: string, text: string) => {
-  const p = path.join(dir, name);
-  writeFileSync(p, text);
-  return p;
-};
-const analyze = (...args: string[]) =>
-  spawnSync(path.join(root, 'node_modules/.bin/tsx'), [path.join(root, 'server/cli/analyze.ts'), ...args], { encoding: 'utf8', cwd: root });
+
+const file = scratchFiles('parallax-precision-cli-');
 
 const rows = [
   ...precisionRuns('vh-prec-low', 'Low', ['1', '2', '3', '4', '5'], 5, 5.42, 0.06, 0.03, 2),

@@ -1,13 +1,7 @@
 import { PrecisionSettings, type PrecisionMaterial } from '../../../../../../shared/kinds/precision/meta';
 
 /** A precision study's own settings (shared/kinds/precision/meta.ts), stored beside the common ones. */
-export interface PrecisionOwn {
-  materials: PrecisionMaterial[];
-  days: number;
-  replicates: number;
-  alpha: number;
-  controlLot: string;
-}
+export type PrecisionOwn = PrecisionSettings;
 
 const DEFAULTS = PrecisionSettings.parse({});
 
