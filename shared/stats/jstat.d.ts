@@ -5,6 +5,7 @@ declare module 'jstat' {
     erfc(x: number): number;
     normal: { cdf(x: number, mean: number, sd: number): number; inv(p: number, mean: number, sd: number): number };
     studentt: { cdf(x: number, dof: number): number; inv(p: number, dof: number): number };
+    centralF: { cdf(x: number, df1: number, df2: number): number; inv(p: number, df1: number, df2: number): number };
     chisquare: { cdf(x: number, dof: number): number; inv(p: number, dof: number): number };
   };
 }

@@ -35,7 +35,7 @@ export interface PolynomialFit {
 }
 
 /** The fit's value at x, evaluated in z by Horner's rule. */
-export function evaluatePolynomial(fit: Pick<PolynomialFit, 'centre' | 'scale' | 'zCoefficients'>, x: number): number {
+export function evaluatePolynomial(fit: { centre: number; scale: number; zCoefficients: ArrayLike<number> }, x: number): number {
   const z = (x - fit.centre) / fit.scale;
   let v = 0;
   for (let j = fit.zCoefficients.length - 1; j >= 0; j--) v = v * z + fit.zCoefficients[j];

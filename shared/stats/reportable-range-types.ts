@@ -43,6 +43,8 @@ export interface RangeOptions {
   resamples?: number;
   seed?: string;
   decimals?: number | null;
+  /** The analyte's unit, for the verdict in words. */
+  unit?: string;
 }
 
 /** 'assigned': x is each level's assigned value (given, or from its fraction and the pools); 'fraction': x is the high pool's fraction. */
@@ -114,7 +116,8 @@ export interface RangeResult {
   verdict: RangeVerdict;
   /** The verdict in one sentence. */
   verdictWords: string;
-  goal: { absolute: number | null; percent: number | null };
+  /** The allowable nonlinearity; `source` is the study's record-only words, added where results are served (never by the engine). */
+  goal: { absolute: number | null; percent: number | null; source?: string };
   claimed: { low: number | null; high: number | null };
   /** Whether the verified range reaches the claimed interval's ends (null when no claim is given or nothing is verified). */
   coversClaim: boolean | null;
