@@ -65,6 +65,7 @@ export function polynomialDesign(x: ArrayLike<number>, degree: number): Polynomi
   const n = x.length;
   const p = degree + 1;
   if (!Number.isInteger(degree) || degree < 1) throw new RangeError('polynomialDesign: the degree must be a whole number from 1');
+  for (let i = 0; i < n; i++) if (!Number.isFinite(x[i])) throw new RangeError(`polynomialDesign: x value ${i + 1} is not a finite number`);
   if (new Set(Array.from(x)).size < p) throw new RangeError(`A polynomial of degree ${degree} needs at least ${p} distinct x values`);
   if (n <= p) throw new RangeError(`A polynomial of degree ${degree} needs more than ${p} results to estimate its error`);
   let lo = Infinity;
@@ -173,7 +174,8 @@ export function fitPolynomial(x: ArrayLike<number>, y: ArrayLike<number>, degree
   }
   const seTop = Math.sqrt(covZ[p * p - 1]);
   const tTop = seTop > 0 ? bz[p - 1] / seTop : (bz[p - 1] === 0 ? 0 : Math.sign(bz[p - 1]) * Infinity);
-  const pTop = Number.isFinite(tTop) ? 2 * (1 - jStat.studentt.cdf(Math.abs(tTop), df)) : 0;
+  // from the lower tail, so a tiny p keeps its digits (2·(1 − F(|t|)) is 0 below about 1e-16)
+  const pTop = Number.isFinite(tTop) ? 2 * jStat.studentt.cdf(-Math.abs(tTop), df) : 0;
   return { degree, coefficients, se, t: tTop, p: Math.min(1, Math.max(0, pTop)), rss, df, syx: Math.sqrt(sigma2), ...zFit };
 }
 
