@@ -3,9 +3,10 @@ import { methodComparisonKind } from './method-comparison';
 import { intervalEstablishKind } from './interval-establish';
 import { intervalVerifyKind } from './interval-verify';
 import { precisionKind } from './precision';
+import { reportableRangeKind } from './reportable-range';
 
 /** The server's study kinds, one line each (kind.ts); the shared descriptions are in shared/kinds/kinds.ts. */
-export const SERVER_KINDS: readonly ServerKind[] = [methodComparisonKind, intervalEstablishKind, intervalVerifyKind, precisionKind];
+export const SERVER_KINDS: readonly ServerKind[] = [methodComparisonKind, intervalEstablishKind, intervalVerifyKind, precisionKind, reportableRangeKind];
 
 const BY_KIND = new Map(SERVER_KINDS.map((k) => [k.meta.kind, k]));
 

@@ -3,12 +3,13 @@ import { methodComparisonMeta } from './method-comparison/meta';
 import { intervalEstablishMeta } from './interval-establish/meta';
 import { intervalVerifyMeta } from './interval-verify/meta';
 import { precisionMeta } from './precision/meta';
+import { reportableRangeMeta } from './reportable-range/meta';
 
 /**
  * The study kinds, one line each: what each says about itself to both sides (kind.ts). The server's registry
  * (server/kinds/index.ts) and the client's (src/app/features/studies/kinds/index.ts) add their halves.
  */
-export const KIND_METAS = [methodComparisonMeta, intervalEstablishMeta, intervalVerifyMeta, precisionMeta] as const;
+export const KIND_METAS = [methodComparisonMeta, intervalEstablishMeta, intervalVerifyMeta, precisionMeta, reportableRangeMeta] as const;
 
 export type StudyKindName = (typeof KIND_METAS)[number]['kind'];
 

@@ -38,10 +38,10 @@ export function givenText(v: number | null | undefined, f: RangeFormat): string 
   return formatNumber(v, Math.min(Math.max(typed, f.value), f.value + 3));
 }
 
-/** A level's x: its assigned value in the unit, or its mixing fraction. */
+/** A level's x: its assigned value in the unit, or its mixing fraction (the column's heading says which: levelHeadings). */
 export function xText(level: Pick<RangeLevelResult, 'x' | 'assigned' | 'fraction'>, f: RangeFormat): string {
   if (level.assigned !== null && level.assigned !== undefined) return givenText(level.assigned, f);
-  return level.fraction !== null && level.fraction !== undefined ? `fraction ${formatNumber(level.fraction, 3)}` : NOT_AVAILABLE;
+  return level.fraction !== null && level.fraction !== undefined ? formatNumber(level.fraction, 3) : NOT_AVAILABLE;
 }
 
 export function statText(v: number | null | undefined, f: RangeFormat): string {
@@ -183,7 +183,7 @@ export function designRows(r: RangeResult, f: RangeFormat): [string, string][] {
     ['Levels given as', r.basis === 'fraction' ? 'mixing fractions of the high pool (no pool values: no recovery)' : 'assigned values'],
     ['Allowable nonlinearity', goalText(r.goal, f)],
     ['Claimed measuring interval', claimText(r.claimed, f)],
-    ['Significance level α (top coefficients)', String(r.alpha)],
+    ['Significance level α (top coefficients)', typeof r.alpha === 'number' ? String(r.alpha) : NOT_AVAILABLE],
     ['CIs of the deviations', r.engine?.resamples
       ? `${levelLabel(r.confidenceLevel ?? 0.95)} percentile bootstrap, ${r.engine.resamples.toLocaleString('en-US')} resamples within levels, seed "${r.engine.seed}"`
       : 'none: the straight line fits best (no resampling)'],

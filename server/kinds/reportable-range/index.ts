@@ -1,0 +1,53 @@
+import { sql } from 'drizzle-orm';
+import { RANGE_RULES, RangeSettings, reportableRangeMeta } from '../../../shared/kinds/reportable-range/meta';
+import { parseKindSettings, type KindSettings } from '../../../shared/kinds/settings';
+import { analyzeReportableRange } from '../../../shared/stats/analyze-reportable-range';
+import type { RangeResult, RangeRow } from '../../../shared/stats/reportable-range-types';
+import type { ServerKind } from '../kind';
+import { RANGE_DEMOS } from './demo';
+import { rangeReport } from './report';
+import { rangeSheet } from './results-sheet';
+
+const isObject = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
+
+/** The fewest levels a submitted study may have (CLSI EP06 practice: 5 to 11; DOMAIN.md "Reportable range"). */
+const FEWEST_LEVELS = 5;
+
+/** Reportable range on the server: linearity and recovery across the claimed measuring interval (CLSI EP06 practice). */
+export const reportableRangeKind: ServerKind = {
+  meta: reportableRangeMeta,
+  initialSettings: () => ({ ...RANGE_RULES }),
+  analyse(input, onProgress) {
+    const s = parseKindSettings(input.kind, input.settings) as KindSettings & RangeSettings;
+    if (!s.levels.length) throw new Error('Name the levels with their assigned values or mixing fractions in Setup before running the analysis');
+    const rows: RangeRow[] = input.rows.filter((r) => r.value !== null).map((r) => ({
+      level: String(r.extra?.level ?? ''),
+      replicate: typeof r.extra?.replicate === 'number' ? r.extra.replicate : null,
+      value: r.value!, excluded: r.excluded, exclusionReason: r.exclusionReason ?? undefined, position: r.position,
+    }));
+    return analyzeReportableRange(rows, {
+      levels: s.levels, poolLow: s.poolLow, poolHigh: s.poolHigh, replicates: s.replicates,
+      allowableNonlinearity: s.allowableNonlinearity, allowableNonlinearityPercent: s.allowableNonlinearityPercent,
+      claimedLow: s.claimedLow, claimedHigh: s.claimedHigh, alpha: s.alpha,
+      confidenceLevel: s.confidenceLevel, resamples: s.resamples, seed: s.seed, decimals: s.decimals, unit: s.unit,
+    }, onProgress);
+  },
+  submissionProblems(s) {
+    const own = RangeSettings.safeParse(s);
+    if (!own.success) return [{ path: 'settings.levels', message: 'Correct the levels in Setup' }];
+    const problems: { path: string; message: string }[] = [];
+    if (own.data.levels.length < FEWEST_LEVELS) problems.push({ path: 'settings.levels', message: `Name at least ${FEWEST_LEVELS} levels (CLSI EP06 practice: 5 to 11)` });
+    if (own.data.allowableNonlinearity === null && own.data.allowableNonlinearityPercent === null) {
+      problems.push({ path: 'settings.allowableNonlinearity', message: 'Give the allowable nonlinearity (in the unit or in %)' });
+    }
+    if (!own.data.nonlinearitySource.trim()) problems.push({ path: 'settings.nonlinearitySource', message: 'Name the source of the allowable nonlinearity' });
+    return problems;
+  },
+  /** The source of the allowable nonlinearity is record-only: the findings show the study's as it stands (analyses/recorded-words.ts). */
+  recordedWords: (results, settings) => (isObject(results.goal)
+    ? { ...results, goal: { ...results.goal, source: typeof settings.nonlinearitySource === 'string' ? settings.nonlinearitySource : '' } } : results),
+  archiveVerdict: sql`CASE WHEN results->>'verdict' IN ('range-verified', 'range-shortened', 'range-not-verified') THEN results->>'verdict' ELSE NULL END`,
+  report: (layout, report, results) => rangeReport(layout, report, results as RangeResult | null),
+  resultsSheet: rangeSheet,
+  demos: RANGE_DEMOS,
+};
