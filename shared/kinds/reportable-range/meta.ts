@@ -67,9 +67,9 @@ export const reportableRangeMeta = {
   resultKind: 'reportable-range',
   instruments: 'one',
   verdicts: [
-    { key: 'range-verified', tone: 'pass', icon: 'task_alt', word: 'Range verified', sentence: 'At every level tested the deviation from linearity lies within the allowable nonlinearity.' },
-    { key: 'range-shortened', tone: 'open', icon: 'straighten', word: 'Range shortened', sentence: 'The deviation lies within the goal over a run of levels only: the verified range is narrower than the levels tested.' },
-    { key: 'range-not-verified', tone: 'fail', icon: 'error', word: 'Range not verified', sentence: 'No run of levels has deviations within the allowable nonlinearity.' },
+    { key: 'range-verified', tone: 'pass', icon: 'done_all', word: 'Range verified', sentence: 'At every level tested the deviation from linearity lies within the allowable nonlinearity.' },
+    { key: 'range-shortened', tone: 'open', icon: 'compress', word: 'Range shortened', sentence: 'The deviation lies within the goal over a run of levels only: the verified range is narrower than the levels tested.' },
+    { key: 'range-not-verified', tone: 'fail', icon: 'report', word: 'Range not verified', sentence: 'No run of levels has deviations within the allowable nonlinearity.' },
   ],
   row: RangeRowInput,
   rowFields: [

@@ -4,11 +4,12 @@ import { methodComparisonView } from './method-comparison';
 import { intervalEstablishView } from './interval-establish';
 import { intervalVerifyView } from './interval-verify';
 import { precisionView } from './precision';
+import { reportableRangeView } from './reportable-range';
 
 export type { KindView } from './kind-view';
 
 /** The study kinds the client can show, one line each, in the order the kind chooser offers them. */
-export const KIND_VIEWS: readonly KindView[] = [methodComparisonView, intervalEstablishView, intervalVerifyView, precisionView];
+export const KIND_VIEWS: readonly KindView[] = [methodComparisonView, intervalEstablishView, intervalVerifyView, precisionView, reportableRangeView];
 
 const BY_KIND = new Map<string, KindView>(KIND_VIEWS.map((v) => [v.kind, v]));
 

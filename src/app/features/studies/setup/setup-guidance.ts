@@ -12,6 +12,8 @@ export interface SetupGuidance {
    * level, resamples and seed of each limit's percentile bootstrap; `none` no section (the count needs none).
    */
   analysis: 'regression' | 'limits' | 'none';
+  /** What the confidence level is of, when not of the regression or the limits: "Confidence level of the deviations". */
+  confidenceLabel?: string;
   /** A sentence under the analysis settings, or under the plan when the kind has none. */
   analysisNote: string;
 }
