@@ -130,6 +130,19 @@ describe('PrecisionSetupFields on a saved study', () => {
     expect(form.controls.settings.controls.plannedSpecimens.value).toBeNull();
     expect(form.dirty).toBe(false);
   });
+
+  it('shows the materials of a study that can no longer change (its form disabled), without adding controls', async () => {
+    const study = {
+      kind: 'precision', title: 'T', purpose: '', analyte: { id: 3, name: 'Glucose' }, comparativeInstrument: null, candidateInstrument: null,
+      instrument: { id: 4, name: 'Line 1' }, settings: { ...StudySettings.parse({}), ...PrecisionSettings.parse({ materials: [LEVEL_1, LEVEL_2] }) },
+    } as unknown as Study;
+    const form = buildSetupForm(setupValues(study, 'x'), precisionControls);
+    form.disable();
+    const { el } = await show(form);
+    expect(el.querySelectorAll('fieldset.material')).toHaveLength(2);
+    expect(materialsOf(form)?.getRawValue()).toEqual([LEVEL_1, LEVEL_2]);
+    expect(form.dirty).toBe(false);
+  });
 });
 
 const GLUCOSE: Analyte = {

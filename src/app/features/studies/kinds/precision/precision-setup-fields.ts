@@ -17,6 +17,8 @@ import { MAX_MATERIALS, type MaterialGroup, type MaterialsArray, PRECISION_KEYS,
 
 const KIND = 'precision';
 const ownGroup = (form: SetupGroup): OpenSettingsGroup => form.controls.settings as unknown as OpenSettingsGroup;
+/** Whether the group has the control, enabled or not (FormGroup.contains says false for a disabled one, so a signed study showed no materials). */
+const has = (group: OpenSettingsGroup, key: string): boolean => Object.hasOwn(group.controls, key);
 const materialsOf = (form: SetupGroup): MaterialsArray | null => {
   const control = ownGroup(form).get('materials');
   return control instanceof FormArray ? (control as MaterialsArray) : null;
@@ -64,7 +66,7 @@ export class PrecisionSetupFields {
   protected readonly settings = computed(() => this.form().controls.settings.controls);
   protected readonly ready = computed(() => {
     this.changes();
-    return PRECISION_KEYS.every((key) => ownGroup(this.form()).contains(key));
+    return PRECISION_KEYS.every((key) => has(ownGroup(this.form()), key));
   });
   protected readonly materials = computed<MaterialGroup[]>(() => {
     this.changes();
@@ -123,7 +125,7 @@ export class PrecisionSetupFields {
   /** Adds the own settings a new study lacks, and gives a new study the precision rules and planned count. */
   private join(form: SetupGroup): void {
     const settings = ownGroup(form);
-    const missing = Object.entries(precisionControls({})).filter(([key]) => !settings.contains(key));
+    const missing = Object.entries(precisionControls({})).filter(([key]) => !has(settings, key));
     for (const [key, control] of missing) {
       if (settings.disabled) control.disable({ emitEvent: false });
       settings.addControl(key, control as AbstractControl);
@@ -162,6 +164,6 @@ export class PrecisionSetupFields {
       if (given !== null && s.plannedSpecimens.value === given) s.plannedSpecimens.setValue(defaults.plannedSpecimens);
     }
     const settings = ownGroup(form);
-    for (const key of PRECISION_KEYS) if (settings.contains(key)) settings.removeControl(key);
+    for (const key of PRECISION_KEYS) if (has(settings, key)) settings.removeControl(key);
   }
 }
