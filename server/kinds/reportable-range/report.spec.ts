@@ -116,13 +116,13 @@ describe('the report of a reportable-range study', () => {
   it('draws the deviation at each level against its band, with the judgement and its numbers in words', () => {
     const picture = text.slice(text.indexOf('Deviation from linearity at each level, against the allowable nonlinearity'), text.indexOf('Results at each level'));
     const track = (l: RangeLevelResult, word: string): string =>
-      `${l.level} ${word} ${t(l.assigned!, 1)} mmol/L ${t(l.deviation, 2)} mmol/L (${t(l.deviationPercent!, 1)}%) ` +
-      `95% CI ${t(l.deviationCi![0], 2)} to ${t(l.deviationCi![1], 2)} allowable ±${t(l.goal, 2)} mmol/L`;
+      `${l.level} ${word} ${t(l.assigned!, 1)} mmol/L deviation ${t(l.deviation, 2)} mmol/L (${t(l.deviationPercent!, 1)}%) ` +
+      `95% CI ${t(l.deviationCi![0], 2)} to ${t(l.deviationCi![1], 2)} mmol/L allowable ±${t(l.goal, 2)} mmol/L`;
     expect(picture).toContain(track(top, 'Beyond the goal'));
     expect(picture).toContain(track(five, 'Within (CI reaches beyond)'));
     expect(picture).toContain(track(level(results, 'Level 3'), 'Within'));
-    expect(picture).toContain('Deviation: best fit − straight line (mmol/L)');
-    expect(picture).toContain('within within (CI reaches beyond) beyond the goal 95% CI');
+    expect(picture).toContain('Deviation of the best fit from the straight line (mmol/L)');
+    expect(picture).toContain('within within, its CI reaching beyond beyond the goal 95% CI');
     expect(picture).toContain(`Allowable nonlinearity 0.5 mmol/L or 1.5% of the level, whichever is larger (source: ${GOAL_SOURCE.split(' ').slice(0, 6).join(' ')}`);
   });
 
@@ -219,7 +219,7 @@ describe('a reportable-range report in other states', () => {
     expect(text).toContain('The straight line fits best: no higher-degree top coefficient differs from 0 at α = 0.05, so the deviation from linearity is 0 at every level.');
     expect(text).toContain('result level mean straight line allowable nonlinearity around the straight line');
     expect(text).not.toContain('mean of a level beyond the goal');
-    expect(text).toContain('Level 7 Within 32.0 mmol/L 0.00 mmol/L (0.0%) allowable ±0.50 mmol/L');
+    expect(text).toContain('Level 7 Within 32.0 mmol/L deviation 0.00 mmol/L (0.0%) no CI: the straight line fits best allowable ±0.50 mmol/L');
     expect(text).toContain('CIs of the deviations none: the straight line fits best (no resampling)');
     await expectLaidOut(report);
   });

@@ -1,7 +1,7 @@
 import { RangeSettings, type RangeLevel } from '../../../shared/kinds/reportable-range/meta';
 import {
-  bestFitSentence, claimText, designRows, fitRows, givenText, goalText, levelHeadings, levelRows, rangeFormat, rangeText, verdictSentence,
-  VERDICT_HEADLINES, withinWord, type RangeFormat,
+  bestFitSentence, claimText, designRows, fitRows, givenText, goalCaption, goalText, levelHeadings, levelRows, rangeFormat, rangeText, trackLegend, trackWords, verdictSentence,
+  VERDICT_HEADLINES, type RangeFormat,
 } from '../../../shared/kinds/reportable-range/words';
 import type { RangeLevelResult, RangeResult } from '../../../shared/stats/reportable-range-types';
 import { levelLabel, withUnit } from '../../../shared/types/findings-numbers';
@@ -207,35 +207,17 @@ function linearitySection(layout: Layout, report: StudyReport, results: RangeRes
 /** The deviation picture's tracks: one per level, in the cells of the level table. */
 function deviationPicture(results: RangeResult, f: RangeFormat, source: string): DeviationPicture {
   const levels = results.levels ?? [];
-  const rows = levelRows(results, f);
-  const h = levelHeadings(results, f);
-  const ciLabel = `${levelLabel(results.confidenceLevel ?? 0.95)} CI`;
-  const unit = (text: string): string => withUnit(text, f.unit);
+  const words = trackWords(results, f);
+  const legend = trackLegend(f);
   const tracks: DeviationTrack[] = levels.map((l, k) => ({
-    name: l.level,
-    at: l.assigned !== null ? unit(rows[k].x) : rows[k].x,
-    deviation: l.deviation,
-    ci: l.deviationCi,
-    goal: l.goal,
-    mark: !l.within ? 'open' : l.ciBeyondGoal ? 'half' : 'filled',
-    word: rows[k].within,
-    lines: [
-      `${unit(rows[k].deviation)} (${rows[k].deviationPercent})`,
-      ...(l.deviationCi ? [`${ciLabel} ${rows[k].ci}`] : []),
-      `allowable ${unit(rows[k].goal)}`,
-    ],
+    name: l.level, at: words[k].at, deviation: l.deviation, ci: l.deviationCi, goal: l.goal, mark: words[k].mark, word: words[k].word, lines: words[k].lines,
   }));
   return {
     tracks,
-    axisTitle: `${h.deviation.replace(/ \(.*\)$/, '')}: best fit − straight line${f.unit ? ` (${f.unit})` : ''}`,
+    axisTitle: legend.axis,
     decimals: f.stat,
-    legend: {
-      filled: withinWord({ within: true, ciBeyondGoal: false }).toLowerCase(),
-      half: withinWord({ within: true, ciBeyondGoal: true }).toLowerCase().replace('ci', 'CI'),
-      open: withinWord({ within: false, ciBeyondGoal: false }).toLowerCase(),
-      ci: ciLabel,
-    },
-    bandCaption: `Allowable nonlinearity ${goalText(results.goal, f)}${source ? ` (source: ${source})` : ' (no source given)'}`,
+    legend: { filled: legend.filled, half: legend.half, open: legend.open, ci: `${levelLabel(results.confidenceLevel ?? 0.95)} CI` },
+    bandCaption: goalCaption({ ...results.goal, source }, f),
   };
 }
 

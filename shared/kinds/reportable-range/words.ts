@@ -190,3 +190,61 @@ export function designRows(r: RangeResult, f: RangeFormat): [string, string][] {
     ['Engine version', r.engine?.version ?? NOT_AVAILABLE],
   ];
 }
+
+/** How a level's deviation is marked in the deviation picture: filled within, half-filled within with a CI beyond, open beyond. */
+export type DeviationMark = 'filled' | 'half' | 'open';
+
+export function deviationMark(l: Pick<RangeLevelResult, 'within' | 'ciBeyondGoal'>): DeviationMark {
+  return !l.within ? 'open' : l.ciBeyondGoal ? 'half' : 'filled';
+}
+
+/** What the deviation picture says beside one level's track (the Findings panel and the PDF alike). */
+export interface TrackWords {
+  /** The level's x in words: "12.30 mmol/L", or "fraction 0.125". */
+  at: string;
+  mark: DeviationMark;
+  /** The judgement as the level table says it. */
+  word: string;
+  /** A line each: the deviation (and %), its CI (or why there is none), the allowable nonlinearity there. */
+  lines: string[];
+}
+
+/**
+ * The words beside each level's track, in order of x. `narrowNote`, when given, is added to the CI of a level whose CI
+ * is narrower than one reporting step (`resolution.limitedEstimates`).
+ */
+export function trackWords(r: Pick<RangeResult, 'levels' | 'confidenceLevel' | 'resolution'>, f: RangeFormat, narrowNote?: string): TrackWords[] {
+  const confidence = levelLabel(r.confidenceLevel ?? 0.95);
+  const narrow = new Set(r.resolution?.limitedEstimates ?? []);
+  const rows = levelRows(r, f);
+  return (r.levels ?? []).map((l, i) => {
+    const row = rows[i];
+    const ci = l.deviationCi ? `${confidence} CI ${withUnit(row.ci, f.unit)}` : 'no CI: the straight line fits best';
+    return {
+      at: l.assigned !== null && l.assigned !== undefined ? withUnit(row.x, f.unit) : `fraction ${row.x}`,
+      mark: deviationMark(l),
+      word: row.within,
+      lines: [
+        `deviation ${withUnit(row.deviation, f.unit)} (${row.deviationPercent})`,
+        narrowNote && narrow.has(`levels.${i}.deviationCi`) ? `${ci}; ${narrowNote}` : ci,
+        `allowable ${withUnit(row.goal, f.unit)}`,
+      ],
+    };
+  });
+}
+
+/** The picture's legend words, one per mark, and its axis title. */
+export function trackLegend(f: RangeFormat): Record<DeviationMark, string> & { axis: string } {
+  return {
+    filled: 'within',
+    half: 'within, its CI reaching beyond',
+    open: 'beyond the goal',
+    axis: `Deviation of the best fit from the straight line${f.unit ? ` (${f.unit})` : ''}`,
+  };
+}
+
+/** The band's caption: "Allowable nonlinearity 0.50 mmol/L or 1.5% of the level, whichever is larger (source: …)". */
+export function goalCaption(goal: RangeResult['goal'] | null | undefined, f: RangeFormat): string {
+  const source = goal?.source?.trim() ?? '';
+  return `Allowable nonlinearity ${goalText(goal, f)}${source ? ` (source: ${source})` : ' (no source given)'}`;
+}

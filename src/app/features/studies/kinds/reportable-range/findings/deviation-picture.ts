@@ -1,7 +1,7 @@
-import { goalText, levelRows, xText, type RangeFormat } from '../../../../../../../shared/kinds/reportable-range/words';
+import { goalCaption, trackLegend, trackWords, type DeviationMark, type RangeFormat } from '../../../../../../../shared/kinds/reportable-range/words';
 import type { Interval } from '../../../../../../../shared/stats/confidence-interval';
 import type { RangeResult } from '../../../../../../../shared/stats/reportable-range-types';
-import { formatNumber, levelLabel, withUnit } from '../../../../../../../shared/types/findings-numbers';
+import { formatNumber, levelLabel } from '../../../../../../../shared/types/findings-numbers';
 import { niceAxis } from '../../../../../../../shared/types/plot-axes';
 import { NARROW_CI_SHORT } from '../../../../../../../shared/types/resolution-words';
 
@@ -14,7 +14,7 @@ import { NARROW_CI_SHORT } from '../../../../../../../shared/types/resolution-wo
  * number is the engine's (the deviation, its CI, the goal at the level, within), written by the study's words
  * (shared/kinds/reportable-range/words.ts).
  */
-export type DeviationMark = 'filled' | 'half' | 'open';
+export type { DeviationMark } from '../../../../../../../shared/kinds/reportable-range/words';
 
 export interface DeviationTrack {
   key: string;
@@ -48,6 +48,8 @@ export interface DeviationPicture {
   axis: DeviationAxis;
   /** "95%" */
   confidence: string;
+  /** The words of the three marks (shared/kinds/reportable-range/words.ts trackLegend). */
+  legend: Record<DeviationMark, string>;
   /** "Allowable nonlinearity 0.50 mmol/L or 3% of the level, whichever is larger (source: …)". */
   bandCaption: string;
 }
@@ -55,30 +57,20 @@ export interface DeviationPicture {
 /** The picture of a result's levels, in order of x. */
 export function deviationPicture(r: RangeResult, f: RangeFormat): DeviationPicture {
   const confidence = levelLabel(r.confidenceLevel ?? 0.95);
-  const rows = levelRows(r, f);
-  const narrow = new Set(r.resolution?.limitedEstimates ?? []);
+  const words = trackWords(r, f, NARROW_CI_SHORT);
   const tracks = r.levels.map((l, i): DeviationTrack => {
-    const row = rows[i];
-    const mark: DeviationMark = !l.within ? 'open' : l.ciBeyondGoal ? 'half' : 'filled';
-    const ciText = l.deviationCi ? `${confidence} CI ${withUnit(row.ci, f.unit)}` : 'no CI: the straight line fits best';
-    const lines = [
-      `deviation ${withUnit(row.deviation, f.unit)} (${row.deviationPercent})`,
-      narrow.has(`levels.${i}.deviationCi`) ? `${ciText}; ${NARROW_CI_SHORT}` : ciText,
-      `allowable ${withUnit(row.goal, f.unit)}`,
-    ];
-    const x = r.basis === 'fraction' ? `fraction ${xText(l, f)}` : withUnit(xText(l, f), f.unit);
+    const w = words[i];
     return {
-      key: `levels.${i}`, level: l.level, x, deviation: l.deviation, ci: l.deviationCi, goal: l.goal, within: l.within, mark, word: row.within, lines,
-      summary: `${l.level} (${x}): ${lines.join(', ')}. ${row.within}.`,
+      key: `levels.${i}`, level: l.level, x: w.at, deviation: l.deviation, ci: l.deviationCi, goal: l.goal, within: l.within, mark: w.mark, word: w.word,
+      lines: w.lines, summary: `${l.level} (${w.at}): ${w.lines.join(', ')}. ${w.word}.`,
     };
   });
-  const source = r.goal.source?.trim() ?? '';
-  const stated = goalText(r.goal, f);
   return {
     tracks,
     axis: deviationAxis(tracks, f),
     confidence,
-    bandCaption: `Allowable nonlinearity ${stated}${source ? ` (source: ${source})` : ' (no source given)'}`,
+    legend: trackLegend(f),
+    bandCaption: goalCaption(r.goal, f),
   };
 }
 
@@ -110,6 +102,6 @@ function deviationAxis(tracks: readonly DeviationTrack[], f: RangeFormat): Devia
   return {
     min: nice.min, max: nice.max, ticks: nice.ticks,
     labels: nice.ticks.map((t) => formatNumber(t, nice.decimals)),
-    title: f.unit ? `Deviation of the best fit from the straight line (${f.unit})` : 'Deviation of the best fit from the straight line',
+    title: trackLegend(f).axis,
   };
 }

@@ -79,9 +79,9 @@ const LEFT_HALF = 'M0,-6.5 L0,6.5 L-6.5,0 Z';
         </div>
       </div>
       <figcaption class="legend" data-testid="deviation-legend">
-        <span class="key"><svg width="16" height="16" aria-hidden="true"><path transform="translate(8 8) scale(0.85)" [attr.d]="diamond" class="filled" /></svg>within</span>
-        <span class="key"><svg width="16" height="16" aria-hidden="true"><g transform="translate(8 8) scale(0.85)"><path [attr.d]="diamond" fill="#ffffff" /><path [attr.d]="leftHalf" class="half" /><path [attr.d]="diamond" class="outline" fill="none" /></g></svg>within, its CI reaching beyond</span>
-        <span class="key"><svg width="16" height="16" aria-hidden="true"><path transform="translate(8 8) scale(0.85)" [attr.d]="diamond" class="outline" fill="#ffffff" /></svg>beyond the goal</span>
+        <span class="key"><svg width="16" height="16" aria-hidden="true"><path transform="translate(8 8) scale(0.85)" [attr.d]="diamond" class="filled" /></svg>{{ picture().legend.filled }}</span>
+        <span class="key"><svg width="16" height="16" aria-hidden="true"><g transform="translate(8 8) scale(0.85)"><path [attr.d]="diamond" fill="#ffffff" /><path [attr.d]="leftHalf" class="half" /><path [attr.d]="diamond" class="outline" fill="none" /></g></svg>{{ picture().legend.half }}</span>
+        <span class="key"><svg width="16" height="16" aria-hidden="true"><path transform="translate(8 8) scale(0.85)" [attr.d]="diamond" class="outline" fill="#ffffff" /></svg>{{ picture().legend.open }}</span>
         <span class="key"><svg width="18" height="16" aria-hidden="true"><line class="ci" x1="2" x2="16" y1="8" y2="8" /><line class="cap" x1="2" x2="2" y1="4" y2="12" /><line class="cap" x1="16" x2="16" y1="4" y2="12" /></svg>{{ picture().confidence }} CI</span>
         <span class="key band-key" data-testid="band-caption"><svg width="18" height="16" aria-hidden="true"><rect x="1" y="3" width="16" height="10" [attr.fill]="'url(#' + hatch + ')'" /><line class="band-edge" x1="1" x2="1" y1="3" y2="13" /><line class="band-edge" x1="17" x2="17" y1="3" y2="13" /></svg>{{ picture().bandCaption }}</span>
       </figcaption>
