@@ -1,6 +1,8 @@
 import { percentileInterval } from './confidence-interval';
 import { CAUTION } from './comparison-types';
+import { RANGE_LEVELS } from '../kinds/reportable-range/meta';
 import { cochranC } from './cochran-c';
+import { allowableBiasAt } from './decision-levels';
 import { engineInfo } from './engine';
 import { jsonClean } from './json-clean';
 import { magnitudeProblem } from './magnitude';
@@ -10,13 +12,11 @@ import { narrowerThanStep, resolutionStep } from './resolution';
 import { resolveRangeOptions, type ResolvedLevel, type ResolvedRangeOptions } from './reportable-range-options';
 import type { RangeFit, RangeLevelResult, RangeOptions, RangeResult, RangeRow, RangeVerdict } from './reportable-range-types';
 import { streamFor } from './rng';
-import { neumaierSum } from './summation';
+import { mean as meanOf, sampleSd, sampleVariance } from './summation';
 import { decimalPlace } from './precision';
 import { givenText, rangeFormat, verdictSentence } from '../kinds/reportable-range/words';
 import { withUnit } from '../types/findings-numbers';
 
-/** CLSI EP06 practice (DOMAIN.md "Reportable range", from memory): at least 5 levels. */
-const FEWEST_LEVELS = 5;
 /** Cochran's test of the replicate scatter at ISO 5725-2's "outlier" level (from memory). */
 const SCATTER_ALPHA = 0.01;
 /** The highest degree fitted (CLSI EP06 practice: 1, 2 and 3). */
@@ -112,11 +112,11 @@ export function analyzeReportableRange(rows: RangeRow[], options: RangeOptions, 
     const lin = evaluatePolynomial(line, d.level.x);
     const fit = evaluatePolynomial(best, d.level.x);
     const deviation = best === line ? 0 : fit - lin;
-    const goal = Math.max(o.goalAbsolute ?? 0, o.goalPercent !== null ? (o.goalPercent / 100) * Math.abs(lin) : 0);
-    const mean = neumaierSum(d.values) / d.values.length;
+    const goal = allowableBiasAt(lin, o.goalAbsolute, o.goalPercent)!;
+    const mean = meanOf(d.values);
     return {
       level: d.level.name, x: d.level.x, assigned: d.level.assigned, fraction: d.level.fraction,
-      values: d.values, n: d.values.length, mean, sd: sampleSd(d.values, mean),
+      values: d.values, n: d.values.length, mean, sd: d.values.length >= 2 ? sampleSd(d.values) : null,
       fitted: fit, linear: lin, deviation,
       deviationPercent: lin !== 0 ? (100 * deviation) / Math.abs(lin) : null,
       deviationCi: null, goal,
@@ -181,11 +181,6 @@ export function analyzeReportableRange(rows: RangeRow[], options: RangeOptions, 
   return jsonClean(result);
 }
 
-function sampleSd(values: number[], mean: number): number | null {
-  if (values.length < 2) return null;
-  return Math.sqrt(neumaierSum(values.map((v) => (v - mean) ** 2)) / (values.length - 1));
-}
-
 /**
  * Percentile CIs of the deviation at each level (step 4 of analyzeReportableRange). Memory: one Float64Array of B
  * per level.
@@ -241,10 +236,7 @@ function claimCoverage(range: RangeResult['verifiedRange'], o: ResolvedRangeOpti
 
 function scatterFlag(levels: LevelData[]): RangeResult['scatterFlag'] {
   const withReplicates = levels.filter((d) => d.values.length >= 2);
-  const variances = withReplicates.map((d) => {
-    const m = neumaierSum(d.values) / d.values.length;
-    return neumaierSum(d.values.map((v) => (v - m) ** 2)) / (d.values.length - 1);
-  });
+  const variances = withReplicates.map((d) => sampleVariance(d.values));
   const n = Math.min(...withReplicates.map((d) => d.values.length));
   const test = cochranC(variances, n, SCATTER_ALPHA);
   return test && test.significant ? { level: withReplicates[test.index].level.name, c: test.c, critical: test.critical } : null;
@@ -254,8 +246,8 @@ function addWarnings(
   warnings: string[], levels: LevelData[], results: RangeLevelResult[], fitted: PolynomialFit[], line: PolynomialFit,
   best: PolynomialFit, o: ResolvedRangeOptions,
 ): void {
-  if (levels.length < FEWEST_LEVELS) {
-    warnings.push(`Only ${levels.length} levels have results; CLSI EP06 practice asks for ${FEWEST_LEVELS} to 11 across the claimed interval.`);
+  if (levels.length < RANGE_LEVELS.fewest) {
+    warnings.push(`Only ${levels.length} levels have results; CLSI EP06 practice asks for ${RANGE_LEVELS.fewest} to ${RANGE_LEVELS.most} across the claimed interval.`);
   }
   const short = results.filter((r) => r.n < o.replicates);
   if (short.length) {

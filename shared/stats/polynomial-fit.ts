@@ -34,6 +34,13 @@ export interface PolynomialFit {
   zCoefficients: number[];
 }
 
+/** y = b0 + b1·x + … at x on the raw coefficients (RangeFit.coefficients), by Horner's rule: for drawing a fit. */
+export function polynomialAt(coefficients: readonly number[], x: number): number {
+  let y = 0;
+  for (let i = coefficients.length - 1; i >= 0; i--) y = y * x + coefficients[i];
+  return y;
+}
+
 /** The fit's value at x, evaluated in z by Horner's rule. */
 export function evaluatePolynomial(fit: { centre: number; scale: number; zCoefficients: ArrayLike<number> }, x: number): number {
   const z = (x - fit.centre) / fit.scale;

@@ -1,5 +1,6 @@
 import { DEFAULT_RESAMPLES, MAX_RESAMPLES, MIN_RESAMPLES } from './bootstrap';
 import { decimalsOption, integerOption, isLevel, LEVEL_RULE, numberOption, OptionError, optionalNumber, seedOption } from './options';
+import { RANGE_LEVELS } from '../kinds/reportable-range/meta';
 import { roundSignificant } from './precision';
 import type { RangeBasis, RangeOptions } from './reportable-range-types';
 
@@ -28,8 +29,17 @@ export interface ResolvedRangeOptions {
 }
 
 /** CLSI EP06 practice (DOMAIN.md "Reportable range", from memory): 5 to 11 levels, 2 or 3 replicates each. */
-export const PLANNED_REPLICATES = 2;
-export const MOST_LEVELS = 11;
+const PLANNED_REPLICATES = 2;
+
+/**
+ * The value a mixture of the pools carries: poolLow + fraction·(poolHigh − poolLow), to 12 significant digits so
+ * 0.3 + 0.5·(36 − 0.3) is 18.15, not 18.150000000000002; null unless all three are given. The engine's x, the
+ * Setup form's hint and the report's plan all take it from here.
+ */
+export function mixtureValue(fraction: number | null | undefined, poolLow: number | null | undefined, poolHigh: number | null | undefined): number | null {
+  if (fraction === null || fraction === undefined || poolLow === null || poolLow === undefined || poolHigh === null || poolHigh === undefined) return null;
+  return roundSignificant(poolLow + fraction * (poolHigh - poolLow), 12);
+}
 
 /**
  * Checks the settings of a reportable-range study. Level names are compared trimmed and without regard to case;
@@ -42,7 +52,7 @@ export function resolveRangeOptions(o: RangeOptions): ResolvedRangeOptions {
   if (!o || typeof o !== 'object' || !Array.isArray(o.levels) || o.levels.length === 0) {
     throw new OptionError('levels', 'must list the levels with their assigned values or mixing fractions');
   }
-  if (o.levels.length > MOST_LEVELS) throw new OptionError('levels', `must list at most ${MOST_LEVELS} levels`);
+  if (o.levels.length > RANGE_LEVELS.most) throw new OptionError('levels', `must list at most ${RANGE_LEVELS.most} levels`);
   const poolLow = optionalNumber('poolLow', o.poolLow, () => true, 'a number');
   const poolHigh = optionalNumber('poolHigh', o.poolHigh, () => true, 'a number');
   if ((poolLow === null) !== (poolHigh === null)) throw new OptionError('poolHigh', 'and poolLow must be given both or neither');
@@ -66,8 +76,7 @@ export function resolveRangeOptions(o: RangeOptions): ResolvedRangeOptions {
   }
   const levels: ResolvedLevel[] = given.map((l) => {
     if (basis === 'fraction') return { name: l.name, x: l.fraction!, assigned: null, fraction: l.fraction };
-    // a mixture's value, rounded to 12 significant digits so 0.3 + 0.5·(36 − 0.3) is 18.15, not 18.150000000000002
-    const assigned = l.assigned ?? roundSignificant(poolLow! + l.fraction! * (poolHigh! - poolLow!), 12);
+    const assigned = l.assigned ?? mixtureValue(l.fraction, poolLow, poolHigh)!;
     return { name: l.name, x: assigned, assigned, fraction: l.fraction };
   });
   const goalAbsolute = optionalNumber('allowableNonlinearity', o.allowableNonlinearity, (v) => v > 0, 'a number above 0');

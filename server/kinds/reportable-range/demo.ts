@@ -1,8 +1,6 @@
 import type { DemoStudy } from '../kind';
 import { RANGE_DEMO_ROWS, RANGE_DEMO_SETTINGS } from './demo-data';
 
-export { rangeResults } from './demo-data';
-
 /**
  * The demo laboratory's reportable-range study on the new chemistry line (an invented scenario): nine mixtures
  * of a low and a high glucose pool, two replicates each. The response bends down above about 22 mmol/L, so the

@@ -1,5 +1,5 @@
 import { sql } from 'drizzle-orm';
-import { RANGE_RULES, RangeSettings, reportableRangeMeta } from '../../../shared/kinds/reportable-range/meta';
+import { RANGE_LEVELS, RANGE_RULES, RangeSettings, reportableRangeMeta } from '../../../shared/kinds/reportable-range/meta';
 import { parseKindSettings, type KindSettings } from '../../../shared/kinds/settings';
 import { analyzeReportableRange } from '../../../shared/stats/analyze-reportable-range';
 import type { RangeResult, RangeRow } from '../../../shared/stats/reportable-range-types';
@@ -10,8 +10,6 @@ import { rangeSheet } from './results-sheet';
 
 const isObject = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
 
-/** The fewest levels a submitted study may have (CLSI EP06 practice: 5 to 11; DOMAIN.md "Reportable range"). */
-const FEWEST_LEVELS = 5;
 
 /** Reportable range on the server: linearity and recovery across the claimed measuring interval (CLSI EP06 practice). */
 export const reportableRangeKind: ServerKind = {
@@ -36,7 +34,7 @@ export const reportableRangeKind: ServerKind = {
     const own = RangeSettings.safeParse(s);
     if (!own.success) return [{ path: 'settings.levels', message: 'Correct the levels in Setup' }];
     const problems: { path: string; message: string }[] = [];
-    if (own.data.levels.length < FEWEST_LEVELS) problems.push({ path: 'settings.levels', message: `Name at least ${FEWEST_LEVELS} levels (CLSI EP06 practice: 5 to 11)` });
+    if (own.data.levels.length < RANGE_LEVELS.fewest) problems.push({ path: 'settings.levels', message: `Name at least ${RANGE_LEVELS.fewest} levels (CLSI EP06 practice: ${RANGE_LEVELS.fewest} to ${RANGE_LEVELS.most})` });
     if (own.data.allowableNonlinearity === null && own.data.allowableNonlinearityPercent === null) {
       problems.push({ path: 'settings.allowableNonlinearity', message: 'Give the allowable nonlinearity (in the unit or in %)' });
     }

@@ -1,4 +1,5 @@
 import { allowableBiasAt } from '../../../shared/stats/decision-levels';
+import { polynomialAt } from '../../../shared/stats/polynomial-fit';
 import type { RangeFit, RangeResult } from '../../../shared/stats/reportable-range-types';
 import { clipped, dataWidth, drawAxes, makeFrame, type Frame } from '../../reports/plots/frame';
 import { area, dataLine, legend, legendRows, points, type LegendItem } from '../../reports/plots/marks';
@@ -17,13 +18,6 @@ export interface RangePlotInput {
   bandLabel: string | null;
   /** The legend's words for a level whose deviation lies beyond the goal. */
   beyondLabel: string;
-}
-
-/** A polynomial y = b0 + b1·x + … on the raw x (RangeFit.coefficients), by Horner's rule. */
-export function polynomialAt(fit: Pick<RangeFit, 'coefficients'>, x: number): number {
-  let y = 0;
-  for (let i = fit.coefficients.length - 1; i >= 0; i--) y = y * x + fit.coefficients[i];
-  return y;
 }
 
 /** How near the frame, in points, a value may stand: a level mean's ring and its replicates beside it stay whole. */
@@ -77,11 +71,11 @@ export function rangePlot(doc: PDFKit.PDFDocument, box: Box, results: RangeResul
   const hi = xs.length ? Math.max(...xs) : 1;
   const curve = (fit: RangeFit): [number, number][] => Array.from({ length: SAMPLES + 1 }, (_, k) => {
     const x = lo + ((hi - lo) * k) / SAMPLES;
-    return [x, polynomialAt(fit, x)];
+    return [x, polynomialAt(fit.coefficients, x)];
   });
   const band = line && hasGoal ? Array.from({ length: SAMPLES + 1 }, (_, k) => {
     const x = lo + ((hi - lo) * k) / SAMPLES;
-    const y = polynomialAt(line, x);
+    const y = polynomialAt(line.coefficients, x);
     const half = allowableBiasAt(y, goal.absolute, goal.percent) ?? 0;
     return { x, lower: y - half, upper: y + half };
   }) : [];
@@ -98,7 +92,7 @@ export function rangePlot(doc: PDFKit.PDFDocument, box: Box, results: RangeResul
   const perPoint = (xAxis.max - xAxis.min) / frame.width;
   clipped(frame, () => {
     if (band.length) area(frame, band, { fill: COLOR.accent, edge: COLOR.accent, opacity: 0.16 });
-    if (line) dataLine(frame, [lo, polynomialAt(line, lo)], [hi, polynomialAt(line, hi)], { color: COLOR.warm, width: 1.2 });
+    if (line) dataLine(frame, [lo, polynomialAt(line.coefficients, lo)], [hi, polynomialAt(line.coefficients, hi)], { color: COLOR.warm, width: 1.2 });
     if (best) {
       const c = curve(best);
       doc.save().lineWidth(1.1).strokeColor(COLOR.ink).dash(3, { space: 2 });

@@ -3,6 +3,7 @@ import {
   bestFitSentence, claimText, designRows, fitRows, givenText, goalCaption, goalText, levelHeadings, levelRows, rangeFormat, rangeText, trackLegend, trackWords, verdictSentence,
   VERDICT_HEADLINES, type RangeFormat,
 } from '../../../shared/kinds/reportable-range/words';
+import { mixtureValue } from '../../../shared/stats/reportable-range-options';
 import type { RangeLevelResult, RangeResult } from '../../../shared/stats/reportable-range-types';
 import { levelLabel, withUnit } from '../../../shared/types/findings-numbers';
 import { plural } from '../../../shared/types/plural';
@@ -142,8 +143,8 @@ function ownSettings(report: StudyReport): RangeSettings {
 function plannedValue(l: RangeLevel, own: RangeSettings, f: RangeFormat): [string, string] {
   if (l.assigned !== null) return [givenText(l.assigned, f), NOT_AVAILABLE];
   const fraction = l.fraction === null ? NOT_AVAILABLE : String(Number(l.fraction.toPrecision(6)));
-  if (l.fraction === null || own.poolLow === null || own.poolHigh === null) return [NOT_AVAILABLE, fraction];
-  const pooled = Number((own.poolLow + l.fraction * (own.poolHigh - own.poolLow)).toPrecision(12));
+  const pooled = mixtureValue(l.fraction, own.poolLow, own.poolHigh);
+  if (pooled === null) return [NOT_AVAILABLE, fraction];
   return [`${givenText(pooled, f)} (from the pools)`, fraction];
 }
 

@@ -1,6 +1,9 @@
 import * as z from 'zod';
 import type { KindMeta } from '../kind';
 
+/** CLSI EP06 practice (DOMAIN.md "Reportable range", from memory): 5 to 11 levels; a study is submitted with at least the fewest. */
+export const RANGE_LEVELS = { fewest: 5, most: 11 } as const;
+
 const num = (what: string) => z.number({ error: `${what} must be a number` }).finite(`${what} must be a finite number`);
 
 /**
@@ -17,7 +20,7 @@ export type RangeLevel = z.infer<typeof RangeLevel>;
 /** The settings only a reportable-range study has (lots, decimals, resamples and the seed every study carries). */
 export const RangeSettings = z.object({
   // A new study may start without levels; submission needs at least 5 (server/kinds/reportable-range).
-  levels: z.array(RangeLevel).max(11, 'At most 11 levels')
+  levels: z.array(RangeLevel).max(RANGE_LEVELS.most, `At most ${RANGE_LEVELS.most} levels`)
     .refine((ls) => new Set(ls.map((l) => l.name.trim().toLowerCase())).size === ls.length, 'Give each level its own name')
     .default([]),
   /** The assigned values of the low and the high pool, when levels are given as mixing fractions (both or neither). */

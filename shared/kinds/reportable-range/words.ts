@@ -194,7 +194,7 @@ export function designRows(r: RangeResult, f: RangeFormat): [string, string][] {
 /** How a level's deviation is marked in the deviation picture: filled within, half-filled within with a CI beyond, open beyond. */
 export type DeviationMark = 'filled' | 'half' | 'open';
 
-export function deviationMark(l: Pick<RangeLevelResult, 'within' | 'ciBeyondGoal'>): DeviationMark {
+function deviationMark(l: Pick<RangeLevelResult, 'within' | 'ciBeyondGoal'>): DeviationMark {
   return !l.within ? 'open' : l.ciBeyondGoal ? 'half' : 'filled';
 }
 

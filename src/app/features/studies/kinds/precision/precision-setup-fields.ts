@@ -1,24 +1,20 @@
-import { ChangeDetectionStrategy, Component, DestroyRef, computed, effect, inject, input, untracked } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
-import { AbstractControl, FormArray, ReactiveFormsModule } from '@angular/forms';
+import { FormArray, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { scan, startWith, switchMap } from 'rxjs';
-import { StudySettings } from '../../../../../../shared/schemas';
 import { FieldErrorPipe } from '../../../../ui/field-error';
 import type { StudyCatalog } from '../../api/catalog-api';
 import { IntervalMeasurementFields } from '../../intervals/setup/measurement-fields';
-import type { OpenSettingsGroup, SetupGroup } from '../../setup/setup-form-group';
+import { hasControl as has, joinKindFields, ownSettings as ownGroup } from '../../setup/kind-fields';
+import type { SetupGroup } from '../../setup/setup-form-group';
 import { PRECISION_RULES } from './guidance';
 import { MAX_MATERIALS, type MaterialGroup, type MaterialsArray, PRECISION_KEYS, materialGroup, precisionControls } from './settings-controls';
 
-const KIND = 'precision';
-const ownGroup = (form: SetupGroup): OpenSettingsGroup => form.controls.settings as unknown as OpenSettingsGroup;
-/** Whether the group has the control, enabled or not (FormGroup.contains says false for a disabled one, so a signed study showed no materials). */
-const has = (group: OpenSettingsGroup, key: string): boolean => Object.hasOwn(group.controls, key);
 const materialsOf = (form: SetupGroup): MaterialsArray | null => {
   const control = ownGroup(form).get('materials');
   return control instanceof FormArray ? (control as MaterialsArray) : null;
@@ -86,20 +82,9 @@ export class PrecisionSetupFields {
     this.changes();
     return this.form().controls.settings.enabled;
   });
-  /** The planned count the design gave last, so a count the user typed is left alone. */
-  private lastPlanned: number | null = null;
 
   constructor() {
-    effect(() => {
-      const form = this.form();
-      untracked(() => this.join(form));
-    });
-    effect((onCleanup) => {
-      const form = this.form();
-      const sub = form.controls.settings.valueChanges.subscribe(() => this.followDesign(form));
-      onCleanup(() => sub.unsubscribe());
-    });
-    inject(DestroyRef).onDestroy(() => this.leave(this.form()));
+    joinKindFields(this.form, { kind: 'precision', controls: () => precisionControls({}), rules: PRECISION_RULES, planned: plannedOf });
   }
 
   /** Claim fields say what the number is: "Repeatability claim (SD, mmol/L)" or "(CV %)". */
@@ -120,50 +105,5 @@ export class PrecisionSetupFields {
     if (!materials || materials.disabled || materials.length <= 1) return;
     materials.markAsDirty();
     materials.removeAt(index);
-  }
-
-  /** Adds the own settings a new study lacks, and gives a new study the precision rules and planned count. */
-  private join(form: SetupGroup): void {
-    const settings = ownGroup(form);
-    const missing = Object.entries(precisionControls({})).filter(([key]) => !has(settings, key));
-    for (const [key, control] of missing) {
-      if (settings.disabled) control.disable({ emitEvent: false });
-      settings.addControl(key, control as AbstractControl);
-    }
-    this.lastPlanned = plannedOf(form);
-    if (!form.controls.kind.enabled) return;
-    const s = form.controls.settings.controls;
-    const defaults = StudySettings.parse({});
-    if (s.outlierRule.value === defaults.outlierRule) s.outlierRule.setValue(PRECISION_RULES.outlierRule);
-    if (s.acceptanceRule.value === defaults.acceptanceRule) s.acceptanceRule.setValue(PRECISION_RULES.acceptanceRule);
-    if (s.plannedSpecimens.value === null) s.plannedSpecimens.setValue(this.lastPlanned);
-  }
-
-  /**
-   * The planned count follows days × replicates × materials when the user changes them, while it holds what the design
-   * gave before (or nothing); a count the user typed stays. A form put back to a saved study (pristine) only takes note.
-   */
-  private followDesign(form: SetupGroup): void {
-    const planned = plannedOf(form);
-    const before = this.lastPlanned;
-    this.lastPlanned = planned;
-    const control = form.controls.settings.controls.plannedSpecimens;
-    if (form.pristine || planned === null || planned === before || !control.enabled) return;
-    if (control.value === null || control.value === before) control.setValue(planned);
-  }
-
-  /** Another kind was chosen: the rules and count this kind gave go back to the defaults, and its own settings leave. */
-  private leave(form: SetupGroup): void {
-    if (form.controls.kind.value === KIND) return;
-    const given = this.lastPlanned;
-    if (form.controls.kind.enabled) {
-      const s = form.controls.settings.controls;
-      const defaults = StudySettings.parse({});
-      if (s.outlierRule.value === PRECISION_RULES.outlierRule) s.outlierRule.setValue(defaults.outlierRule);
-      if (s.acceptanceRule.value === PRECISION_RULES.acceptanceRule) s.acceptanceRule.setValue(defaults.acceptanceRule);
-      if (given !== null && s.plannedSpecimens.value === given) s.plannedSpecimens.setValue(defaults.plannedSpecimens);
-    }
-    const settings = ownGroup(form);
-    for (const key of PRECISION_KEYS) if (has(settings, key)) settings.removeControl(key);
   }
 }

@@ -31,11 +31,5 @@ export function rangeOwn(settings: object): RangeOwn {
   };
 }
 
-/**
- * A level's value from the pools, for the Setup form's hint and the plan: low + fraction × (high − low); null unless the
- * level is a fraction and both pools are given. The engine makes its own x from the settings; this only shows the design.
- */
-export function pooledValue(fraction: number | null, poolLow: number | null, poolHigh: number | null): number | null {
-  if (fraction === null || poolLow === null || poolHigh === null) return null;
-  return poolLow + fraction * (poolHigh - poolLow);
-}
+/** A level's value from the pools, for the Setup form's hint and the plan: the engine's own rule (null unless all three are given). */
+export { mixtureValue as pooledValue } from '../../../../../../shared/stats/reportable-range-options';

@@ -1,27 +1,23 @@
-import { ChangeDetectionStrategy, Component, DestroyRef, computed, effect, inject, input, untracked } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
-import { AbstractControl, FormArray, FormControl, ReactiveFormsModule } from '@angular/forms';
+import { FormArray, FormControl, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { scan, startWith, switchMap } from 'rxjs';
 import { formatNumber, withUnit } from '../../../../../../shared/types/findings-numbers';
-import { StudySettings } from '../../../../../../shared/schemas';
 import { FieldErrorPipe } from '../../../../ui/field-error';
 import type { StudyCatalog } from '../../api/catalog-api';
 import { IntervalMeasurementFields } from '../../intervals/setup/measurement-fields';
-import type { OpenSettingsGroup, SetupGroup } from '../../setup/setup-form-group';
+import { hasControl as has, joinKindFields, ownSettings as ownGroup } from '../../setup/kind-fields';
+import type { SetupGroup } from '../../setup/setup-form-group';
 import { RANGE_RULES } from './guidance';
 import { pooledValue } from './own-settings';
 import {
   type LevelGroup, type LevelsArray, MAX_LEVELS, MIN_LEVELS, RANGE_KEYS, evenFractions, levelGroup, levelName, rangeControls,
 } from './settings-controls';
 
-const KIND = 'reportable-range';
-const ownGroup = (form: SetupGroup): OpenSettingsGroup => form.controls.settings as unknown as OpenSettingsGroup;
-/** Whether the group has the control, enabled or not (FormGroup.contains says false for a disabled one). */
-const has = (group: OpenSettingsGroup, key: string): boolean => Object.hasOwn(group.controls, key);
 const levelsOf = (form: SetupGroup): LevelsArray | null => {
   const control = ownGroup(form).get('levels');
   return control instanceof FormArray ? (control as LevelsArray) : null;
@@ -118,20 +114,12 @@ export class RangeSetupFields {
     if (value === null) return '';
     return formatNumber(value, this.form().controls.settings.controls.decimals.value ?? 1);
   }
-  /** The planned count the design gave last, so a count the user typed is left alone. */
-  private lastPlanned: number | null = null;
 
   constructor() {
-    effect(() => {
-      const form = this.form();
-      untracked(() => this.join(form));
+    joinKindFields(this.form, {
+      kind: 'reportable-range', controls: () => rangeControls({}), rules: RANGE_RULES, planned: plannedOf,
+      joined: (form) => this.evenCount.setValue(Math.min(MAX_LEVELS, Math.max(MIN_LEVELS, levelsOf(form)?.length ?? MIN_LEVELS))),
     });
-    effect((onCleanup) => {
-      const form = this.form();
-      const sub = form.controls.settings.valueChanges.subscribe(() => this.followDesign(form));
-      onCleanup(() => sub.unsubscribe());
-    });
-    inject(DestroyRef).onDestroy(() => this.leave(this.form()));
   }
 
   protected addLevel(): void {
@@ -179,53 +167,5 @@ export class RangeSetupFields {
     let k = levels.length;
     while (taken.has(levelName(k).toLowerCase())) k++;
     return levelName(k);
-  }
-
-  /** Adds the own settings a new study lacks, and gives a new study the kind's rules and planned count. */
-  private join(form: SetupGroup): void {
-    const settings = ownGroup(form);
-    const missing = Object.entries(rangeControls({})).filter(([key]) => !has(settings, key));
-    for (const [key, control] of missing) {
-      if (settings.disabled) control.disable({ emitEvent: false });
-      settings.addControl(key, control as AbstractControl);
-    }
-    this.lastPlanned = plannedOf(form);
-    this.evenCount.setValue(Math.min(MAX_LEVELS, Math.max(MIN_LEVELS, levelsOf(form)?.length ?? MIN_LEVELS)));
-    if (!form.controls.kind.enabled) return;
-    const s = form.controls.settings.controls;
-    const defaults = StudySettings.parse({});
-    if (s.outlierRule.value === defaults.outlierRule) s.outlierRule.setValue(RANGE_RULES.outlierRule);
-    if (s.acceptanceRule.value === defaults.acceptanceRule) s.acceptanceRule.setValue(RANGE_RULES.acceptanceRule);
-    if (s.plannedSpecimens.value === null) s.plannedSpecimens.setValue(this.lastPlanned);
-  }
-
-  /**
-   * The planned count follows levels × replicates when the user changes them, while it holds what the design gave before
-   * (or nothing); a count the user typed stays. A form put back to a saved study (pristine) only takes note. While the
-   * replicates are empty (being retyped) the design gives no count, and the last one it gave is kept.
-   */
-  private followDesign(form: SetupGroup): void {
-    const planned = plannedOf(form);
-    if (planned === null) return;
-    const before = this.lastPlanned;
-    this.lastPlanned = planned;
-    const control = form.controls.settings.controls.plannedSpecimens;
-    if (form.pristine || planned === before || !control.enabled) return;
-    if (control.value === null || control.value === before) control.setValue(planned);
-  }
-
-  /** Another kind was chosen: the rules and count this kind gave go back to the defaults, and its own settings leave. */
-  private leave(form: SetupGroup): void {
-    if (form.controls.kind.value === KIND) return;
-    const given = this.lastPlanned;
-    if (form.controls.kind.enabled) {
-      const s = form.controls.settings.controls;
-      const defaults = StudySettings.parse({});
-      if (s.outlierRule.value === RANGE_RULES.outlierRule) s.outlierRule.setValue(defaults.outlierRule);
-      if (s.acceptanceRule.value === RANGE_RULES.acceptanceRule) s.acceptanceRule.setValue(defaults.acceptanceRule);
-      if (given !== null && s.plannedSpecimens.value === given) s.plannedSpecimens.setValue(defaults.plannedSpecimens);
-    }
-    const settings = ownGroup(form);
-    for (const key of RANGE_KEYS) if (has(settings, key)) settings.removeControl(key);
   }
 }

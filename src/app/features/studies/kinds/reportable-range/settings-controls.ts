@@ -1,11 +1,11 @@
 import { AbstractControl, FormArray, FormControl, FormGroup, ValidatorFn } from '@angular/forms';
-import { RangeLevel, RangeSettings } from '../../../../../../shared/kinds/reportable-range/meta';
+import { RANGE_LEVELS, RangeLevel, RangeSettings } from '../../../../../../shared/kinds/reportable-range/meta';
 import { settingsRule } from '../../setup/setup-form-group';
 import { rangeOwn } from './own-settings';
 
 /** The fewest levels a study is submitted with (the server's submission check) and the most the shared schema takes. */
-export const MIN_LEVELS = 5;
-export const MAX_LEVELS = 11;
+export const MIN_LEVELS = RANGE_LEVELS.fewest;
+export const MAX_LEVELS = RANGE_LEVELS.most;
 
 /** One level as its row of the levels table holds it (the two numbers may be empty; one of them is given). */
 export interface LevelValues {

@@ -1,5 +1,6 @@
 import { rangeFormat } from '../../../../../../../shared/kinds/reportable-range/words';
-import { curveXs, goalAt, polynomialAt, rangePlot } from './range-chart';
+import { polynomialAt } from '../../../../../../../shared/stats/polynomial-fit';
+import { curveXs, goalAt, rangePlot } from './range-chart';
 import { fractionRange, shortenedRange, straightRange } from './range-results.testing';
 
 const F = rangeFormat('mmol/L', 1);

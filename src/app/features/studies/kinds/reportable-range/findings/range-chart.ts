@@ -1,4 +1,6 @@
 import { goalText, percentText, statText, xText, type RangeFormat } from '../../../../../../../shared/kinds/reportable-range/words';
+import { allowableBiasAt } from '../../../../../../../shared/stats/decision-levels';
+import { polynomialAt } from '../../../../../../../shared/stats/polynomial-fit';
 import type { RangeResult } from '../../../../../../../shared/stats/reportable-range-types';
 import { formatNumber, withUnit } from '../../../../../../../shared/types/findings-numbers';
 import { plural } from '../../../../../../../shared/types/plural';
@@ -29,19 +31,10 @@ export interface RangePlot {
 /** How many steps the curves and the band are drawn in between the lowest and the highest level. */
 const STEPS = 64;
 
-/** y = b0 + b1·x + … at x (Horner). */
-export function polynomialAt(coefficients: readonly number[], x: number): number {
-  let y = 0;
-  for (let i = coefficients.length - 1; i >= 0; i--) y = y * x + coefficients[i];
-  return y;
-}
 
-/** The allowable nonlinearity at a straight-line value: the larger of the absolute goal and the % goal of |value| (null without a goal). */
+/** The allowable nonlinearity at a straight-line value, by the engine's rule (the larger of the absolute goal and the % goal of |value|; null without a goal). */
 export function goalAt(linear: number, goal: RangeResult['goal']): number | null {
-  const absolute = goal.absolute ?? null;
-  const percent = goal.percent === null || goal.percent === undefined ? null : (goal.percent / 100) * Math.abs(linear);
-  if (absolute === null && percent === null) return null;
-  return Math.max(absolute ?? 0, percent ?? 0);
+  return allowableBiasAt(linear, goal.absolute ?? null, goal.percent ?? null);
 }
 
 /** The x the curves are drawn at: even steps from the lowest to the highest level, and every level's own x. */
