@@ -74,6 +74,18 @@ describe('PrecisionSetupFields on a new study', () => {
     expect(form.controls.settings.controls.plannedSpecimens.value).toBe(60);
   });
 
+  it('keeps following the design when a number of it is cleared and typed again', async () => {
+    const form = newPrecisionForm();
+    await show(form);
+    const s = own(form);
+    expect(form.controls.settings.controls.plannedSpecimens.value).toBe(25);
+    form.markAsDirty();
+    s.get('replicates')!.setValue(null);
+    expect(form.controls.settings.controls.plannedSpecimens.value).toBe(25);
+    s.get('replicates')!.setValue(3);
+    expect(form.controls.settings.controls.plannedSpecimens.value).toBe(15);
+  });
+
   it("shows the shared schema's words under the field that has them", async () => {
     const form = newPrecisionForm();
     const { fixture, loader } = await show(form);
