@@ -19,6 +19,7 @@ import { controlCharacters } from './http/control-characters';
 import { ReadCache, withReadCache } from './http/read-cache';
 import { xsrfProtection } from './http/xsrf';
 import { MailService } from './mail/mail-service';
+import { releasesRoutes } from './releases/releases.routes';
 import { signoffRoutes } from './signoff/signoff.routes';
 import { specimensRoutes } from './specimens/specimens.routes';
 import { studiesRoutes } from './studies/studies.routes';
@@ -30,7 +31,7 @@ export interface CreatedApp { app: Express; ctx: AppContext; routes: RouteSpec[]
 export function apiRoutes(ctx: AppContext, passport: ReturnType<typeof configurePassport>): RouteSpec[] {
   return [
     ...healthRoutes(ctx), ...authRoutes(ctx, passport), ...adminRoutes(ctx), ...studiesRoutes(ctx), ...specimensRoutes(ctx), ...uploadsRoutes(ctx), ...analysesRoutes(ctx),
-    ...signoffRoutes(ctx), ...auditRoutes(ctx),
+    ...signoffRoutes(ctx), ...auditRoutes(ctx), ...releasesRoutes(ctx),
   ];
 }
 

@@ -2,6 +2,7 @@ import type { Server } from 'node:http';
 import { createApp } from './app';
 import { scheduleCheckpoints } from './audit/checkpoints';
 import { loadConfig, type Config } from './config';
+import { scheduleDueReminders } from './releases/due.service';
 import { openDatabase } from './db/client';
 import { logFailure } from './log';
 import { backfillInputHashes } from './specimens/input-hash';
@@ -15,6 +16,7 @@ export async function listen(config: Config): Promise<RunningApp> {
   ctx.mail.start();
   await ctx.jobs.start();
   const stopCheckpoints = scheduleCheckpoints(database.db);
+  const stopReminders = scheduleDueReminders(database.db, config.publicUrl, () => ctx.mail.kick());
   // Studies from before input hashes were kept get theirs now, in the background (reads compute any still missing).
   void backfillInputHashes(database.db).catch((err) => logFailure('filling in input hashes', err));
   const server: Server = await new Promise((resolve) => {
@@ -26,6 +28,7 @@ export async function listen(config: Config): Promise<RunningApp> {
     url: `http://${config.host}:${port}`,
     close: async () => {
       stopCheckpoints();
+      stopReminders();
       await ctx.mail.stop();
       await ctx.jobs.stop();
       const closed = new Promise<void>((r) => server.close(() => r()));

@@ -2,7 +2,7 @@ import { SERVER_KINDS } from '../kinds';
 import { sql, SQL } from 'drizzle-orm';
 import type { ArchiveItem, ArchivePage, ArchiveQuery } from '../../shared/schemas';
 import type { SignedInUser } from '../auth/session-user';
-import type { Database } from '../db/client';
+import type { Database, Executor } from '../db/client';
 import { labDaysFilter, labTimeZone } from '../db/lab-zone';
 import { typedVerificationCode } from '../signoff/content-hash';
 
@@ -69,6 +69,13 @@ const item = (r: Row): ArchiveItem => ({
   meaning: (r.meaning as string) ?? null, signedAt: r.sig_at ? new Date(r.sig_at as string).toISOString() : null,
   createdAt: new Date(r.created_at as string).toISOString(), superseded: r.superseded_by_id !== null, supersedesId: (r.supersedes_id as number) ?? null, n: Number(r.n),
 });
+
+/** The given studies of a laboratory as the archive judges them (verdict, signer, n), in no set order. */
+export async function judgedStudies(db: Executor, laboratoryId: number, ids: readonly number[]): Promise<ArchiveItem[]> {
+  if (!ids.length) return [];
+  const rows = await db.execute(sql`${BASE} SELECT * FROM judged WHERE laboratory_id = ${laboratoryId} AND id IN (${sql.join(ids.map((i) => sql`${i}`), sql`, `)})`);
+  return (rows.rows as Row[]).map(item);
+}
 
 export async function searchArchive(db: Database, me: SignedInUser, q: ArchiveQuery): Promise<ArchivePage> {
   const where = await filters(db, me, q);

@@ -18,7 +18,17 @@ import { plural } from '../../shared/types/plural';
  * and the laboratory's audit chain. Each check is reported in words.
  */
 export async function checkIntegrity(db: Database, me: SignedInUser, studyId: number): Promise<IntegrityReport> {
-  const study = await findStudy(db, me.laboratoryId, studyId);
+  const checks = await studyChecks(db, me.laboratoryId, studyId);
+  const passed = checks.every((c) => c.passed);
+  await db.transaction((tx) => recordAudit(tx, actorOf(me), {
+    action: 'integrity.checked', entity: 'study', entityId: studyId, studyId, after: { passed, failed: checks.filter((c) => !c.passed).map((c) => c.name) },
+  }));
+  return { studyId, passed, checks, checkedAt: new Date().toISOString() };
+}
+
+/** The re-checks of one signed study, in words (a release's re-check runs them for each component). */
+export async function studyChecks(db: Executor, laboratoryId: number, studyId: number): Promise<CheckResult[]> {
+  const study = await findStudy(db, laboratoryId, studyId);
   const [sig] = await db.select().from(signatures).where(and(eq(signatures.studyId, studyId), ne(signatures.meaning, 'plan-approved'))).orderBy(desc(signatures.id)).limit(1);
   if (!sig || study.state !== 'signed') throw new AppError('conflict', 'Only a signed study can be re-checked; this one has no signature yet');
   const checks: CheckResult[] = [];
@@ -39,12 +49,8 @@ export async function checkIntegrity(db: Database, me: SignedInUser, studyId: nu
     name: 'Analysis input', passed: now === analysis.inputHash,
     detail: now === analysis.inputHash ? 'The signed analysis was made from exactly the rows and settings stored now.' : 'The stored rows or settings differ from those the signed analysis used.',
   });
-  checks.push(await historyCheck(db, me.laboratoryId, studyId, sig));
-  const passed = checks.every((c) => c.passed);
-  await db.transaction((tx) => recordAudit(tx, actorOf(me), {
-    action: 'integrity.checked', entity: 'study', entityId: studyId, studyId, after: { passed, failed: checks.filter((c) => !c.passed).map((c) => c.name) },
-  }));
-  return { studyId, passed, checks, checkedAt: new Date().toISOString() };
+  checks.push(await historyCheck(db, laboratoryId, studyId, sig));
+  return checks;
 }
 
 /** Up to three problems in words, and how many more. */

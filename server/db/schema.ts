@@ -1,6 +1,6 @@
 import { sql } from 'drizzle-orm';
 import {
-  bigint, bigserial, boolean, check, customType, doublePrecision, index, integer, json, jsonb, pgTable, serial, text, timestamp, uniqueIndex, varchar,
+  bigint, bigserial, boolean, check, customType, doublePrecision, index, integer, json, jsonb, pgTable, primaryKey, serial, text, timestamp, uniqueIndex, varchar,
 } from 'drizzle-orm/pg-core';
 
 const bytea = customType<{ data: Buffer; driverData: Buffer }>({ dataType: () => 'bytea' });
@@ -202,6 +202,115 @@ export const signatures = pgTable('signatures', {
   chainLength: bigint('chain_length', { mode: 'number' }),
   chainHeadHash: text('chain_head_hash'),
 });
+
+/** A laboratory's template of a change type: the studies it requires and the re-verification it sets due (server/releases). */
+export const releaseTemplates = pgTable('release_templates', {
+  id: serial('id').primaryKey(),
+  laboratoryId: integer('laboratory_id').notNull().references(() => laboratories.id),
+  changeType: text('change_type').notNull(),
+  requirements: jsonb('requirements').notNull(),
+  dueRules: jsonb('due_rules').notNull(),
+  version: integer('version').notNull().default(1),
+  updatedBy: integer('updated_by').references(() => users.id),
+  updatedAt: stamp('updated_at').notNull().defaultNow(),
+}, (t) => [uniqueIndex('release_templates_lab_type_key').on(t.laboratoryId, t.changeType)]);
+
+/** One change to a method: its requirements (copied from the template at creation), state and version. */
+export const releases = pgTable('releases', {
+  id: serial('id').primaryKey(),
+  laboratoryId: integer('laboratory_id').notNull().references(() => laboratories.id),
+  changeType: text('change_type').notNull(),
+  title: text('title').notNull(),
+  analyteId: integer('analyte_id').notNull().references(() => analytes.id),
+  instrumentId: integer('instrument_id').notNull().references(() => instruments.id),
+  comparativeInstrumentId: integer('comparative_instrument_id').references(() => instruments.id),
+  reagentLot: text('reagent_lot').notNull().default(''),
+  note: text('note').notNull().default(''),
+  requirements: jsonb('requirements').notNull(),
+  dueRules: jsonb('due_rules').notNull(),
+  /** 'open', 'released', 'not-released', 'needs-review'. */
+  state: text('state').notNull().default('open'),
+  version: integer('version').notNull().default(1),
+  /** The due item this release answers, when it was started from one. */
+  fromDueItemId: integer('from_due_item_id'),
+  createdBy: integer('created_by').notNull().references(() => users.id),
+  createdAt: created(),
+  updatedAt: stamp('updated_at').notNull().defaultNow(),
+  signedAt: stamp('signed_at'),
+}, (t) => [index('releases_lab_state_idx').on(t.laboratoryId, t.state, t.updatedAt)]);
+
+/** A study linked to a release's requirement; a study belongs to at most one release. */
+export const releaseStudies = pgTable('release_studies', {
+  id: serial('id').primaryKey(),
+  laboratoryId: integer('laboratory_id').notNull().references(() => laboratories.id),
+  releaseId: integer('release_id').notNull().references(() => releases.id),
+  studyId: integer('study_id').notNull().references(() => studies.id),
+  requirementKey: text('requirement_key').notNull(),
+  linkedBy: integer('linked_by').notNull().references(() => users.id),
+  linkedAt: created(),
+}, (t) => [uniqueIndex('release_studies_study_key').on(t.studyId), index('release_studies_release_idx').on(t.releaseId)]);
+
+/** A director's waiver of a requirement, with the reason; permanent. */
+export const releaseWaivers = pgTable('release_waivers', {
+  id: serial('id').primaryKey(),
+  laboratoryId: integer('laboratory_id').notNull().references(() => laboratories.id),
+  releaseId: integer('release_id').notNull().references(() => releases.id),
+  requirementKey: text('requirement_key').notNull(),
+  reason: text('reason').notNull(),
+  waivedBy: integer('waived_by').notNull().references(() => users.id),
+  waivedByName: text('waived_by_name').notNull(),
+  waivedAt: stamp('waived_at').notNull().defaultNow(),
+}, (t) => [uniqueIndex('release_waivers_req_key').on(t.releaseId, t.requirementKey)]);
+
+/** The director's release signature: meaning, go-live date, the content hash over the component signatures, the PDF; append-only. */
+export const releaseSignatures = pgTable('release_signatures', {
+  id: serial('id').primaryKey(),
+  laboratoryId: integer('laboratory_id').notNull().references(() => laboratories.id),
+  releaseId: integer('release_id').notNull().references(() => releases.id),
+  meaning: text('meaning').notNull(),
+  signerId: integer('signer_id').notNull().references(() => users.id),
+  signerName: text('signer_name').notNull(),
+  goLiveDate: text('go_live_date'),
+  comment: text('comment').notNull().default(''),
+  signedAt: stamp('signed_at').notNull().defaultNow(),
+  /** What was signed, as canonical JSON's source: the release, its components' signatures and hashes, waivers, decision. */
+  content: jsonb('content').notNull(),
+  contentHash: text('content_hash').notNull(),
+  verificationCode: text('verification_code').notNull(),
+  pdf: bytea('pdf'),
+  pdfSha256: text('pdf_sha256'),
+  chainLength: bigint('chain_length', { mode: 'number' }),
+  chainHeadHash: text('chain_head_hash'),
+}, (t) => [index('release_signatures_release_idx').on(t.releaseId, t.id)]);
+
+/** A re-verification a release set due; its date is editable with a reason (the history keeps each change). */
+export const dueItems = pgTable('due_items', {
+  id: serial('id').primaryKey(),
+  laboratoryId: integer('laboratory_id').notNull().references(() => laboratories.id),
+  releaseId: integer('release_id').notNull().references(() => releases.id),
+  analyteId: integer('analyte_id').notNull().references(() => analytes.id),
+  instrumentId: integer('instrument_id').notNull().references(() => instruments.id),
+  ruleKey: text('rule_key').notNull(),
+  label: text('label').notNull(),
+  rule: text('rule').notNull().default(''),
+  /** yyyy-mm-dd, the laboratory's day. */
+  dueDate: text('due_date').notNull(),
+  /** 'open', 'started' (a study or release was started from it), 'done' (what was started is signed). */
+  state: text('state').notNull().default('open'),
+  startedReleaseId: integer('started_release_id'),
+  startedStudyId: integer('started_study_id'),
+  version: integer('version').notNull().default(1),
+  createdAt: created(),
+  updatedAt: stamp('updated_at').notNull().defaultNow(),
+}, (t) => [index('due_items_lab_state_idx').on(t.laboratoryId, t.state, t.dueDate)]);
+
+/** The daily reminder of due items, once per laboratory and day (so several processes send it once). */
+export const dueReminders = pgTable('due_reminders', {
+  laboratoryId: integer('laboratory_id').notNull().references(() => laboratories.id),
+  day: text('day').notNull(),
+  items: integer('items').notNull(),
+  sentAt: stamp('sent_at').notNull().defaultNow(),
+}, (t) => [primaryKey({ columns: [t.laboratoryId, t.day] })]);
 
 /** Append-only, hash-chained per laboratory; triggers refuse UPDATE and DELETE. */
 export const auditEvents = pgTable('audit_events', {

@@ -14,6 +14,7 @@ import { DEMO_PASSWORD } from './seed-data';
 import type { Database } from './client';
 import { analytes, instruments, studies, users } from './schema';
 import { SERVER_KINDS } from '../kinds';
+import { seedDemoReleases } from '../releases/demo';
 
 const gaussian = (rng: () => number) => Math.sqrt(-2 * Math.log(1 - rng())) * Math.cos(2 * Math.PI * rng());
 
@@ -71,7 +72,7 @@ function referenceValues(seed: string, groups: { sex: string | null; n: number; 
   })));
 }
 
-interface DemoInterval { title: string; kind: 'interval-establish' | 'interval-verify'; analyte: string; instrument: string; purpose: string; rows: object[]; settings: StudySettingsPatch; finish: Finish }
+interface DemoInterval { title: string; kind: 'interval-establish' | 'interval-verify'; analyte: string; instrument: string; purpose: string; rows: object[]; settings: StudySettingsPatch; finish: Finish; signComment?: string }
 
 const INTERVALS: DemoInterval[] = [
   {
@@ -88,6 +89,14 @@ const INTERVALS: DemoInterval[] = [
     rows: referenceValues('vh-rv-potassium', [{ sex: null, n: 20, median: 4.2, gsd: 1.07 }], 1),
     settings: { seed: 'vh-rv-potassium-2026', statedLower: 3.5, statedUpper: 5.1, statedSource: 'Manufacturer\'s package insert (invented), adult serum' },
     finish: 'signed',
+  },
+  {
+    title: 'Glucose: verify the stated interval (Chemistry line 2)', kind: 'interval-verify', analyte: 'Glucose', instrument: 'Chemistry line 2',
+    purpose: 'Verify that the stated fasting glucose interval fits our population on the new chemistry line (invented demo study).',
+    rows: referenceValues('vh-rv-glucose', [{ sex: null, n: 20, median: 4.9, gsd: 1.08 }], 1),
+    settings: { seed: 'vh-rv-glucose-2026', statedLower: 3.9, statedUpper: 6.1, statedSource: 'Manufacturer\'s package insert (invented), fasting adult plasma' },
+    finish: 'signed',
+    signComment: 'All 20 local values lie within the stated interval; the stated interval is adopted.',
   },
   {
     title: 'Thyrotropin: verify the stated interval (Immunoassay 1)', kind: 'interval-verify', analyte: 'Thyrotropin (TSH)', instrument: 'Immunoassay 1',
@@ -114,11 +123,11 @@ export async function seedDemoStudies(db: Database, labId: number, publicUrl: st
   const [director] = await db.select().from(users).where(eq(users.email, 'director@valeharbor.example'));
   // No SMTP here: the mail the sign-off steps queue waits in the outbox until the app delivers it.
   const ctx: AppContext = { db, pool: null as never /* the seed signs nobody in, so no sign-in counts */, jobs, mail: new MailService(db, undefined, ''), config: { publicUrl } as AppContext['config'] };
-  const finish = async (id: number, how: Finish) => {
+  const finish = async (id: number, how: Finish, own?: string) => {
     if (how === 'draft') return;
     await submitStudy(ctx, me, id);
     if (how === 'signed') {
-      const comment = COMMENTS[(await db.select({ kind: studies.kind }).from(studies).where(eq(studies.id, id)))[0].kind];
+      const comment = own ?? COMMENTS[(await db.select({ kind: studies.kind }).from(studies).where(eq(studies.id, id)))[0].kind];
       await signStudy(ctx, toSignedIn(director), id, { meaning: 'accepted', comment, password: DEMO_PASSWORD }, 'demo seed');
     }
   };
@@ -142,7 +151,7 @@ export async function seedDemoStudies(db: Database, labId: number, publicUrl: st
     const study = await createStudy(db, me, { kind: demo.kind, title: demo.title, purpose: demo.purpose, analyteId: analyte.id, instrumentId: byName(demo.instrument), settings: demo.settings });
     await putRows(db, me, study.id, study.version, demo.rows as Record<string, unknown>[]);
     await analyseNow(db, jobs, me, study.id);
-    await finish(study.id, demo.finish);
+    await finish(study.id, demo.finish, demo.signComment);
   }
   // The demos kinds bring themselves (server/kinds/<kind> demos); one instrument each.
   for (const kind of SERVER_KINDS) {
@@ -155,8 +164,8 @@ export async function seedDemoStudies(db: Database, labId: number, publicUrl: st
       });
       await putRows(db, me, study.id, study.version, demo.rows);
       await analyseNow(db, jobs, me, study.id);
-      COMMENTS[kind.meta.kind] ??= demo.signComment ?? '';
-      await finish(study.id, demo.finish);
+      await finish(study.id, demo.finish, demo.signComment ?? '');
     }
   }
+  await seedDemoReleases(ctx, labId, me, toSignedIn(director));
 }

@@ -9,6 +9,7 @@ import { loadRows, storeInputHash } from '../specimens/input-hash';
 import { findStudy, type StudyRow } from '../studies/studies.repository';
 import { planFieldsOf } from '../studies/study-settings';
 import { studyView } from '../studies/study-view';
+import { amendedComponent } from '../releases/releases.service';
 import { contentHashOf, verificationCode } from './content-hash';
 import { confirmPassword, step, studyAttempt } from './signoff.service';
 
@@ -30,6 +31,8 @@ export function amendStudy(ctx: AppContext, me: SignedInUser, id: number, reason
     await storeInputHash(tx, row.id);
     await recordAudit(tx, actorOf(me), { action: 'study.amended', entity: 'study', entityId: row.id, studyId: row.id, reason, after: { supersedes: id, rows: rows.length } });
     await recordAudit(tx, actorOf(me), { action: 'study.amendment-started', entity: 'study', entityId: id, studyId: id, reason, after: { amendment: row.id } });
+    // A component of a release: the amendment joins its requirement, and a released method needs review.
+    await amendedComponent(tx, me, old, row, reason);
     return studyView(tx, row, me);
   });
 }

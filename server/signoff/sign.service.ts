@@ -11,6 +11,7 @@ import { AppError } from '../http/app-error';
 import type { StudyRow } from '../studies/studies.repository';
 import { findingsOf, studyView } from '../studies/study-view';
 import { contentHashOf, signedContent, verificationCode } from './content-hash';
+import { dueStudySigned } from '../releases/due.service';
 import { notifyAuthor } from './notifications';
 import { awaiting, confirmPassword, step, studyAttempt } from './signoff.service';
 import { renderStudyPdf } from './study-pdf';
@@ -54,6 +55,8 @@ export async function signStudy(ctx: AppContext, me: SignedInUser, id: number, b
       .returning({ id: signatures.id });
     const [row] = await tx.update(studies).set({ state: 'signed', signedAt, version: study.version + 1, updatedAt: signedAt }).where(eq(studies.id, id)).returning();
     if (study.supersedesId) await tx.update(studies).set({ supersededById: id }).where(eq(studies.id, study.supersedesId));
+    // A study started from a re-verification due item completes it.
+    await dueStudySigned(tx, me, id);
     if (right.enteredRows) await recordAudit(tx, actorOf(me), { action: 'signature.self-sign-allowed', entity: 'study', entityId: id, studyId: id, reason: 'laboratory setting allows a director to sign rows they entered' });
     await recordAudit(tx, actorOf(me), {
       action: 'study.signed', entity: 'signature', entityId: sig.id, studyId: id,

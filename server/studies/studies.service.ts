@@ -18,42 +18,51 @@ import { studyView, summarise } from './study-view';
 import { storeInputHash } from '../specimens/input-hash';
 import { signableBy } from '../signoff/who-may-sign';
 
-async function checkRefs(tx: Tx, me: SignedInUser, kind: string, ids: { analyteId?: number; comparativeInstrumentId?: number | null; candidateInstrumentId?: number | null; instrumentId?: number | null }) {
+/** Two reagent lots compared on one instrument (a lot change): both lots given, and different. */
+const twoLots = (settings: unknown): boolean => {
+  const s = (settings ?? {}) as { comparativeLot?: unknown; candidateLot?: unknown };
+  return typeof s.comparativeLot === 'string' && typeof s.candidateLot === 'string' && s.comparativeLot.trim() !== '' && s.candidateLot.trim() !== '' && s.comparativeLot.trim() !== s.candidateLot.trim();
+};
+
+async function checkRefs(tx: Tx, me: SignedInUser, kind: string, ids: { analyteId?: number; comparativeInstrumentId?: number | null; candidateInstrumentId?: number | null; instrumentId?: number | null }, settings?: unknown) {
   if (ids.analyteId !== undefined && !(await findLabAnalyte(tx, me.laboratoryId, ids.analyteId))) throw invalid('analyteId', 'Choose an analyte from the catalog');
   for (const field of ['comparativeInstrumentId', 'candidateInstrumentId', 'instrumentId'] as const) {
     const id = ids[field];
     if (id !== undefined && id !== null && !(await findLabInstrument(tx, me.laboratoryId, id))) throw invalid(field, 'Choose an instrument from the catalog');
   }
-  if (kindMeta(kind).instruments === 'pair' && ids.comparativeInstrumentId && ids.comparativeInstrumentId === ids.candidateInstrumentId) {
-    throw invalid('candidateInstrumentId', 'The candidate instrument must differ from the comparative one');
+  if (kindMeta(kind).instruments === 'pair' && ids.comparativeInstrumentId && ids.comparativeInstrumentId === ids.candidateInstrumentId && !twoLots(settings)) {
+    throw invalid('candidateInstrumentId', 'The candidate instrument must differ from the comparative one, unless two reagent lots are compared on it (give both lots)');
   }
 }
 
 export async function createStudy(db: Database, me: SignedInUser, body: CreateStudyBody): Promise<Study> {
-  return db.transaction(async (tx) => {
-    await checkRefs(tx, me, body.kind, body);
-    const pair = kindMeta(body.kind).instruments === 'pair';
-    if (pair && (!body.comparativeInstrumentId || !body.candidateInstrumentId)) {
-      throw invalid(body.comparativeInstrumentId ? 'candidateInstrumentId' : 'comparativeInstrumentId', `A ${kindMeta(body.kind).label.toLowerCase()} needs a comparative and a candidate instrument`);
-    }
-    if (!pair && !body.instrumentId) throw invalid('instrumentId', 'Choose the instrument');
-    const analyte = (await findLabAnalyte(tx, me.laboratoryId, body.analyteId))!;
-    const [row] = await tx.insert(studies).values({
-      laboratoryId: me.laboratoryId, kind: body.kind, title: body.title, purpose: body.purpose, analyteId: body.analyteId,
-      comparativeInstrumentId: body.comparativeInstrumentId ?? null, candidateInstrumentId: body.candidateInstrumentId ?? null,
-      instrumentId: body.instrumentId ?? null, settings: checkedSettings(() => initialSettings(body.kind, analyte, body.settings)), createdBy: me.id,
-    }).returning();
-    await recordAudit(tx, actorOf(me), { action: 'study.created', entity: 'study', entityId: row.id, studyId: row.id, after: { ...body, settings: row.settings } });
-    await storeInputHash(tx, row.id);
-    return studyView(tx, (await findStudy(tx, me.laboratoryId, row.id))!, me);
-  });
+  return db.transaction((tx) => createStudyIn(tx, me, body));
+}
+
+/** Creates a study in the caller's transaction (a release starts one for a requirement in its own). */
+export async function createStudyIn(tx: Tx, me: SignedInUser, body: CreateStudyBody): Promise<Study> {
+  await checkRefs(tx, me, body.kind, body, body.settings);
+  const pair = kindMeta(body.kind).instruments === 'pair';
+  if (pair && (!body.comparativeInstrumentId || !body.candidateInstrumentId)) {
+    throw invalid(body.comparativeInstrumentId ? 'candidateInstrumentId' : 'comparativeInstrumentId', `A ${kindMeta(body.kind).label.toLowerCase()} needs a comparative and a candidate instrument`);
+  }
+  if (!pair && !body.instrumentId) throw invalid('instrumentId', 'Choose the instrument');
+  const analyte = (await findLabAnalyte(tx, me.laboratoryId, body.analyteId))!;
+  const [row] = await tx.insert(studies).values({
+    laboratoryId: me.laboratoryId, kind: body.kind, title: body.title, purpose: body.purpose, analyteId: body.analyteId,
+    comparativeInstrumentId: body.comparativeInstrumentId ?? null, candidateInstrumentId: body.candidateInstrumentId ?? null,
+    instrumentId: body.instrumentId ?? null, settings: checkedSettings(() => initialSettings(body.kind, analyte, body.settings)), createdBy: me.id,
+  }).returning();
+  await recordAudit(tx, actorOf(me), { action: 'study.created', entity: 'study', entityId: row.id, studyId: row.id, after: { ...body, settings: row.settings } });
+  await storeInputHash(tx, row.id);
+  return studyView(tx, (await findStudy(tx, me.laboratoryId, row.id))!, me);
 }
 
 export async function updateStudy(db: Database, me: SignedInUser, id: number, body: UpdateStudyBody): Promise<Study> {
   return db.transaction(async (tx) => {
     const study = await findStudy(tx, me.laboratoryId, id, true);
     assertEditable(study);
-    await checkRefs(tx, me, study.kind, body);
+    await checkRefs(tx, me, study.kind, body, { ...(study.settings as object), ...(body.settings ?? {}) });
     const { version, settings: given, reason, ...fields } = body;
     const settings = given && knownSettings(study.kind, given);
     const merged = settings ? checkedSettings(() => parseKindSettings(study.kind, { ...(study.settings as object), ...settings })) : undefined;

@@ -16,7 +16,7 @@ const USER_OF: Record<Role, string> = {
   quality: 'quality@valeharbor.example',
   admin: 'admin@valeharbor.example',
 };
-const concrete = (path: string) => path.replace(/:id\b/g, '999999').replace(/:(\w*[iI]d)\b/g, '999999').replace(/:token\b/g, 'x'.repeat(30));
+const concrete = (path: string) => path.replace(/:id\b/g, '999999').replace(/:(\w*[iI]d)\b/g, '999999').replace(/:token\b/g, 'x'.repeat(30)).replace(/:changeType\b/g, 'custom');
 
 const call = (agent: Awaited<ReturnType<typeof anonymous>>['agent'], xsrf: string, method: string, path: string) =>
   (agent as unknown as Record<string, (p: string) => { set: (k: string, v: string) => { send: (b: object) => Promise<{ status: number }> } }>)[method](`/api/v1${concrete(path)}`)
@@ -45,7 +45,7 @@ describe.each(ROLES)('as %s', (role) => {
 it('lets the quality role change nothing: every mutating route it may call only re-checks', () => {
   const mutating = h.routes.filter((r) => r.method !== 'get' && !r.readOnly && r.access !== 'public' && r.access !== 'signed-in');
   expect(mutating.filter((r) => (r.access as readonly string[]).includes('quality')).map((r) => `${r.method} ${r.path}`)).toEqual([]);
-  expect(h.routes.filter((r) => r.readOnly).map((r) => r.path)).toEqual(['/studies/:id/integrity-check', '/studies/:id/reproduce', '/audit/chain-check']);
+  expect(h.routes.filter((r) => r.readOnly).map((r) => r.path)).toEqual(['/studies/:id/integrity-check', '/studies/:id/reproduce', '/audit/chain-check', '/releases/:id/integrity-check']);
 });
 
 it('answers 401 to a signed-out caller on every route that is not public', async () => {

@@ -7,3 +7,4 @@ export * from './study.schema';
 export * from './specimen.schema';
 export * from './analysis.schema';
 export * from './audit.schema';
+export * from './release.schema';

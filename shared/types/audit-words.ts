@@ -97,6 +97,19 @@ const HEADLINES: Record<string, (a: Obj, b: Obj, e: AuditEventLike) => string> =
   'password-reset.sent': (a) => `Password link sent by an administrator to ${a.email}`,
   'password-reset.rate-limited': (a) => `Password link refused for ${a.email}: too many requests ${a.which}`,
   'user.link-sent': () => 'Invitation sent again',
+  'release.created': (a) => `Release created: "${a.title ?? ''}"`,
+  'release.updated': () => 'Release changed',
+  'release.study-linked': (a) => `Study ${a.study} linked to "${a.requirement}"`,
+  'release.study-unlinked': (a, b) => `Study ${b.study ?? a.study ?? ''} unlinked`,
+  'release.waived': (a) => `"${a.requirement}" waived by the director`,
+  'release.signed': (a) => `Release signed: ${a.meaning === 'released' ? `released for patient testing${a.goLiveDate ? `, go-live ${a.goLiveDate}` : ''}` : 'not released for patient testing'}`,
+  'release.needs-review': (a) => `Needs review: study ${a.amended} was amended (study ${a.amendment})`,
+  'release-template.updated': () => 'Release template changed',
+  'due.set': (a) => `Re-verification set due: ${show(a.items)}`,
+  'due.moved': (a, b) => `Due date of "${a.label}" moved: ${b.dueDate} → ${a.dueDate}`,
+  'due.started': (a) => `"${a.label ?? 'Re-verification'}" started as ${a.study ? `study ${a.study}` : `release ${a.release}`}`,
+  'due.done': (a) => `"${a.label}" done by ${a.by}`,
+  'due.reminded': (a) => `Daily reminder of ${plural(Array.isArray(a.items) ? a.items.length : 0, 'due item')} sent`,
 };
 
 const MEANING_CHOSEN: Record<string, string> = { accepted: 'accepted for patient testing', 'not-accepted': 'not accepted for patient testing' };
@@ -118,6 +131,7 @@ export function describeEvent(e: AuditEventLike): { headline: string; details: s
   if (e.action.startsWith('specimens.')) details = rowLines(a);
   else if (['study.updated', 'study.plan-amended', 'user.updated', 'analyte.updated', 'instrument.updated', 'laboratory.updated'].includes(e.action)) details = changesOf(b, a).filter((l) => !l.startsWith('after data'));
   else if (e.action === 'study.submitted' && typeof a.note === 'string') details = [`note for the director: ${a.note}`];
+  else if (e.action === 'release.signed') details = [`content hash ${a.contentHash}`, ...(a.comment ? [`comment: ${a.comment}`] : [])];
   else if (['study.signed', 'study.submitted', 'study.returned'].includes(e.action)) details = a.contentHash ? [`content hash ${a.contentHash}`, ...(a.comment ? [`comment: ${a.comment}`] : [])] : [];
   else if (e.action === 'signature.refused') details = refusalLines(a);
   else details = [];

@@ -27,5 +27,7 @@ export const PRECISION_DEMOS: DemoStudy[] = [{
     ...precisionRuns('vh-prec-low', 'Control 1 (low)', DAYS, 5, 5.42, 0.06, 0.03, 2),
     ...precisionRuns('vh-prec-high', 'Control 2 (high)', DAYS, 5, 16.8, 0.15, 0.2, 2),
   ],
-  finish: 'draft',
+  // Signed: the demo laboratory's glucose release (server/releases/demo.ts) counts it among its four studies.
+  finish: 'signed',
+  signComment: 'Repeatability and within-laboratory precision meet the claims on both controls; accepted for patient testing.',
 }];
