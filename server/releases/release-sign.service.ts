@@ -114,8 +114,10 @@ function keyFiguresOf(results: unknown, n: number, engine: string | undefined): 
  */
 export async function signRelease(ctx: AppContext, me: SignedInUser, id: number, body: ReleaseSignBody, address: string): Promise<Release> {
   const first = await findRelease(ctx.db, me.laboratoryId, id);
-  const right = await mayISignRelease(ctx.db, me, first, await boardOf(ctx.db, first));
-  if (!right.allowed) throw new AppError(['open', 'needs-review'].includes(first.state) && me.roles.includes('director') && !right.enteredRows ? 'conflict' : 'forbidden', right.why);
+  const board0 = await boardOf(ctx.db, first);
+  const right = await mayISignRelease(ctx.db, me, first, board0);
+  // Segregation of duties is a refusal of this person (403); a release not (or no longer) ready is a conflict of state (409).
+  if (!right.allowed) throw new AppError(right.enteredRows && ['open', 'needs-review'].includes(first.state) && !board0.blockers.length ? 'forbidden' : 'conflict', right.why);
   if (body.meaning === 'released' && !body.goLiveDate) throw invalid('goLiveDate', 'Give the go-live date: the day patient testing starts');
   await confirmPassword(ctx, me, body.password, address, { entity: 'release', entityId: id, studyId: null, meaning: body.meaning });
   return step(ctx, async (tx) => {
