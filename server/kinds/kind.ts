@@ -39,6 +39,11 @@ export interface ServerKind {
   archiveVerdict: SQL;
   /** The report's body: its conclusion first, the sign-off and the plan, then the details. `results` is null without findings. */
   report(layout: Layout, report: StudyReport, results: unknown): void;
+  /**
+   * A few lines of the stored results' key figures in words, for the release dossier's block of this study
+   * (server/releases): the figures a director weighs, e.g. the bias at each decision level with its CI.
+   */
+  keyFigures(results: unknown, unit: string, decimals: number): string[];
   /** Invented demo studies of this kind that the demo seed creates, analyses and takes as far as `finish` says. */
   demos?: readonly DemoStudy[];
   /** The Results sheet of the full record: its columns at a CI level, and its lines from stored results. */

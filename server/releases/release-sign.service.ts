@@ -1,5 +1,6 @@
 import { and, desc, eq, inArray, ne } from 'drizzle-orm';
 import { kindMeta } from '../../shared/kinds/kinds';
+import { serverKind } from '../kinds';
 import {
   CHANGE_TYPE_LABELS, RELEASE_MEANING_WORDS, REQUIREMENT_STATUS_LABELS, type ChangeType, type CheckResult, type Release, type ReleaseIntegrityReport,
   type ReleaseSignBody,
@@ -68,6 +69,9 @@ async function reportOf(db: Executor, release: ReleaseRow, board: Board, decisio
   const studyIds = board.requirements.flatMap((r) => (r.study ? [r.study.id] : []));
   const sigs = studyIds.length ? await db.select({ studyId: signatures.studyId, analysisId: signatures.analysisId }).from(signatures)
     .where(and(inArray(signatures.studyId, studyIds), ne(signatures.meaning, 'plan-approved'))).orderBy(desc(signatures.id)) : [];
+  const [analyteRow] = await db.select().from(analytes).where(eq(analytes.id, release.analyteId));
+  const unit = analyteRow.unit;
+  const decimals = analyteRow.decimals;
   const requirements: ReleaseReportRequirement[] = [];
   for (const r of board.requirements) {
     const s = r.study?.state === 'signed' ? r.study : null;
@@ -75,7 +79,7 @@ async function reportOf(db: Executor, release: ReleaseRow, board: Board, decisio
     if (s) {
       const analysisId = sigs.find((g) => g.studyId === s.id)?.analysisId;
       const [analysis] = analysisId ? await db.select({ results: analyses.results, engineVersion: analyses.engineVersion }).from(analyses).where(eq(analyses.id, analysisId)) : [];
-      keyFigures = keyFiguresOf(analysis?.results, s.n, analysis?.engineVersion);
+      keyFigures = keyFiguresOf(s.kind, analysis?.results, unit, decimals, analysis?.engineVersion);
     }
     requirements.push({
       label: r.label, rule: r.rule, kinds: r.kinds.map((k) => kindMeta(k).label), status: r.status, statusLabel: REQUIREMENT_STATUS_LABELS[r.status],
@@ -98,13 +102,10 @@ async function reportOf(db: Executor, release: ReleaseRow, board: Board, decisio
   };
 }
 
-/** A few lines of a component's signed findings: the engine's sentence where it wrote one, the count and the engine. */
-function keyFiguresOf(results: unknown, n: number, engine: string | undefined): string[] {
-  const r = (results ?? {}) as Record<string, unknown>;
-  const lines: string[] = [];
-  for (const k of ['verdictWords', 'verdictSentence', 'conclusion'] as const) if (typeof r[k] === 'string' && r[k]) { lines.push(r[k] as string); break; }
-  lines.push(`${plural(n, 'result')} included${engine ? `; engine ${engine}` : ''}`);
-  return lines;
+/** A few lines of a component's signed findings (its kind's key figures) and the engine that made them. */
+function keyFiguresOf(kind: string, results: unknown, unit: string, decimals: number, engine: string | undefined): string[] {
+  const own = results ? serverKind(kind).keyFigures(results, unit, decimals) : [];
+  return [...own, ...(engine ? [`Analysed by ${engine}`] : [])];
 }
 
 /**

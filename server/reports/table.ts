@@ -1,5 +1,5 @@
 import type { Layout } from './layout';
-import { drawText, measure, type TextStyle } from './text';
+import { drawText, measure, wrapAtSpaces, type TextStyle } from './text';
 import { COLOR, SIZE } from './theme';
 
 export interface Column {
@@ -15,21 +15,33 @@ export interface TableOptions {
   strong?: (row: number) => boolean;
   /** A text colour per cell, e.g. for a verdict. */
   color?: (row: number, column: number) => string | undefined;
+  /**
+   * Break every cell at spaces to its column's width first (wrapAtSpaces), so "America/Halifax" or "mmol/L" is
+   * never split at its slash; a word longer than its column is still broken by pdfkit.
+   */
+  breakAtSpaces?: boolean;
 }
 
 const PAD_X = 4;
 const PAD_Y = 2.5;
+/** How much narrower than its cell breakAtSpaces makes a line, so pdfkit never breaks it again. */
+const BREAK_SLACK = 6;
 
 /**
  * A table that flows down the pages: each row is measured first and, when it would cross the footer
  * zone, a new page starts and the header row is drawn again. Cells wrap within their column.
  */
-export function drawTable(layout: Layout, columns: Column[], rows: string[][], options: TableOptions = {}): void {
+export function drawTable(layout: Layout, columns: Column[], given: string[][], options: TableOptions = {}): void {
   const size = options.size ?? SIZE.table;
   const total = columns.reduce((sum, c) => sum + c.weight, 0);
   const widths = columns.map((c) => (layout.width * c.weight) / total);
   const headerStyle: TextStyle = { size, bold: true, color: COLOR.ink };
-  const header = columns.map((c) => c.header);
+  // Headings and strong rows are set in the semibold face, which runs wider than the regular one wrapAtSpaces measures;
+  // and pdfkit counts a line's trailing space, so lines are made a little narrower than the cell (BREAK_SLACK).
+  const breakCell = (cell: string, c: number, scale = 1): string =>
+    options.breakAtSpaces ? wrapAtSpaces(layout.doc, cell, size, (widths[c] - 2 * PAD_X) * scale - BREAK_SLACK) : cell;
+  const header = columns.map((c, k) => breakCell(c.header, k, 0.92));
+  const rows = given.map((row, r) => row.map((cell, c) => breakCell(cell, c, options.strong?.(r) ? 0.92 : 1)));
   const headerHeight = rowHeight(layout, header, widths, headerStyle);
 
   const drawHeader = (): void => {

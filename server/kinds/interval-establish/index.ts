@@ -8,6 +8,7 @@ import { establishColumns, establishLines } from '../../audit/results-sheet';
 import type { EstablishFindings } from '../../reports/report-model';
 import { establishReport } from '../../reports/sections/establish-report';
 import type { ServerKind } from '../kind';
+import { formatNumber, withUnit } from '../../../shared/types/findings-numbers';
 
 /** The outlier rule both reference-interval kinds start with. */
 export const INTERVAL_OUTLIER_RULE = 'Tukey fences and Dixon\'s D/R > 1/3 rule (flags only; exclusion needs a reason)';
@@ -34,6 +35,11 @@ export const intervalEstablishKind: ServerKind = {
     ? [] : [{ path: 'settings.populationDescription', message: 'Describe the reference population and the exclusion criteria used' }]),
   archiveVerdict: sql`'established'`,
   report: (layout, report, results) => establishReport(layout, report, results as EstablishFindings | null),
+  keyFigures(results, unit, decimals) {
+    const r = results as IntervalResult;
+    const limit = (l: IntervalResult['lower']) => (l ? `${withUnit(formatNumber(l.estimate, decimals), unit)} (CI ${l.ci ? `${formatNumber(l.ci[0], decimals)} to ${formatNumber(l.ci[1], decimals)}` : 'not available'})` : 'not available');
+    return [`Lower limit ${limit(r.lower)}; upper limit ${limit(r.upper)}; n = ${r.n}`];
+  },
   resultsSheet: {
     level: (results) => (results as IntervalResult | null)?.settings?.level ?? 0.95,
     columns: establishColumns,

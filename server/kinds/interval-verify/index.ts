@@ -10,6 +10,7 @@ import type { VerifyFindings } from '../../reports/report-model';
 import { verifyReport } from '../../reports/sections/verify-report';
 import { INTERVAL_OUTLIER_RULE } from '../interval-establish';
 import type { ServerKind } from '../kind';
+import { formatNumber, withUnit } from '../../../shared/types/findings-numbers';
 
 const isObject = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
 
@@ -35,6 +36,11 @@ export const intervalVerifyKind: ServerKind = {
   recordedWords: (results, settings) => (isObject(results.stated) ? { ...results, stated: { ...results.stated, source: settings.statedSource } } : results),
   archiveVerdict: sql`CASE WHEN (results->>'accepted')::boolean THEN 'accepted' ELSE 'failed' END`,
   report: (layout, report, results) => verifyReport(layout, report, results as VerifyFindings | null),
+  keyFigures(results, unit, decimals) {
+    const r = results as VerifyFindings;
+    const stated = r.stated ? ` the stated ${formatNumber(r.stated.lower, decimals)} to ${withUnit(formatNumber(r.stated.upper, decimals), unit)}` : ' the stated interval';
+    return [`${r.outside} of ${r.n} local values outside${stated} (at most ${r.allowedOutside} allowed): ${r.accepted ? 'accepted' : 'not accepted'}`];
+  },
   resultsSheet: {
     level: () => 0.95,
     columns: valueColumns,

@@ -8,6 +8,8 @@ import { has, toPositions, withRepeatedLabels } from '../../analyses/analysis-ro
 import type { ComparisonFindings } from '../../reports/report-model';
 import { comparisonReport } from '../../reports/sections/comparison-report';
 import type { ServerKind } from '../kind';
+import { estimateWithCi, findingsDecimals, formatNumber, levelLabel, withUnit } from '../../../shared/types/findings-numbers';
+import { VERDICT_WORDS } from '../../../shared/types/findings-rows';
 
 /** Method comparison on the server: the engine's comparison, the goals it needs before submission, its report. */
 export const methodComparisonKind: ServerKind = {
@@ -41,6 +43,16 @@ export const methodComparisonKind: ServerKind = {
       WHEN jsonb_array_length(COALESCE(results->'decisionLevels', '[]'::jsonb)) > 0 THEN 'within'
       ELSE NULL END`,
   report: (layout, report, results) => comparisonReport(layout, report, results as ComparisonFindings | null),
+  keyFigures(results, unit, decimals) {
+    const r = results as ComparisonResult;
+    const d = findingsDecimals(decimals, r.settings?.difference);
+    const units = r.settings?.difference && r.settings.difference !== 'absolute' ? '%' : unit;
+    const level = levelLabel(r.settings?.level ?? 0.95);
+    return [
+      `Median bias ${estimateWithCi(r.bias?.median, d.difference, units)}, ${level} CI; n = ${r.n}`,
+      ...(r.decisionLevels ?? []).map((l) => `Bias at ${withUnit(formatNumber(l.level, decimals), unit)}: ${estimateWithCi(l.bias, d.stat, unit)}; ${l.verdict ? VERDICT_WORDS[l.verdict].toLowerCase() : 'no allowable bias set'}`),
+    ];
+  },
   resultsSheet: {
     level: (results) => (results as ComparisonResult | null)?.settings?.level ?? 0.95,
     columns: comparisonColumns,

@@ -7,6 +7,8 @@ import type { ServerKind } from '../kind';
 import { PRECISION_DEMOS } from './demo';
 import { precisionReport } from './report';
 import { precisionSheet } from './results-sheet';
+import { materialSummary, overallSentence, precisionFormat } from '../../../shared/kinds/precision/words';
+import type { PrecisionResult } from '../../../shared/stats/precision-types';
 
 export const PRECISION_OUTLIER_RULE = PRECISION_RULES.outlierRule;
 
@@ -40,6 +42,11 @@ export const precisionKind: ServerKind = {
       WHEN jsonb_array_length(COALESCE(results->'materials', '[]'::jsonb)) > 0 THEN 'claims-verified'
       ELSE NULL END`,
   report: (layout, report, results) => precisionReport(layout, report, results as never),
+  keyFigures(results, unit, decimals) {
+    const r = results as PrecisionResult;
+    const f = precisionFormat(unit, decimals);
+    return [overallSentence(r), ...(r.materials ?? []).map((m) => `${m.name}: ${materialSummary(m, f)}`)];
+  },
   resultsSheet: precisionSheet,
   demos: PRECISION_DEMOS,
 };

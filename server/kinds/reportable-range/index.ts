@@ -46,6 +46,7 @@ export const reportableRangeKind: ServerKind = {
     ? { ...results, goal: { ...results.goal, source: typeof settings.nonlinearitySource === 'string' ? settings.nonlinearitySource : '' } } : results),
   archiveVerdict: sql`CASE WHEN results->>'verdict' IN ('range-verified', 'range-shortened', 'range-not-verified') THEN results->>'verdict' ELSE NULL END`,
   report: (layout, report, results) => rangeReport(layout, report, results as RangeResult | null),
+  keyFigures: (results) => [(results as RangeResult).verdictWords],
   resultsSheet: rangeSheet,
   demos: RANGE_DEMOS,
 };

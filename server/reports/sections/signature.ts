@@ -32,21 +32,27 @@ function signatureLines(report: StudyReport): [string, string][] {
  * with it, so the heading never ends a page alone and the box is never cut.
  */
 export function signatureBlock(layout: Layout, report: StudyReport): void {
-  const lines = signatureLines(report);
+  signatureBox(layout, signatureLines(report), Boolean(report.signature));
+}
+
+/**
+ * A signature box under its heading: label and value lines, the first `strong` values in semibold, a solid teal
+ * frame when signed and a dashed grey one when not (the study's sign-off, a release's decision).
+ */
+export function signatureBox(layout: Layout, lines: [string, string][], signed: boolean, heading = 'Sign-off', strong = 3): void {
   const valueWidth = layout.width - LABEL_WIDTH - 2 * PAD;
   const style = { size: SIZE.body };
   const heights = lines.map(([, v]) => measure(layout.doc, v, style, valueWidth) + 3);
   const total = heights.reduce((a, b) => a + b, 0) + 2 * PAD;
-  layout.heading('Sign-off', total + 8);
+  layout.heading(heading, total + 8);
   layout.block(total + 8, (top) => {
-    const signed = Boolean(report.signature);
     layout.doc.rect(layout.left, top, layout.width, total).lineWidth(signed ? 1.2 : 0.8).strokeColor(signed ? COLOR.accent : COLOR.muted);
     if (!signed) layout.doc.dash(3, { space: 2 });
     layout.doc.stroke().undash();
     let y = top + PAD;
     lines.forEach(([label, value], k) => {
       drawText(layout.doc, label, layout.left + PAD, y, { ...style, color: COLOR.muted }, { width: LABEL_WIDTH - 6 });
-      drawText(layout.doc, value, layout.left + PAD + LABEL_WIDTH, y, { ...style, bold: k < 3 }, { width: valueWidth });
+      drawText(layout.doc, value, layout.left + PAD + LABEL_WIDTH, y, { ...style, bold: k < strong }, { width: valueWidth });
       y += heights[k];
     });
   });

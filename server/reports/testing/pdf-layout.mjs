@@ -1,6 +1,7 @@
 // Where the text of a PDF stands, page by page: each line's text, its top in points from the top of the page,
-// and the largest type size on it, read with pdfjs-dist (legacy build for Node) in a Node process of its own
-// (see pdf-layout.ts). Reads the PDF from stdin and prints JSON: [{ height, lines: [{ text, top, size }] }, ...].
+// the largest type size on it and its left and right ends, read with pdfjs-dist (legacy build for Node) in a
+// Node process of its own (see pdf-layout.ts). Reads the PDF from stdin and prints JSON:
+// [{ height, width, lines: [{ text, top, size, left, right }] }, ...].
 // Rotated text (a draft's watermark) is left out: it belongs to no line.
 import { joinParts, pdfFromStdin } from './pdf-read.mjs';
 
@@ -8,7 +9,7 @@ const pdf = await pdfFromStdin();
 const pages = [];
 for (let n = 1; n <= pdf.numPages; n++) {
   const page = await pdf.getPage(n);
-  const [, , , height] = page.view;
+  const [, , width, height] = page.view;
   const { items } = await page.getTextContent();
   const lines = [];
   for (const item of items.filter((i) => i.str !== undefined && i.str.trim() !== '')) {
@@ -22,8 +23,14 @@ for (let n = 1; n <= pdf.numPages; n++) {
   lines.sort((p, q) => q.y - p.y);
   pages.push({
     height,
+    width,
     lines: lines.map((l) => {
-      return { text: joinParts(l.parts), top: Math.round((height - l.y - l.size) * 10) / 10, size: Math.round(l.size * 100) / 100 };
+      const left = Math.min(...l.parts.map((p) => p.x));
+      const right = Math.max(...l.parts.map((p) => p.end));
+      return {
+        text: joinParts(l.parts), top: Math.round((height - l.y - l.size) * 10) / 10, size: Math.round(l.size * 100) / 100,
+        left: Math.round(left * 10) / 10, right: Math.round(right * 10) / 10,
+      };
     }),
   });
 }
