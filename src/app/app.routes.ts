@@ -44,6 +44,11 @@ export const routes: Routes = [
         loadChildren: () => import('./features/studies/studies.routes').then((m) => m.STUDIES_ROUTES),
       },
       {
+        path: 'releases',
+        canActivate: [roleGuard('technologist', 'director', 'quality')],
+        loadChildren: () => import('./features/releases/releases.routes').then((m) => m.RELEASES_ROUTES),
+      },
+      {
         path: 'profile',
         title: 'Profile · Parallax',
         loadComponent: () => import('./features/profile/profile-page/profile-page').then((m) => m.ProfilePage),

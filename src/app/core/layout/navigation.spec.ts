@@ -2,7 +2,7 @@ import { NAVIGATION, NavItem, navigationFor, sectionsOf } from './navigation';
 
 const ids = (items: NavItem[]) => items.map((item) => item.id);
 
-const ADMIN_PAGES = ['users', 'analytes', 'instruments', 'mailbox'];
+const ADMIN_PAGES = ['users', 'analytes', 'instruments', 'release-templates', 'mailbox'];
 
 describe('navigationFor', () => {
   it('gives every role the worklist and the profile', () => {
@@ -16,6 +16,12 @@ describe('navigationFor', () => {
     for (const role of ['technologist', 'director', 'quality'] as const) {
       expect(ids(navigationFor([role])).filter((id) => ADMIN_PAGES.includes(id))).toEqual([]);
     }
+  });
+
+  it('gives Releases to technologists, directors and quality officers, not to administrators', () => {
+    for (const role of ['technologist', 'director', 'quality'] as const) expect(ids(navigationFor([role]))).toContain('releases');
+    expect(ids(navigationFor(['admin']))).not.toContain('releases');
+    expect(NAVIGATION.find((item) => item.id === 'release-templates')?.path).toBe('/admin/release-templates');
   });
 
   it('keeps the defined order', () => {

@@ -26,6 +26,10 @@ export const NAVIGATION: readonly NavItem[] = [
     description: 'Find, open and start method studies: their setup, specimens and findings.',
   },
   {
+    id: 'releases', label: 'Releases', icon: 'rocket_launch', path: '/releases', roles: ['technologist', 'director', 'quality'],
+    description: 'Release a changed method for patient testing: the studies each change needs, waivers and the director’s signature.',
+  },
+  {
     id: 'archive', label: 'Archive', icon: 'inventory_2', path: '/archive', roles: ['director', 'quality'],
     description: 'Search every study of the laboratory and read its audit record: signatures, re-checks and history.',
   },
@@ -48,6 +52,10 @@ export const NAVIGATION: readonly NavItem[] = [
   {
     id: 'instruments', label: 'Instruments', icon: 'precision_manufacturing', path: '/admin/instruments', roles: ADMIN,
     group: 'Admin', description: 'Keep the list of instruments: model, serial number and location.',
+  },
+  {
+    id: 'release-templates', label: 'Release templates', icon: 'checklist', path: '/admin/release-templates', roles: ADMIN, group: 'Admin',
+    description: 'Set which studies each kind of change needs before release, and when each method is due for re-verification.',
   },
   {
     id: 'mailbox', label: 'Mailbox', icon: 'mail', path: '/admin/mailbox', roles: ADMIN, group: 'Admin',

@@ -19,6 +19,11 @@ export const ADMIN_ROUTES: Routes = [
     loadComponent: () => import('./instruments/instrument-list/instrument-list').then((m) => m.InstrumentList),
   },
   {
+    path: 'release-templates',
+    title: 'Release templates · Parallax',
+    loadComponent: () => import('./release-templates/release-templates-page').then((m) => m.ReleaseTemplatesPage),
+  },
+  {
     path: 'mailbox',
     title: 'Mailbox · Parallax',
     loadComponent: () => import('./mailbox/mailbox-page/mailbox-page').then((m) => m.MailboxPage),

@@ -4,6 +4,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
 import { AuthStore } from '../../../core/auth/auth-store';
 import { navigationFor } from '../../../core/layout/navigation';
+import { DueSection } from '../../releases/due/due-section';
 import { WorklistSections } from '../../studies/worklist/worklist-sections';
 import { dutiesOf } from '../role-duties';
 
@@ -13,12 +14,12 @@ import { dutiesOf } from '../role-duties';
   templateUrl: './worklist-page.html',
   styleUrl: './worklist-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [MatCardModule, MatIconModule, RouterLink, WorklistSections],
+  imports: [MatCardModule, MatIconModule, RouterLink, WorklistSections, DueSection],
 })
 export class WorklistPage {
   private readonly auth = inject(AuthStore);
   protected readonly user = this.auth.user;
-  /** The worklist of studies, for the roles that read studies (an administrator has none). */
+  /** The worklist of studies and what is due for re-verification, for the roles that read studies (an administrator has none). */
   protected readonly readsStudies = computed(() => this.auth.hasAnyRole(['technologist', 'director', 'quality']));
   protected readonly duties = computed(() => dutiesOf(this.user()?.roles ?? []));
   /** Every page the navigation offers this user, except this one. */
