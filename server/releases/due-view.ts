@@ -18,7 +18,7 @@ const started = alias(releases, 'started_release');
 export async function dueView(db: Executor, laboratoryId: number, where: SQL, now: Date = new Date()): Promise<DueItem[]> {
   const today = await labToday(db, laboratoryId, now);
   const rows = await db.select({
-    item: dueItems, releaseTitle: releases.title, analyteName: analytes.name, instrumentName: instruments.name,
+    item: dueItems, releaseTitle: releases.title, dueRules: releases.dueRules, analyteName: analytes.name, instrumentName: instruments.name,
     startedReleaseTitle: started.title, startedStudyTitle: studies.title,
   }).from(dueItems)
     .innerJoin(releases, eq(releases.id, dueItems.releaseId))
@@ -31,6 +31,7 @@ export async function dueView(db: Executor, laboratoryId: number, where: SQL, no
   return rows.map(({ item, ...r }) => ({
     id: item.id, releaseId: item.releaseId, releaseTitle: r.releaseTitle, analyte: { id: item.analyteId, name: r.analyteName },
     instrument: { id: item.instrumentId, name: r.instrumentName }, ruleKey: item.ruleKey, label: item.label, rule: item.rule,
+    kinds: ((r.dueRules as { key: string; kinds?: DueItem['kinds'] }[]).find((d) => d.key === item.ruleKey)?.kinds) ?? [],
     dueDate: item.dueDate, state: item.state as DueItem['state'],
     status: item.state === 'open' ? dueStatus(item.dueDate, today) : (item.state as 'started' | 'done'),
     daysLeft: daysBetween(today, item.dueDate),

@@ -52,6 +52,8 @@ export function startFromDue(db: Database, me: SignedInUser, id: number, body: S
     const item = await findDue(tx, me, id);
     if (item.state !== 'open') throw new AppError('conflict', 'Something was already started from this due item');
     const [release] = await tx.select().from(releases).where(eq(releases.id, item.releaseId));
+    const kinds = ((release.dueRules as { key: string; kinds?: string[] }[]).find((d) => d.key === item.ruleKey)?.kinds) ?? [];
+    if (kinds.length && !kinds.includes(body.kind)) throw invalid('kind', `"${item.label}" is re-verified by ${kinds.map((k) => kindMeta(k).label.toLowerCase()).join(' or ')}`);
     const pair = kindMeta(body.kind).instruments === 'pair';
     if (pair && !release.comparativeInstrumentId) throw invalid('kind', `A ${kindMeta(body.kind).label.toLowerCase()} needs a comparative instrument, and release ${release.id} names none; start it from the Studies page`);
     const study = await createStudyIn(tx, me, {

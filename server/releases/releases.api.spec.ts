@@ -71,7 +71,7 @@ describe('release templates', () => {
     const twice = await put(admin, '/release-templates/relocation', { version: relocation.version, requirements: [...relocation.requirements, relocation.requirements[0]], dueRules: [] }).expect(400);
     expect(twice.body.issues[0]).toEqual({ path: 'requirements.2.key', message: 'The key "precision" is used twice' });
 
-    const dueRules = [{ key: 'comparability', label: 'Comparability across instruments', months: 3, rule: 'Quarterly after a move (laboratory rule)' }];
+    const dueRules = [{ key: 'comparability', label: 'Comparability across instruments', months: 3, rule: 'Quarterly after a move (laboratory rule)', kinds: ['method-comparison'] }];
     const saved = (await put(admin, '/release-templates/relocation', { version: relocation.version, requirements: relocation.requirements, dueRules }).expect(200)).body;
     expect(saved).toMatchObject({ version: relocation.version + 1, dueRules });
     await put(admin, '/release-templates/relocation', { version: relocation.version, requirements: relocation.requirements, dueRules: [] }).expect(409);
@@ -278,6 +278,7 @@ describe('re-verification that comes due', () => {
     const release = await demoRelease();
     const due = (await quality.agent.get('/api/v1/due').query({ releaseId: release.id }).expect(200)).body;
     expect(due.map((d: { ruleKey: string }) => d.ruleKey)).toEqual(['calibration-verification', 'comparability', 'interval-review']);
+    expect(due.map((d: { kinds: string[] }) => d.kinds)).toEqual([['reportable-range'], ['method-comparison'], ['interval-verify', 'interval-establish']]);
     expect(due[0]).toMatchObject({ status: 'overdue', daysLeft: -3, dueWords: 'overdue by 3 days', analyte: { name: 'Glucose' }, instrument: { name: 'Chemistry line 2' } });
     expect(due[1]).toMatchObject({ status: 'later', dueWords: expect.stringMatching(/^due in 1\d\d days$/) });
     const overdue = (await tech.agent.get('/api/v1/due').query({ status: 'overdue' }).expect(200)).body;
@@ -327,6 +328,8 @@ describe('re-verification that comes due', () => {
     const event = (await eventsOf(release.id)).filter((e) => e.action === 'due.moved').at(-1)!;
     expect(event).toMatchObject({ reason: 'Aligned with the yearly review of all chemistry intervals', before: { dueDate: item.dueDate }, after: { dueDate: '2027-10-01' } });
 
+    const wrongKind = await post(tech, `/due/${item.id}/start`, { kind: 'precision' }).expect(400);
+    expect(wrongKind.body.issues[0]).toEqual({ path: 'kind', message: '"Reference interval review" is re-verified by reference interval: verify or reference interval: establish' });
     const started = (await post(tech, `/due/${item.id}/start`, { kind: 'interval-verify' }).expect(200)).body;
     expect(started).toMatchObject({ state: 'started', status: 'started', startedStudy: { id: expect.any(Number) } });
     await post(tech, `/due/${item.id}/start`, { kind: 'interval-verify' }).expect(409);

@@ -24,9 +24,9 @@ export const DEFAULT_TEMPLATES: Record<ChangeType, { requirements: Requirement[]
       { key: 'reference-interval', label: 'Reference interval', kinds: ['interval-verify', 'interval-establish'], rule: 'The reference interval fits the laboratory\'s population: verified with 20 or established with 120+ (42 CFR 493.1253(b)(1); CLSI EP28 practice)' },
     ],
     dueRules: [
-      { key: 'comparability', label: 'Comparability across instruments', months: 6, rule: 'The same test on different instruments or sites compared twice a year (42 CFR 493.1281)' },
-      { key: 'calibration-verification', label: 'Calibration verification', months: 6, rule: 'At least every six months (42 CFR 493.1255(b)(3))' },
-      { key: 'interval-review', label: 'Reference interval review', months: 12, rule: 'Periodic review of reference intervals (ISO 15189; yearly is common practice)' },
+      { key: 'comparability', label: 'Comparability across instruments', months: 6, rule: 'The same test on different instruments or sites compared twice a year (42 CFR 493.1281)', kinds: ['method-comparison'] },
+      { key: 'calibration-verification', label: 'Calibration verification', months: 6, rule: 'At least every six months (42 CFR 493.1255(b)(3))', kinds: ['reportable-range'] },
+      { key: 'interval-review', label: 'Reference interval review', months: 12, rule: 'Periodic review of reference intervals (ISO 15189; yearly is common practice)', kinds: ['interval-verify', 'interval-establish'] },
     ],
   },
   'reagent-lot': {
@@ -41,7 +41,7 @@ export const DEFAULT_TEMPLATES: Record<ChangeType, { requirements: Requirement[]
       { key: 'comparison', label: 'Patient specimens before and after the move', kinds: ['method-comparison'], rule: 'A small comparison of patient specimens (common practice)' },
     ],
     dueRules: [
-      { key: 'comparability', label: 'Comparability across instruments', months: 6, rule: 'The same test on different instruments or sites compared twice a year (42 CFR 493.1281)' },
+      { key: 'comparability', label: 'Comparability across instruments', months: 6, rule: 'The same test on different instruments or sites compared twice a year (42 CFR 493.1281)', kinds: ['method-comparison'] },
     ],
   },
   custom: { requirements: [], dueRules: [] },
@@ -53,7 +53,7 @@ const view = (changeType: ChangeType, row: Row | undefined): ReleaseTemplate => 
   changeType,
   label: CHANGE_TYPE_LABELS[changeType],
   requirements: (row?.requirements as Requirement[]) ?? DEFAULT_TEMPLATES[changeType].requirements,
-  dueRules: (row?.dueRules as DueRule[]) ?? DEFAULT_TEMPLATES[changeType].dueRules,
+  dueRules: ((row?.dueRules as DueRule[]) ?? DEFAULT_TEMPLATES[changeType].dueRules).map((r) => ({ ...r, kinds: r.kinds ?? [] })),
   version: row?.version ?? 0,
   updatedAt: row?.updatedAt.toISOString() ?? null,
 });

@@ -55,6 +55,8 @@ export const DueRule = z.object({
   label: words('the re-verification a name', 120),
   months: z.number({ error: 'Months must be a number' }).int('Months must be a whole number').min(1, 'At least 1 month').max(60, 'At most 60 months'),
   rule: z.string().trim().max(500, 'Keep the rule to 500 characters').default(''),
+  /** The kinds of study that re-verify it (a study started from the due item is one of these); empty: any kind. */
+  kinds: z.array(StudyKind).max(5).default([]),
 });
 export type DueRule = z.infer<typeof DueRule>;
 
@@ -202,6 +204,8 @@ export const DueItem = z.object({
   ruleKey: z.string(),
   label: z.string(),
   rule: z.string(),
+  /** The kinds of study that re-verify it (from the release's rule); empty: any kind. */
+  kinds: z.array(StudyKind),
   dueDate: z.string(),
   state: DueState,
   status: z.enum(['overdue', 'due-soon', 'later', 'started', 'done']),

@@ -25,6 +25,10 @@ export const ACTION_CHOICES: readonly ActionChoice[] = [
   { prefix: 'analyte.', label: 'Analyte catalog', icon: 'science' },
   { prefix: 'instrument.', label: 'Instruments', icon: 'precision_manufacturing' },
   { prefix: 'laboratory.', label: 'Laboratory settings', icon: 'tune' },
+  { prefix: 'release.', label: 'Releases: created, studies linked, waived, signed, needing review', icon: 'rocket_launch' },
+  { prefix: 'release.signed', label: 'Release signatures', icon: 'verified' },
+  { prefix: 'release-template.', label: 'Release templates', icon: 'checklist' },
+  { prefix: 'due.', label: 'Re-verification due: set, moved, started, done, reminded', icon: 'event_repeat' },
 ];
 
 /** The icon of a recorded action: the most specific choice whose prefix it starts with. */

@@ -58,7 +58,7 @@ export function release(over: Partial<Release> = {}): Release {
 export function dueItem(over: Partial<DueItem> = {}): DueItem {
   return {
     id: 12, releaseId: 7, releaseTitle: 'Glucose on chemistry line 2', analyte: { id: 3, name: 'Glucose' },
-    instrument: { id: 5, name: 'Chemistry line 2' }, ruleKey: 'yearly-comparison', label: 'Yearly comparison', rule: 'Every 12 months',
+    instrument: { id: 5, name: 'Chemistry line 2' }, ruleKey: 'yearly-comparison', label: 'Yearly comparison', rule: 'Every 12 months', kinds: [],
     dueDate: '2026-06-01', state: 'open', status: 'due-soon', startedRelease: null, startedStudy: null, version: 1, ...over,
   };
 }
@@ -71,7 +71,7 @@ export function templates(): ReleaseTemplate[] {
         { key: 'comparison', label: 'Comparison with the current method', kinds: ['method-comparison'], rule: 'At least 40 specimens' },
         { key: 'precision', label: 'Precision', kinds: ['precision'], rule: '' },
       ],
-      dueRules: [{ key: 'yearly-comparison', label: 'Yearly comparison', months: 12, rule: '' }],
+      dueRules: [{ key: 'yearly-comparison', label: 'Yearly comparison', months: 12, rule: '', kinds: ['method-comparison'] }],
     },
     {
       changeType: 'reagent-lot', label: 'New reagent lot', version: 1, updatedAt: null,

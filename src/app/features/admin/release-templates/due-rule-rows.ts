@@ -4,6 +4,8 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
+import { MatSelectModule } from '@angular/material/select';
+import { STUDY_KIND_LABELS, type StudyKind } from '../../../../../shared/schemas';
 import { FieldErrorPipe } from '../../../ui/field-error';
 import { DueRuleGroup, dueRuleGroup } from '../../releases/requirement-rows/requirement-form';
 
@@ -11,7 +13,7 @@ import { DueRuleGroup, dueRuleGroup } from '../../releases/requirement-rows/requ
 @Component({
   selector: 'app-due-rule-rows',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, FieldErrorPipe],
+  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatSelectModule, FieldErrorPipe],
   template: `
     <ol class="rows" data-testid="due-rule-rows">
       @for (row of rows().controls; track row; let i = $index) {
@@ -26,6 +28,12 @@ import { DueRuleGroup, dueRuleGroup } from '../../releases/requirement-rows/requ
               <mat-label>Months after go-live</mat-label>
               <input matInput type="number" min="1" max="60" step="1" [formControl]="row.controls.months" [attr.data-testid]="'due-rule-months-' + i" />
               <mat-error [attr.data-testid]="'due-rule-months-error-' + i">{{ row.controls.months.errors | fieldError: 'Months' }}</mat-error>
+            </mat-form-field>
+            <mat-form-field class="kinds">
+              <mat-label>Re-verified by a study of (optional)</mat-label>
+              <mat-select multiple [formControl]="row.controls.kinds" [attr.data-testid]="'due-rule-kinds-' + i">
+                @for (k of kinds; track k[0]) { <mat-option [value]="k[0]">{{ k[1] }}</mat-option> }
+              </mat-select>
             </mat-form-field>
             <mat-form-field class="rule">
               <mat-label>Rule it follows (optional)</mat-label>
@@ -55,18 +63,20 @@ import { DueRuleGroup, dueRuleGroup } from '../../releases/requirement-rows/requ
     .fields { display: grid; grid-template-columns: minmax(180px, 2fr) minmax(120px, 1fr) auto; gap: 0 12px; align-items: start; }
     .label { grid-column: 1; grid-row: 1; }
     .months { grid-column: 2; grid-row: 1; }
-    .rule { grid-column: 1 / 3; grid-row: 2; }
+    .kinds { grid-column: 1 / 3; grid-row: 2; }
+    .rule { grid-column: 1 / 3; grid-row: 3; }
     .remove { grid-column: 3; grid-row: 1; margin-top: 8px; }
     .none { padding: 8px 0; }
     @media (max-width: 800px) {
       .fields { grid-template-columns: 1fr auto; }
-      .label, .months, .rule { grid-column: 1; grid-row: auto; }
+      .label, .months, .kinds, .rule { grid-column: 1; grid-row: auto; }
       .remove { grid-column: 2; grid-row: 1; }
     }
   `,
 })
 export class DueRuleRows {
   readonly rows = input.required<FormArray<DueRuleGroup>>();
+  protected readonly kinds = Object.entries(STUDY_KIND_LABELS) as [StudyKind, string][];
 
   protected add(): void {
     this.rows().push(dueRuleGroup());

@@ -61,8 +61,8 @@ describe('ReleaseTemplatesPage', () => {
         { key: 'reportable-range', label: 'Reportable range', kinds: ['reportable-range'], rule: '' },
       ],
       dueRules: [
-        { key: 'yearly-comparison', label: 'Yearly comparison', months: 12, rule: '' },
-        { key: 'half-yearly-precision', label: 'Half-yearly precision', months: 6, rule: '' },
+        { key: 'yearly-comparison', label: 'Yearly comparison', months: 12, rule: '', kinds: ['method-comparison'] },
+        { key: 'half-yearly-precision', label: 'Half-yearly precision', months: 6, rule: '', kinds: [] },
       ],
     });
     req.flush({ ...templates()[0], version: 3, requirements: req.request.body.requirements, dueRules: req.request.body.dueRules });

@@ -26,6 +26,7 @@ async function open(roles: Role[]) {
   expect(req.request.params.get('status')).toBe('pending');
   req.flush([
     dueItem({ id: 14, label: 'Half-yearly precision', status: 'due-soon', dueDate: day(20) }),
+    dueItem({ id: 16, label: 'Interval review', status: 'due-soon', dueDate: day(25), kinds: ['interval-verify'] }),
     dueItem({ id: 15, label: 'Lot check', status: 'later', dueDate: day(90) }),
     dueItem({ id: 12, label: 'Yearly comparison', status: 'overdue', dueDate: day(-12) }),
   ]);
@@ -51,7 +52,7 @@ describe('DueSection', () => {
   it('lists overdue items first, then those due soon, each with its date in words and the release that set it', async () => {
     const { el, q } = await open(['quality']);
     const items = [...el.querySelectorAll('[data-testid="due-item"]')];
-    expect(items.map((i) => i.getAttribute('data-due-id'))).toEqual(['12', '14']);
+    expect(items.map((i) => i.getAttribute('data-due-id'))).toEqual(['12', '14', '16']);
     expect(q('due-words-12')?.textContent).toBe('overdue by 12 days');
     expect(q('due-words-14')?.textContent).toBe('due in 20 days');
     expect(items[0].getAttribute('data-status')).toBe('overdue');
@@ -76,6 +77,15 @@ describe('DueSection', () => {
     req.flush(dueItem({ id: 12, state: 'started', status: 'started', startedStudy: { id: 80, name: 'Yearly comparison: Glucose' } }));
     await fixture.whenStable();
     expect(navigate).toHaveBeenCalledWith(['/studies', 80, 'setup']);
+  });
+
+  it('starts the one kind a rule names with one click', async () => {
+    const { q, click } = await open(['technologist']);
+    expect(q('due-start-study-16-kind-precision')).toBeNull();
+    await click(q('due-start-study-16'));
+    const req = httpController().expectOne({ method: 'POST', url: '/api/v1/due/16/start' });
+    expect(req.request.body).toEqual({ kind: 'interval-verify' });
+    req.flush(dueItem({ id: 16, state: 'started', status: 'started', startedStudy: { id: 81, name: 'Interval review' } }));
   });
 
   it('says so when a study cannot be started', async () => {

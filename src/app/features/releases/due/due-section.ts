@@ -41,8 +41,10 @@ export class DueSection {
   private readonly notices = inject(Notices);
   protected readonly canStart = inject(AuthStore).hasAnyRole(['technologist', 'director']);
   protected readonly today = labToday();
-  /** A due item names no kinds of study, so every kind is offered. */
-  protected readonly kinds: readonly StudyKind[] = STUDY_KINDS;
+  /** The kinds of study that re-verify an item (its rule's); every kind when the rule names none. */
+  protected kindsOf(item: DueItem): readonly StudyKind[] {
+    return item.kinds.length ? item.kinds : STUDY_KINDS;
+  }
   protected readonly busy = signal<number | null>(null);
   protected readonly problem = signal<string | null>(null);
 

@@ -41,7 +41,9 @@ describe('dueRulesOf', () => {
   it('sends the months as a number and refuses a month count out of range', () => {
     const rows = dueRuleArray([]);
     rows.push(dueRuleGroup({ label: 'Yearly comparison', months: 12 }));
-    expect(dueRulesOf(rows)).toEqual([{ key: 'yearly-comparison', label: 'Yearly comparison', months: 12, rule: '' }]);
+    expect(dueRulesOf(rows)).toEqual([{ key: 'yearly-comparison', label: 'Yearly comparison', months: 12, rule: '', kinds: [] }]);
+    rows.at(0).controls.kinds.setValue(['method-comparison']);
+    expect(dueRulesOf(rows)[0].kinds).toEqual(['method-comparison']);
     rows.at(0).controls.months.setValue(61);
     expect(rows.at(0).controls.months.errors).toEqual({ rule: 'At most 60 months' });
     rows.at(0).controls.months.setValue(null);

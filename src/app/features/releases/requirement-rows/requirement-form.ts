@@ -15,6 +15,7 @@ export type DueRuleGroup = FormGroup<{
   label: FormControl<string>;
   months: FormControl<number | null>;
   rule: FormControl<string>;
+  kinds: FormControl<StudyKind[]>;
 }>;
 
 /** A requirement's fields, each checked with the API's own rule so the field says what the server would. */
@@ -33,6 +34,7 @@ export function dueRuleGroup(d: Partial<DueRule> = {}): DueRuleGroup {
     label: new FormControl(d.label ?? '', { nonNullable: true, validators: [schemaRule(DueRule.shape.label)] }),
     months: new FormControl<number | null>(d.months ?? 12, { validators: [schemaRule(DueRule.shape.months)] }),
     rule: new FormControl(d.rule ?? '', { nonNullable: true, validators: [schemaRule(DueRule.shape.rule)] }),
+    kinds: new FormControl<StudyKind[]>([...(d.kinds ?? [])], { nonNullable: true, validators: [schemaRule(DueRule.shape.kinds)] }),
   });
 }
 
@@ -79,6 +81,6 @@ export function dueRulesOf(rows: FormArray<DueRuleGroup>): DueRule[] {
     const label = v.label.trim();
     const key = v.key || keyFrom(label, taken, 'due');
     taken.add(key);
-    return { key, label, months: v.months ?? Number.NaN, rule: v.rule.trim() };
+    return { key, label, months: v.months ?? Number.NaN, rule: v.rule.trim(), kinds: [...v.kinds] };
   });
 }
