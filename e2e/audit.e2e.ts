@@ -1,68 +1,13 @@
-import { expect, request, test, type APIRequestContext, type Download, type Page } from '@playwright/test';
+import { expect, test, type Download, type Page } from '@playwright/test';
 import { createHash } from 'node:crypto';
 import { mkdirSync, readFileSync, statSync } from 'node:fs';
 import path from 'node:path';
 import { laboratoryDate, laboratoryTime } from '../shared/types/lab-time';
+import { NO_SESSION, signedStudy } from './fixtures/api';
 
 const SCREENSHOTS = path.resolve(__dirname, '../.test-output/screenshots');
 const PASSWORD = 'parallax-demo';
 const QUALITY_STATE = path.resolve(__dirname, '../.test-output/quality-session.json');
-/** A fresh cookie jar, whatever `test.use` sets for the pages. */
-const NO_SESSION = { cookies: [], origins: [] };
-
-/** Sends the XSRF-TOKEN cookie back as the header, as Angular does; the token is read fresh each call. */
-async function send(api: APIRequestContext, method: 'post' | 'put', url: string, data: unknown) {
-  const { cookies } = await api.storageState();
-  const token = cookies.find((c) => c.name === 'XSRF-TOKEN')?.value ?? '';
-  const response = await api[method](url, { data, headers: { 'X-XSRF-TOKEN': token } });
-  expect(response.ok(), `${method.toUpperCase()} ${url} answered ${response.status()}: ${await response.text()}`).toBe(true);
-  return response.json();
-}
-
-/** An API session of one demo user (its own cookie jar). */
-async function apiAs(baseURL: string, email: string): Promise<APIRequestContext> {
-  const api = await request.newContext({ baseURL, storageState: NO_SESSION });
-  await api.get('/api/v1/session'); // 401, but it sets the XSRF-TOKEN cookie
-  await send(api, 'post', '/api/v1/session', { email, password: PASSWORD });
-  return api;
-}
-
-/** 40 invented glucose pairs (mmol/L) across 3–20, the candidate about 1% higher, with a small fixed wobble. */
-function inventedRows() {
-  const wobble = [0.1, -0.1, 0, 0.1, -0.1, 0, 0.05, -0.05];
-  return Array.from({ length: 40 }, (_, i) => {
-    const comparative = Math.round((3 + (17 * i) / 39) * 10) / 10;
-    const candidate = Math.round((comparative * 1.01 + wobble[i % wobble.length]) * 10) / 10;
-    return { label: `AU-${String(i + 1).padStart(3, '0')}`, comparative, candidate };
-  });
-}
-
-/** A technologist enters, analyses and submits a glucose comparison; the director signs it as accepted. */
-async function signedStudy(baseURL: string, title: string): Promise<number> {
-  const tech = await apiAs(baseURL, 'tech@valeharbor.example');
-  const analytes: { id: number; name: string; unit: string }[] = await (await tech.get('/api/v1/analytes')).json();
-  const instruments: { id: number; name: string }[] = await (await tech.get('/api/v1/instruments')).json();
-  const glucose = analytes.find((a) => a.name === 'Glucose' && a.unit === 'mmol/L') ?? analytes.find((a) => a.name === 'Glucose');
-  expect(glucose, 'the demo catalog has Glucose').toBeTruthy();
-  expect(instruments.length).toBeGreaterThanOrEqual(2);
-  const study = await send(tech, 'post', '/api/v1/studies', {
-    kind: 'method-comparison', title, analyteId: glucose!.id,
-    comparativeInstrumentId: instruments[0].id, candidateInstrumentId: instruments[1].id,
-    settings: { resamples: 1000, regressionResamples: 1000 },
-  });
-  const fresh = await (await tech.get(`/api/v1/studies/${study.id}`)).json();
-  await send(tech, 'put', `/api/v1/studies/${study.id}/specimens`, { version: fresh.version, rows: inventedRows() });
-  const { id: analysisId } = await send(tech, 'post', `/api/v1/studies/${study.id}/analyses`, {});
-  await expect
-    .poll(async () => (await (await tech.get(`/api/v1/analyses/${analysisId}`)).json()).state, { timeout: 120_000, intervals: [500, 1000, 2000] })
-    .toBe('done');
-  await send(tech, 'post', `/api/v1/studies/${study.id}/submit`, {});
-  await tech.dispose();
-  const director = await apiAs(baseURL, 'director@valeharbor.example');
-  await send(director, 'post', `/api/v1/studies/${study.id}/sign`, { meaning: 'accepted', comment: 'Bias within goal at all three decision levels.', password: PASSWORD });
-  await director.dispose();
-  return study.id;
-}
 
 async function signIn(page: Page, email: string): Promise<void> {
   await page.goto('/sign-in');
