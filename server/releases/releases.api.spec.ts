@@ -145,6 +145,24 @@ describe('a release and its board', () => {
     expect((await eventsOf(release.id)).map((e) => e.action)).toEqual(['release.created', 'release.study-linked', 'release.study-unlinked']);
   });
 
+  it('changes an open release with the version read; only a director changes a custom change\'s requirements', async () => {
+    const { tech, director } = await people();
+    const ids = await catalogIds(h);
+    const custom = (await post(director, '/releases', {
+      changeType: 'custom', title: 'Glucose after a firmware update', analyteId: ids.analyteId, instrumentId: ids.candidateInstrumentId,
+      requirements: [{ label: 'Precision', kinds: ['precision'] }],
+    }).expect(201)).body;
+    const renamed = (await patch(tech, `/releases/${custom.id}`, { version: custom.version, title: 'Glucose after firmware 4.2', note: 'Vendor bulletin 12 (invented)' }).expect(200)).body;
+    expect(renamed).toMatchObject({ title: 'Glucose after firmware 4.2', note: 'Vendor bulletin 12 (invented)', version: custom.version + 1 });
+    const stale = await patch(tech, `/releases/${custom.id}`, { version: custom.version, title: 'x' }).expect(409);
+    expect(stale.body.issues[0]).toMatchObject({ path: 'version' });
+    await patch(tech, `/releases/${custom.id}`, { version: renamed.version, requirements: [{ label: 'Comparison', kinds: ['method-comparison'] }] }).expect(403);
+    const picked = (await patch(director, `/releases/${custom.id}`, { version: renamed.version, requirements: [{ key: 'precision', label: 'Precision', kinds: ['precision'] }, { label: 'Patient comparison', kinds: ['method-comparison'] }] }).expect(200)).body;
+    expect(picked.requirements.map((r: { key: string }) => r.key)).toEqual(['precision', 'patient-comparison']);
+    const event = (await eventsOf(custom.id)).find((e) => e.action === 'release.updated')!;
+    expect(event).toMatchObject({ before: { title: 'Glucose after a firmware update' }, after: { title: 'Glucose after firmware 4.2' } });
+  });
+
   it('lets only a director waive a requirement, with a reason, audited', async () => {
     const { tech, director } = await people();
     const release = await lotChange(tech);
@@ -203,6 +221,21 @@ describe('approval', () => {
     // The component's key figures, from its kind (server/kinds/method-comparison keyFigures).
     expect(text).toMatch(/Median bias -?\d\.\d\d mmol\/L \(-?\d\.\d\d to -?\d\.\d\d\), 95% CI; n = 40/);
     expect(text).toMatch(/Bias at 7\.0 mmol\/L: .*within the allowable bias/);
+  });
+
+  it('keeps segregation of duties: a director who entered rows of a component does not sign the release', async () => {
+    const { director } = await people();
+    const lead = await signedIn(h, 'lead@valeharbor.example');
+    const release = await lotChange(lead);
+    const study = await analysedComparison(h, lead, `Lot comparison entered by the lead ${Date.now()}`);
+    await post(lead, `/studies/${study.id}/submit`).expect(200);
+    await post(director, `/studies/${study.id}/sign`, { meaning: 'accepted', password: 'parallax-demo' }).expect(200);
+    await post(lead, `/releases/${release.id}/studies`, { requirement: 'lot-comparison', studyId: study.id }).expect(200);
+    const board = (await lead.agent.get(`/api/v1/releases/${release.id}`).expect(200)).body;
+    expect(board.mayISign).toEqual({ allowed: false, why: 'You entered rows of a study in this release; another director signs it (segregation of duties).' });
+    const refused = await post(lead, `/releases/${release.id}/sign`, { meaning: 'released', goLiveDate: '2026-12-10', password: 'parallax-demo' }).expect(403);
+    expect(refused.body.error).toMatch(/segregation of duties/);
+    expect((await director.agent.get(`/api/v1/releases/${release.id}`).expect(200)).body.mayISign.allowed).toBe(true);
   });
 
   it('signs "not released" when a component was not accepted, and refuses "released" then', async () => {
