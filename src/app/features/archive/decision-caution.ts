@@ -1,13 +1,16 @@
-import { ChangeDetectionStrategy, Component } from '@angular/core';
+import { ChangeDetectionStrategy, Component, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
 import { CAUTION } from '../../../../shared/stats/comparison-types';
 
-/** The caution every page that shows findings carries; it prints too. */
+/**
+ * The caution every page that shows findings carries (the findings' words unless a page gives its own, as a
+ * release's page gives the release's); it prints too.
+ */
 @Component({
   selector: 'app-decision-caution',
   changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [MatIconModule],
-  template: `<p class="caution" data-testid="caution"><mat-icon aria-hidden="true">info</mat-icon><span>{{ text }}</span></p>`,
+  template: `<p class="caution" [attr.data-testid]="testId()"><mat-icon aria-hidden="true">info</mat-icon><span>{{ text() || fallback }}</span></p>`,
   styles: `
     .caution {
       display: flex;
@@ -29,5 +32,8 @@ import { CAUTION } from '../../../../shared/stats/comparison-types';
   `,
 })
 export class DecisionCaution {
-  protected readonly text = CAUTION;
+  /** The page's own words (a release answer's `caution`); the findings' caution when not given. */
+  readonly text = input<string | null | undefined>(null);
+  readonly testId = input('caution');
+  protected readonly fallback = CAUTION;
 }

@@ -17,7 +17,7 @@ import { LinkStudyData, LinkStudyDialog } from '../dialogs/link-study-dialog';
 import { WaiveData, WaiveDialog } from '../dialogs/waive-dialog';
 import { labToday } from '../lab-today';
 import { ReleaseApi } from '../release-api';
-import { ReleaseCaution } from '../release-caution';
+import { DecisionCaution } from '../../archive/decision-caution';
 import { ReleaseStateChip } from '../release-state-chip';
 import { dueIcon, dueWords, metWords } from '../release-words';
 import { SignPanel } from '../sign-panel/sign-panel';
@@ -39,7 +39,7 @@ const DIALOG = { width: '600px', maxWidth: '95vw' };
   changeDetection: ChangeDetectionStrategy.OnPush,
   providers: [ReleaseBoardStore],
   imports: [
-    MatButtonModule, MatIconModule, MatProgressBarModule, RouterLink, ErrorBanner, ZonedPipe, ReleaseCaution, ReleaseStateChip,
+    MatButtonModule, MatIconModule, MatProgressBarModule, RouterLink, ErrorBanner, ZonedPipe, DecisionCaution, ReleaseStateChip,
     RequirementCard, SignPanel, ReleaseIntegrity, ReleaseHistory,
   ],
 })

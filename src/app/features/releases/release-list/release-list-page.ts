@@ -8,7 +8,7 @@ import { MatSortModule, Sort } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { Router, RouterLink } from '@angular/router';
 import { filter } from 'rxjs';
-import { CHANGE_TYPE_LABELS, ReleaseQuery, type Release, type ReleaseSummary } from '../../../../../shared/schemas';
+import { CHANGE_TYPE_LABELS, RELEASE_CAUTION, ReleaseQuery, type Release, type ReleaseSummary } from '../../../../../shared/schemas';
 import { AuthStore } from '../../../core/auth/auth-store';
 import { ApiError } from '../../../core/http/api-error';
 import { ErrorBanner } from '../../../ui/error-banner';
@@ -19,7 +19,7 @@ import { routeQuery } from '../../archive/route-query';
 import { CreateReleaseData, CreateReleaseDialog } from '../create-release/create-release-dialog';
 import { ReleaseApi } from '../release-api';
 import { RELEASE_KEYS, RELEASE_PAGE_SIZE, ReleaseFilter, exportFilter, releaseFilterFrom } from '../release-query';
-import { ReleaseCaution } from '../release-caution';
+import { DecisionCaution } from '../../archive/decision-caution';
 import { ReleaseStateChip } from '../release-state-chip';
 import { metWords } from '../release-words';
 import { ReleaseFilters } from './release-filters';
@@ -34,10 +34,11 @@ import { ReleaseListStore } from './release-list-store';
   providers: [ReleaseListStore],
   imports: [
     MatTableModule, MatSortModule, MatPaginatorModule, MatButtonModule, MatIconModule, MatProgressBarModule, RouterLink,
-    ErrorBanner, ZonedPipe, ReleaseFilters, ReleaseStateChip, ReleaseCaution,
+    ErrorBanner, ZonedPipe, ReleaseFilters, ReleaseStateChip, DecisionCaution,
   ],
 })
 export class ReleaseListPage {
+  protected readonly caution = RELEASE_CAUTION;
   protected readonly store = inject(ReleaseListStore);
   private readonly api = inject(ReleaseApi);
   private readonly auth = inject(AuthStore);
