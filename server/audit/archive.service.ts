@@ -3,7 +3,7 @@ import { sql, SQL } from 'drizzle-orm';
 import type { ArchiveItem, ArchivePage, ArchiveQuery } from '../../shared/schemas';
 import type { SignedInUser } from '../auth/session-user';
 import type { Database, Executor } from '../db/client';
-import { labDaysFilter, labTimeZone } from '../db/lab-zone';
+import { signedAndCreatedDays } from '../db/lab-zone';
 import { typedVerificationCode } from '../signoff/content-hash';
 
 /**
@@ -45,14 +45,8 @@ async function filters(db: Database, me: SignedInUser, q: ArchiveQuery): Promise
   if (q.instrumentId) parts.push(sql`${q.instrumentId} IN (comparative_instrument_id, candidate_instrument_id, instrument_id)`);
   if (q.verdict) parts.push(sql`verdict = ${q.verdict}`);
   if (q.signerId) parts.push(sql`signer_id = ${q.signerId}`);
-  if (q.signedFrom || q.signedTo || q.createdFrom || q.createdTo) {
-    // Dates mean the laboratory's days.
-    const zone = await labTimeZone(db, me.laboratoryId);
-    const signed = labDaysFilter(sql`sig_at`, { from: q.signedFrom, to: q.signedTo }, zone);
-    const created = labDaysFilter(sql`created_at`, { from: q.createdFrom, to: q.createdTo }, zone);
-    if (signed) parts.push(signed);
-    if (created) parts.push(created);
-  }
+  // Dates mean the laboratory's days.
+  parts.push(...await signedAndCreatedDays(db, me.laboratoryId, q, sql`sig_at`, sql`created_at`));
   if (q.q) {
     // The verification code printed on any of the study's signed PDFs finds it, typed as printed or not.
     const code = typedVerificationCode(q.q);

@@ -28,3 +28,13 @@ export async function inLabDays(db: Executor, laboratoryId: number, column: PgCo
   if (!range.from && !range.to) return undefined;
   return labDaysFilter(column, range, await labTimeZone(db, laboratoryId));
 }
+
+/** The searches' "signed between" and "created between" filters, in the laboratory's days (its zone read only when a date is given). */
+export async function signedAndCreatedDays(
+  db: Executor, laboratoryId: number, q: { signedFrom?: string; signedTo?: string; createdFrom?: string; createdTo?: string }, signedAt: SQL, createdAt: SQL,
+): Promise<SQL[]> {
+  if (!q.signedFrom && !q.signedTo && !q.createdFrom && !q.createdTo) return [];
+  const zone = await labTimeZone(db, laboratoryId);
+  return [labDaysFilter(signedAt, { from: q.signedFrom, to: q.signedTo }, zone), labDaysFilter(createdAt, { from: q.createdFrom, to: q.createdTo }, zone)]
+    .filter((f): f is SQL => f !== undefined);
+}

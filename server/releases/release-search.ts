@@ -8,7 +8,7 @@ import { describeEvent } from '../../shared/types/audit-words';
 import { laboratoryTime } from '../../shared/types/lab-time';
 import type { SignedInUser } from '../auth/session-user';
 import type { Database } from '../db/client';
-import { labDaysFilter, labTimeZone } from '../db/lab-zone';
+import { labTimeZone, signedAndCreatedDays } from '../db/lab-zone';
 import { auditEvents } from '../db/schema';
 import { typedVerificationCode } from '../signoff/content-hash';
 import { boardOf, findRelease } from './release-board';
@@ -39,13 +39,7 @@ async function filters(db: Database, me: SignedInUser, q: ReleaseQuery): Promise
   if (q.analyteId) parts.push(sql`analyte_id = ${q.analyteId}`);
   if (q.instrumentId) parts.push(sql`${q.instrumentId} IN (instrument_id, comparative_instrument_id)`);
   if (q.signerId) parts.push(sql`signer_id = ${q.signerId}`);
-  if (q.signedFrom || q.signedTo || q.createdFrom || q.createdTo) {
-    const zone = await labTimeZone(db, me.laboratoryId);
-    const signed = labDaysFilter(sql`sig_at`, { from: q.signedFrom, to: q.signedTo }, zone);
-    const created = labDaysFilter(sql`created_at`, { from: q.createdFrom, to: q.createdTo }, zone);
-    if (signed) parts.push(signed);
-    if (created) parts.push(created);
-  }
+  parts.push(...await signedAndCreatedDays(db, me.laboratoryId, q, sql`sig_at`, sql`created_at`));
   if (q.q) {
     const code = typedVerificationCode(q.q);
     const byCode = code ? sql` OR EXISTS (SELECT 1 FROM release_signatures v WHERE v.release_id = found.id AND v.verification_code = ${code})` : sql``;

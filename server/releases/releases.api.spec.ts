@@ -5,7 +5,7 @@ import { laboratoryDate } from '../../shared/types/lab-time';
 import { auditEvents, dueItems, dueReminders, instruments, mailMessages, releaseSignatures, releases, studies } from '../db/schema';
 import { flat, pdfPages } from '../reports/testing/pdf-text';
 import { analysedComparison, catalogIds } from '../test/fixtures';
-import { binary, Harness, signedIn, signedStudy, startHarness } from '../test/harness';
+import { apiDelete, apiPatch, apiPost, apiPut, binary, Harness, signedIn, signedStudy, startHarness, type Session } from '../test/harness';
 import { DEMO_RELEASES } from './demo';
 import { sendDueReminders } from './due.service';
 
@@ -18,11 +18,7 @@ let h: Harness;
 beforeAll(async () => { h = await startHarness({}, { jobs: true }); });
 afterAll(() => h.close());
 
-type Session = Awaited<ReturnType<typeof signedIn>>;
-const post = (s: Session, path: string, body: object = {}) => s.agent.post(`/api/v1${path}`).set('X-XSRF-TOKEN', s.xsrf).send(body);
-const put = (s: Session, path: string, body: object) => s.agent.put(`/api/v1${path}`).set('X-XSRF-TOKEN', s.xsrf).send(body);
-const patch = (s: Session, path: string, body: object) => s.agent.patch(`/api/v1${path}`).set('X-XSRF-TOKEN', s.xsrf).send(body);
-const del = (s: Session, path: string) => s.agent.delete(`/api/v1${path}`).set('X-XSRF-TOKEN', s.xsrf).send({});
+const [post, put, patch, del] = [apiPost, apiPut, apiPatch, apiDelete];
 const people = async () => ({
   tech: await signedIn(h, 'tech@valeharbor.example'),
   director: await signedIn(h, 'director@valeharbor.example'),

@@ -52,6 +52,14 @@ export async function signedIn(h: CreatedApp, email: string, password = DEMO_PAS
   return session;
 }
 
+export type Session = Awaited<ReturnType<typeof signedIn>>;
+
+/** A signed-in session's writes under /api/v1, with the XSRF header Angular sends. */
+export const apiPost = (s: Session, path: string, body: object = {}) => s.agent.post(`/api/v1${path}`).set('X-XSRF-TOKEN', s.xsrf).send(body);
+export const apiPut = (s: Session, path: string, body: object) => s.agent.put(`/api/v1${path}`).set('X-XSRF-TOKEN', s.xsrf).send(body);
+export const apiPatch = (s: Session, path: string, body: object) => s.agent.patch(`/api/v1${path}`).set('X-XSRF-TOKEN', s.xsrf).send(body);
+export const apiDelete = (s: Session, path: string) => s.agent.delete(`/api/v1${path}`).set('X-XSRF-TOKEN', s.xsrf).send({});
+
 let counter = 0;
 /** A unique e-mail per call, so tests never trip over each other's users. */
 export const uniqueEmail = (prefix: string) => `${prefix}.${Date.now().toString(36)}.${++counter}@valeharbor.example`;
