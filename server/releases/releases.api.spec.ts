@@ -127,6 +127,7 @@ describe('a release and its board', () => {
     expect(study).toMatchObject({ analyteId: ids.analyteId, comparativeInstrumentId: ids.comparativeInstrumentId, candidateInstrumentId: ids.candidateInstrumentId });
     expect((study.settings as { candidateLot: string }).candidateLot).toBe('GLU-7000');
     expect(started.blockers).toContain(`Method comparison: study ${study.id} is a draft`);
+    expect((await tech.agent.get(`/api/v1/studies/${study.id}`).expect(200)).body.release).toEqual({ id: release.id, title: release.title, requirement: 'Method comparison' });
 
     const wrongKind = await post(tech, `/releases/${release.id}/studies`, { requirement: 'precision', studyId: study.id }).expect(400);
     expect(wrongKind.body.issues[0]).toEqual({ path: 'studyId', message: `Study ${study.id} is a method comparison; "Precision" needs precision verification` });
@@ -137,6 +138,7 @@ describe('a release and its board', () => {
 
     const unlinked = (await del(tech, `/releases/${release.id}/studies/${study.id}`).expect(200)).body;
     expect(unlinked.requirements[0].status).toBe('missing');
+    expect((await tech.agent.get(`/api/v1/studies/${study.id}`).expect(200)).body.release).toBeNull();
     await post(tech, `/releases/${other.id}/studies`, { requirement: 'lot-comparison', studyId: study.id }).expect(200);
     expect((await eventsOf(release.id)).map((e) => e.action)).toEqual(['release.created', 'release.study-linked', 'release.study-unlinked']);
   });

@@ -1,9 +1,9 @@
 import { kindMeta } from '../../shared/kinds/kinds';
 import { parseKindSettings } from '../../shared/kinds/settings';
-import { sql } from 'drizzle-orm';
+import { eq, sql } from 'drizzle-orm';
 import { StudySettings, type FindingsStatus, type Study, type StudyKind, type StudyState, type StudySummary } from '../../shared/schemas';
 import type { Executor } from '../db/client';
-import { analyses, analytes, instruments, users } from '../db/schema';
+import { analyses, analytes, instruments, releaseStudies, releases, users } from '../db/schema';
 import type { SignedInUser } from '../auth/session-user';
 import { mayISign } from '../signoff/who-may-sign';
 import { submissionNoteOf } from '../signoff/submission-note';
@@ -130,5 +130,15 @@ export async function studyView(db: Executor, row: StudyRow, me: SignedInUser): 
     returnComment: row.returnComment,
     submissionNote: await submissionNoteOf(db, row),
     mayISign: { allowed, why },
+    release: await releaseOf(db, row.id),
   };
+}
+
+/** The release a study belongs to, and the requirement it meets there (by its label). */
+async function releaseOf(db: Executor, studyId: number): Promise<Study['release']> {
+  const [link] = await db.select({ id: releases.id, title: releases.title, key: releaseStudies.requirementKey, requirements: releases.requirements })
+    .from(releaseStudies).innerJoin(releases, eq(releases.id, releaseStudies.releaseId)).where(eq(releaseStudies.studyId, studyId));
+  if (!link) return null;
+  const requirement = (link.requirements as { key: string; label: string }[]).find((r) => r.key === link.key)?.label ?? link.key;
+  return { id: link.id, title: link.title, requirement };
 }

@@ -152,6 +152,8 @@ export const Study = StudySummary.extend({
   submissionNote: z.object({ text: z.string(), by: Ref, at: z.string().nullable() }).nullable(),
   /** For the person who asked. */
   mayISign: MayISign,
+  /** The release this study belongs to (at most one), and the requirement it meets there; null when none. */
+  release: z.object({ id: z.number(), title: z.string(), requirement: z.string() }).nullable(),
 });
 export type Study = z.infer<typeof Study>;
 
