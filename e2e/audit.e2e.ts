@@ -160,6 +160,8 @@ test.describe('the quality officer audits a study the laboratory signed', () => 
     const signed = page.locator('[data-action="study.signed"]');
     await expect(signed).toHaveCount(1);
     await expect(signed).toContainText('Signed: accepted for patient testing');
+    // The list follows the typed number as it is typed: wait for this study's one creation before reading it.
+    await expect(page.locator('[data-action="study.created"]')).toHaveCount(1);
     await expect(page.locator('[data-action="study.created"]')).toContainText(title);
     await page.getByTestId('check-chains').click();
     await expect(page.getByTestId('chains-outcome')).toHaveText(/Passed\. Both history chains are intact/);

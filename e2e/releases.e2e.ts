@@ -2,6 +2,7 @@ import { expect, test } from '@playwright/test';
 import { execFileSync } from 'node:child_process';
 import { mkdirSync, readdirSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
+import { addDays } from '../shared/types/due-dates';
 import { apiAs, send, signedStudy } from './fixtures/api';
 import { fullShot, SCREENSHOTS, signIn } from './fixtures/pages';
 
@@ -14,7 +15,7 @@ test.beforeEach(() => {
 /**
  * A director releases a new reagent lot for patient testing, from the board to the signed PDF. Before the page is
  * opened, a technologist created the lot change and linked the lot comparison, which the director had signed
- * (through the API, as in the audit journey); the demo's released glucose system and its overdue item are seen too.
+ * (through the API, as in the audit journey); an overdue item of the demo's released glucose system is seen too.
  */
 test('a director releases a reagent lot from the board and opens the signed release PDF', async ({ page, baseURL }) => {
   test.setTimeout(240_000);
@@ -31,9 +32,17 @@ test('a director releases a reagent lot from the board and opens the signed rele
   await send(tech, 'post', `/api/v1/releases/${release.id}/studies`, { requirement: 'lot-comparison', studyId });
   await tech.dispose();
 
-  // The Worklist says what is due: the demo's calibration verification, brought forward, is overdue.
+  // A re-verification the demo release set due is brought forward by the director, so it is overdue (the suites
+  // before this one may have started or finished others), and the Worklist says so.
+  const director = await apiAs(baseURL!, 'director@valeharbor.example');
+  const due: { id: number; state: string; label: string; dueDate: string; daysLeft: number; version: number }[] = await (await director.get('/api/v1/due?status=pending')).json();
+  const item = due.find((d) => d.state === 'open')!;
+  const today = addDays(item.dueDate, -item.daysLeft);
+  const moved = await send(director, 'patch', `/api/v1/due/${item.id}`, { version: item.version, dueDate: addDays(today, -3), reason: 'Brought forward after a quality-control shift (invented)' });
+  expect(moved.dueWords).toBe('overdue by 3 days');
+  await director.dispose();
   await signIn(page, 'director@valeharbor.example');
-  const overdue = page.getByTestId('due-item').filter({ hasText: 'Calibration verification' });
+  const overdue = page.getByTestId('due-item').filter({ hasText: item.label });
   await expect(overdue).toContainText(/overdue by 3 days/);
   await fullShot(page, 'release-worklist-due.png');
 
