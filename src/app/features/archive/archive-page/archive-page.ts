@@ -1,22 +1,21 @@
-import { ChangeDetectionStrategy, Component, computed, effect, inject, signal, untracked } from '@angular/core';
+import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
-import { MatPaginatorModule, PageEvent } from '@angular/material/paginator';
+import { MatPaginatorModule } from '@angular/material/paginator';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { MatSortModule, Sort } from '@angular/material/sort';
+import { MatSortModule } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { Router, RouterLink } from '@angular/router';
 import { ArchiveQuery, STUDY_KIND_LABELS, STUDY_STATE_LABELS, type ArchiveItem } from '../../../../../shared/schemas';
 import { ApiError } from '../../../core/http/api-error';
 import { ErrorBanner } from '../../../ui/error-banner';
-import { ARCHIVE_KEYS, ARCHIVE_PAGE_SIZE, ArchiveFilter, archiveExportUrl, archiveFilterFrom } from '../archive-query';
+import { ARCHIVE_KEYS, ARCHIVE_PAGE_SIZE, archiveExportUrl, archiveFilterFrom } from '../archive-query';
 import { ArchiveStore } from '../archive-store';
 import { ArchiveFilters } from '../archive-filters/archive-filters';
 import { DecisionCaution } from '../decision-caution';
 import { FileDownload } from '../file-download';
 import { ZonedPipe, labZone } from '../../../ui/lab-time';
-import { withChange } from '../query-params';
-import { routeQuery } from '../route-query';
+import { listQuery } from '../list-query';
 import { VerdictBadge } from '../verdict-badge';
 import { meaningWords } from '../verdict-view';
 
@@ -36,40 +35,17 @@ export class ArchivePage {
   protected readonly store = inject(ArchiveStore);
   private readonly router = inject(Router);
   private readonly downloads = inject(FileDownload);
-  private readonly address = routeQuery<ArchiveQuery, (typeof ARCHIVE_KEYS)[number]>(archiveFilterFrom, ARCHIVE_KEYS);
+  protected readonly list = listQuery({
+    parse: archiveFilterFrom, keys: ARCHIVE_KEYS, pageSize: ARCHIVE_PAGE_SIZE, sortKey: ArchiveQuery.shape.sort,
+    sortDefault: { active: 'createdAt', direction: 'desc' }, search: (query) => this.store.search(query),
+  });
   protected readonly zone = labZone();
-  protected readonly filter = this.address.query;
   protected readonly columns = ['title', 'kind', 'n', 'state', 'verdict', 'signed', 'createdAt'];
   protected readonly kindLabel = (item: ArchiveItem): string => STUDY_KIND_LABELS[item.kind];
   protected readonly stateLabel = (item: ArchiveItem): string => STUDY_STATE_LABELS[item.state];
   protected readonly meaning = meaningWords;
-  protected readonly pageSize = computed(() => this.filter().pageSize ?? ARCHIVE_PAGE_SIZE);
-  protected readonly pageIndex = computed(() => (this.filter().page ?? 1) - 1);
-  protected readonly sort = computed(() => ({ active: this.filter().sort ?? 'createdAt', direction: this.filter().order ?? 'desc' }));
   protected readonly downloading = signal(false);
   protected readonly downloadError = signal<string | null>(null);
-
-  constructor() {
-    effect(() => {
-      const filter = this.filter();
-      untracked(() => this.store.search(filter));
-    });
-  }
-
-  protected searched(fields: ArchiveFilter): void {
-    const { sort, order, pageSize } = this.filter();
-    this.go(withChange<ArchiveQuery>({ sort, order, pageSize }, fields));
-  }
-
-  protected sorted(sort: Sort): void {
-    const active = ArchiveQuery.shape.sort.safeParse(sort.active);
-    const keep = sort.direction && active.success;
-    this.go({ ...this.filter(), sort: keep ? active.data : undefined, order: keep ? (sort.direction as 'asc' | 'desc') : undefined, page: undefined });
-  }
-
-  protected paged(event: PageEvent): void {
-    this.go({ ...this.filter(), page: event.pageIndex + 1, pageSize: event.pageSize === ARCHIVE_PAGE_SIZE ? undefined : event.pageSize });
-  }
 
   protected open(item: ArchiveItem): void {
     void this.router.navigate(['/archive', item.id]);
@@ -78,16 +54,12 @@ export class ArchivePage {
   protected downloadList(): void {
     this.downloading.set(true);
     this.downloadError.set(null);
-    this.downloads.save(archiveExportUrl(this.filter()), 'parallax-archive.xlsx').subscribe({
+    this.downloads.save(archiveExportUrl(this.list.query()), 'parallax-archive.xlsx').subscribe({
       next: () => this.downloading.set(false),
       error: (err: ApiError) => {
         this.downloading.set(false);
         this.downloadError.set(`The list could not be downloaded: ${err.message}`);
       },
     });
-  }
-
-  private go(filter: ArchiveFilter): void {
-    this.address.go(filter);
   }
 }

@@ -11,10 +11,9 @@ import { Notices } from '../../../core/notify/notices';
 import { ConfirmData, ConfirmDialog } from '../../../ui/confirm-dialog/confirm-dialog';
 import { ErrorBanner } from '../../../ui/error-banner';
 import { ZonedPipe, labZone } from '../../../ui/lab-time';
-import { DueDateDialog } from '../dialogs/due-date-dialog';
 import { EditReleaseData, EditReleaseDialog } from '../dialogs/edit-release-dialog';
 import { LinkStudyData, LinkStudyDialog } from '../dialogs/link-study-dialog';
-import { WaiveData, WaiveDialog } from '../dialogs/waive-dialog';
+import { ReleaseReasonData, ReleaseReasonDialog } from '../dialogs/release-reason-dialog';
 import { labToday } from '../lab-today';
 import { ReleaseApi } from '../release-api';
 import { DecisionCaution } from '../../archive/decision-caution';
@@ -119,8 +118,11 @@ export class ReleaseBoardPage {
   }
 
   protected waive(release: Release, requirement: BoardRequirement): void {
-    const data: WaiveData = { releaseId: release.id, requirement };
-    this.afterDialog(this.dialogs.open<WaiveDialog, WaiveData, Release>(WaiveDialog, { ...DIALOG, data }).afterClosed(), `“${requirement.label}” is waived.`);
+    const data: ReleaseReasonData = { step: 'waive', releaseId: release.id, requirement };
+    this.afterDialog(
+      this.dialogs.open<ReleaseReasonDialog, ReleaseReasonData, Release>(ReleaseReasonDialog, { ...DIALOG, data }).afterClosed(),
+      `“${requirement.label}” is waived.`,
+    );
   }
 
   protected edit(release: Release): void {
@@ -130,7 +132,7 @@ export class ReleaseBoardPage {
 
   protected moveDue(item: DueItem): void {
     this.dialogs
-      .open<DueDateDialog, DueItem, DueItem>(DueDateDialog, { ...DIALOG, data: item })
+      .open<ReleaseReasonDialog, ReleaseReasonData, DueItem>(ReleaseReasonDialog, { ...DIALOG, data: { step: 'move-due', item } })
       .afterClosed()
       .pipe(filter((moved): moved is DueItem => !!moved))
       .subscribe((moved) => {

@@ -1,35 +1,32 @@
 import { ChangeDetectionStrategy, Component, computed, inject, input, output } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
-import { FormBuilder, ReactiveFormsModule } from '@angular/forms';
-import { MatButtonModule } from '@angular/material/button';
-import { MatFormFieldModule } from '@angular/material/form-field';
-import { MatIconModule } from '@angular/material/icon';
-import { MatInputModule } from '@angular/material/input';
-import { MatSelectModule } from '@angular/material/select';
+import { FormBuilder } from '@angular/forms';
 import { catchError, of } from 'rxjs';
 import { CHANGE_TYPE_LABELS, RELEASE_STATE_LABELS } from '../../../../../shared/schemas';
-import { DayDates } from '../../../ui/day-dates';
-import { labZone } from '../../../ui/lab-time';
-import { DATE_ORDER_ERROR, datesInOrder, rangeBackwards } from '../../archive/date-range';
+import { datesInOrder } from '../../archive/date-range';
 import { syncForm } from '../../archive/form-sync';
+import { DayRange, SearchChoice, SearchFilters } from '../../archive/search-filters/search-filters';
 import { StudyCatalogApi } from '../../studies/api/catalog-api';
 import { ReleaseFilter } from '../release-query';
 
 const BLANK = { q: '', changeType: '', state: '', analyteId: '', instrumentId: '', signedFrom: '', signedTo: '' };
 type Field = keyof typeof BLANK;
 
-interface Choice { value: string; label: string }
-interface Chooser { key: Field; id: string; label: string; any: string; choices: Choice[] }
+/** One chooser of the form, on one of its fields (its test id is "release-filter-…"). */
+interface Chooser { key: Field; id: `filter-${string}`; label: string; any: string; choices: SearchChoice[] }
 
-const pairs = (labels: Record<string, string>): Choice[] => Object.entries(labels).map(([value, label]) => ({ value, label }));
+const pairs = (labels: Record<string, string>): SearchChoice[] => Object.entries(labels).map(([value, label]) => ({ value, label }));
+const RANGES = [{ from: 'signedFrom', to: 'signedTo', id: 'signed', legend: 'Signed between' }] as const satisfies readonly DayRange[];
 
 /** The releases search form: typing and choosing search at once (after a short pause); the address keeps the search. */
 @Component({
   selector: 'app-release-filters',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule, MatIconModule, DayDates],
-  templateUrl: './release-filters.html',
-  styleUrl: '../../archive/archive-filters/archive-filters.scss',
+  imports: [SearchFilters],
+  template: `
+    <app-search-filters [form]="form" label="Search the releases" textLabel="Title, lot or code" prefix="release"
+      [choosers]="choosers()" [ranges]="ranges" />
+  `,
 })
 export class ReleaseFilters {
   /** The search in force (from the address). */
@@ -37,32 +34,23 @@ export class ReleaseFilters {
   /** A new search: every field of the form (the page keeps its own sort and page size). */
   readonly changed = output<ReleaseFilter>();
 
-  protected readonly zone = labZone();
   private readonly catalog = toSignal(inject(StudyCatalogApi).catalog().pipe(catchError(() => of(null))), { initialValue: null });
   protected readonly choosers = computed<Chooser[]>(() => [
-    { key: 'changeType', id: 'change-type', label: 'Change', any: 'Any change', choices: pairs(CHANGE_TYPE_LABELS) },
-    { key: 'state', id: 'state', label: 'State', any: 'Any state', choices: pairs(RELEASE_STATE_LABELS) },
+    { key: 'changeType', id: 'filter-change-type', label: 'Change', any: 'Any change', choices: pairs(CHANGE_TYPE_LABELS) },
+    { key: 'state', id: 'filter-state', label: 'State', any: 'Any state', choices: pairs(RELEASE_STATE_LABELS) },
     {
-      key: 'analyteId', id: 'analyte', label: 'Analyte', any: 'Any analyte',
+      key: 'analyteId', id: 'filter-analyte', label: 'Analyte', any: 'Any analyte',
       choices: (this.catalog()?.analytes ?? []).map((a) => ({ value: String(a.id), label: `${a.name} (${a.unit})` })),
     },
     {
-      key: 'instrumentId', id: 'instrument', label: 'Instrument', any: 'Any instrument',
+      key: 'instrumentId', id: 'filter-instrument', label: 'Instrument', any: 'Any instrument',
       choices: (this.catalog()?.instruments ?? []).map((i) => ({ value: String(i.id), label: i.name })),
     },
   ]);
-  protected readonly orderError = DATE_ORDER_ERROR;
-  protected readonly form = inject(FormBuilder).nonNullable.group(BLANK, { validators: [datesInOrder('signedFrom', 'signedTo')] });
+  protected readonly ranges = RANGES;
+  protected readonly form = inject(FormBuilder).nonNullable.group(BLANK, { validators: RANGES.map((r) => datesInOrder(r.from, r.to)) });
 
   constructor() {
     syncForm(this.form, BLANK, () => this.filter(), (search: ReleaseFilter) => this.changed.emit(search), ['analyteId', 'instrumentId']);
-  }
-
-  protected backwards(): boolean {
-    return rangeBackwards(this.form, 'signedFrom');
-  }
-
-  protected clear(): void {
-    this.form.reset();
   }
 }

@@ -1,10 +1,10 @@
-import { ChangeDetectionStrategy, Component, computed, effect, inject, signal, untracked } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
-import { MatPaginatorModule, PageEvent } from '@angular/material/paginator';
+import { MatPaginatorModule } from '@angular/material/paginator';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { MatSortModule, Sort } from '@angular/material/sort';
+import { MatSortModule } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { Router, RouterLink } from '@angular/router';
 import { filter } from 'rxjs';
@@ -14,11 +14,10 @@ import { ApiError } from '../../../core/http/api-error';
 import { ErrorBanner } from '../../../ui/error-banner';
 import { ZonedPipe, labZone } from '../../../ui/lab-time';
 import { FileDownload } from '../../archive/file-download';
-import { withChange } from '../../archive/query-params';
-import { routeQuery } from '../../archive/route-query';
+import { listQuery } from '../../archive/list-query';
 import { CreateReleaseData, CreateReleaseDialog } from '../create-release/create-release-dialog';
 import { ReleaseApi } from '../release-api';
-import { RELEASE_KEYS, RELEASE_PAGE_SIZE, ReleaseFilter, exportFilter, releaseFilterFrom } from '../release-query';
+import { RELEASE_KEYS, RELEASE_PAGE_SIZE, exportFilter, releaseFilterFrom } from '../release-query';
 import { DecisionCaution } from '../../archive/decision-caution';
 import { ReleaseStateChip } from '../release-state-chip';
 import { metWords } from '../release-words';
@@ -45,41 +44,18 @@ export class ReleaseListPage {
   private readonly router = inject(Router);
   private readonly dialogs = inject(MatDialog);
   private readonly downloads = inject(FileDownload);
-  private readonly address = routeQuery<ReleaseQuery, (typeof RELEASE_KEYS)[number]>(releaseFilterFrom, RELEASE_KEYS);
+  protected readonly list = listQuery({
+    parse: releaseFilterFrom, keys: RELEASE_KEYS, pageSize: RELEASE_PAGE_SIZE, sortKey: ReleaseQuery.shape.sort,
+    sortDefault: { active: 'createdAt', direction: 'desc' }, search: (query) => this.store.search(query),
+  });
   protected readonly zone = labZone();
-  protected readonly filter = this.address.query;
   protected readonly canCreate = computed(() => this.auth.hasAnyRole(['technologist', 'director']));
   protected readonly canExport = computed(() => this.auth.hasAnyRole(['director', 'quality']));
   protected readonly columns = ['title', 'changeType', 'method', 'state', 'met', 'signedAt'];
   protected readonly changeLabel = (r: ReleaseSummary): string => CHANGE_TYPE_LABELS[r.changeType];
   protected readonly met = (r: ReleaseSummary): string => metWords(r.met, r.required);
-  protected readonly pageSize = computed(() => this.filter().pageSize ?? RELEASE_PAGE_SIZE);
-  protected readonly pageIndex = computed(() => (this.filter().page ?? 1) - 1);
-  protected readonly sort = computed(() => ({ active: this.filter().sort ?? 'createdAt', direction: this.filter().order ?? 'desc' }));
   protected readonly downloading = signal(false);
   protected readonly downloadError = signal<string | null>(null);
-
-  constructor() {
-    effect(() => {
-      const query = this.filter();
-      untracked(() => this.store.search(query));
-    });
-  }
-
-  protected searched(fields: ReleaseFilter): void {
-    const { sort, order, pageSize } = this.filter();
-    this.address.go(withChange<ReleaseQuery>({ sort, order, pageSize }, fields));
-  }
-
-  protected sorted(sort: Sort): void {
-    const active = ReleaseQuery.shape.sort.safeParse(sort.active);
-    const keep = sort.direction && active.success;
-    this.address.go({ ...this.filter(), sort: keep ? active.data : undefined, order: keep ? (sort.direction as 'asc' | 'desc') : undefined, page: undefined });
-  }
-
-  protected paged(event: PageEvent): void {
-    this.address.go({ ...this.filter(), page: event.pageIndex + 1, pageSize: event.pageSize === RELEASE_PAGE_SIZE ? undefined : event.pageSize });
-  }
 
   protected open(release: ReleaseSummary): void {
     void this.router.navigate(['/releases', release.id]);
@@ -96,7 +72,7 @@ export class ReleaseListPage {
   protected exportList(): void {
     this.downloading.set(true);
     this.downloadError.set(null);
-    this.downloads.save(this.api.exportUrl(exportFilter(this.filter())), 'parallax-releases.xlsx').subscribe({
+    this.downloads.save(this.api.exportUrl(exportFilter(this.list.query())), 'parallax-releases.xlsx').subscribe({
       next: () => this.downloading.set(false),
       error: (err: ApiError) => {
         this.downloading.set(false);

@@ -21,6 +21,7 @@ import { PrintLayout } from '../../studies/print-layout';
 import { SpecimensStore } from '../../studies/specimens/specimens-store';
 import { hasKindView, kindView } from '../../studies/kinds';
 import { kindLabel, stateLabel } from '../../studies/study-text';
+import { StudyRelease } from '../../studies/study/study-release';
 import { StudyStore } from '../../studies/study/study-store';
 import { ReasonData, ReasonDialog } from '../dialogs/reason-dialog';
 import { SignatureData, SignatureDialog } from '../dialogs/signature-dialog';
@@ -50,7 +51,7 @@ import { ReviewStore } from './review-store';
   imports: [
     NgComponentOutlet, DecimalPipe, MatButtonModule, MatIconModule, MatProgressBarModule, RouterLink, ErrorBanner, PrintLayout, ReviewCaution,
     VerdictPanel, SensitivityPanel, EstimateTables, OutlierList, FindingsPlots, PlanCriteria, ExclusionsTable, ExclusionReasons, SignatureBlock,
-    SignatureList, StudyHistory, SubmissionNote,
+    SignatureList, StudyHistory, StudyRelease, SubmissionNote,
   ],
 })
 export class ReviewPage {

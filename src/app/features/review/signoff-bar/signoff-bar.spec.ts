@@ -12,7 +12,7 @@ function study(patch: Partial<Study> = {}): Study {
     n: 40, state: 'draft', superseded: false, findings: 'current', updatedAt: '2026-11-30T10:00:00.000Z', createdBy: { id: 3, name: 'Tomas Reyes' },
     purpose: '', analyteUnit: 'mmol/L', comparativeInstrument: null, candidateInstrument: null, instrument: null, settings: StudySettings.parse({}),
     version: 4, supersedesId: null, supersededById: null, latestAnalysisId: 8, currentAnalysisId: 8, canBeNegative: false,
-    createdAt: '2026-11-29T10:00:00.000Z', returnComment: null, submissionNote: null, ...patch,
+    createdAt: '2026-11-29T10:00:00.000Z', returnComment: null, submissionNote: null, release: null, ...patch,
   };
 }
 

@@ -10,6 +10,7 @@ import { AnalysisStore } from '../findings/analysis-store';
 import { SpecimensStore } from '../specimens/specimens-store';
 import { hasKindView } from '../kinds';
 import { FINDINGS_LABELS, kindLabel, stateLabel } from '../study-text';
+import { StudyRelease } from './study-release';
 import { StudyStore } from './study-store';
 
 /** One study: its heading and the Setup, Specimens and Findings tabs (each a child route). */
@@ -19,7 +20,7 @@ import { StudyStore } from './study-store';
   styleUrl: './study-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
   providers: [StudyStore, SpecimensStore, AnalysisStore],
-  imports: [MatTabsModule, MatIconModule, MatProgressBarModule, RouterLink, RouterLinkActive, RouterOutlet, ErrorBanner, PrintLayout, SignoffBar],
+  imports: [MatTabsModule, MatIconModule, MatProgressBarModule, RouterLink, RouterLinkActive, RouterOutlet, ErrorBanner, PrintLayout, SignoffBar, StudyRelease],
 })
 export class StudyPage {
   /** The :id of the route. */
