@@ -59,7 +59,7 @@ export function dueItem(over: Partial<DueItem> = {}): DueItem {
   return {
     id: 12, releaseId: 7, releaseTitle: 'Glucose on chemistry line 2', analyte: { id: 3, name: 'Glucose' },
     instrument: { id: 5, name: 'Chemistry line 2' }, ruleKey: 'yearly-comparison', label: 'Yearly comparison', rule: 'Every 12 months', kinds: [],
-    dueDate: '2026-06-01', state: 'open', status: 'due-soon', startedRelease: null, startedStudy: null, version: 1, ...over,
+    dueDate: '2026-06-01', daysLeft: 20, dueWords: 'due in 20 days', state: 'open', status: 'due-soon', startedRelease: null, startedStudy: null, version: 1, ...over,
   };
 }
 

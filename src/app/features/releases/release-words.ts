@@ -52,9 +52,6 @@ export function metWords(met: number, required: number): string {
   return required === 0 ? 'No requirements' : `${met} of ${required} met`;
 }
 
-/** Due dates in words come from one place, shared with the server's reminders: "overdue by 12 days", "due in 20 days". */
-export { daysBetween, dueWords } from '../../../../shared/types/due-dates';
-
 const DUE_ICONS: Record<DueItem['status'], string> = {
   overdue: 'event_busy',
   'due-soon': 'event_upcoming',

@@ -25,10 +25,10 @@ async function open(roles: Role[]) {
   const req = httpController().expectOne((r) => r.url === '/api/v1/due');
   expect(req.request.params.get('status')).toBe('pending');
   req.flush([
-    dueItem({ id: 14, label: 'Half-yearly precision', status: 'due-soon', dueDate: day(20) }),
+    dueItem({ id: 14, label: 'Half-yearly precision', status: 'due-soon', dueDate: day(20), daysLeft: 20, dueWords: 'due in 20 days' }),
     dueItem({ id: 16, label: 'Interval review', status: 'due-soon', dueDate: day(25), kinds: ['interval-verify'] }),
     dueItem({ id: 15, label: 'Lot check', status: 'later', dueDate: day(90) }),
-    dueItem({ id: 12, label: 'Yearly comparison', status: 'overdue', dueDate: day(-12) }),
+    dueItem({ id: 12, label: 'Yearly comparison', status: 'overdue', dueDate: day(-12), daysLeft: -12, dueWords: 'overdue by 12 days' }),
   ]);
   await fixture.whenStable();
   const el = fixture.nativeElement as HTMLElement;

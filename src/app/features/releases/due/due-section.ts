@@ -12,9 +12,8 @@ import { ApiError } from '../../../core/http/api-error';
 import { Notices } from '../../../core/notify/notices';
 import { ErrorBanner } from '../../../ui/error-banner';
 import type { CreateReleaseData } from '../create-release/create-release-dialog';
-import { labToday } from '../lab-today';
 import { ReleaseApi } from '../release-api';
-import { dueIcon, dueWords } from '../release-words';
+import { dueIcon } from '../release-words';
 import { StartStudyButton } from '../start-study-button';
 
 interface Loaded {
@@ -40,7 +39,6 @@ export class DueSection {
   private readonly router = inject(Router);
   private readonly notices = inject(Notices);
   protected readonly canStart = inject(AuthStore).hasAnyRole(['technologist', 'director']);
-  protected readonly today = labToday();
   /** The kinds of study that re-verify an item (its rule's); every kind when the rule names none. */
   protected kindsOf(item: DueItem): readonly StudyKind[] {
     return item.kinds.length ? item.kinds : STUDY_KINDS;
@@ -64,7 +62,8 @@ export class DueSection {
       .items.filter((d) => d.status === 'overdue' || d.status === 'due-soon')
       .sort((a, b) => (a.status === b.status ? a.dueDate.localeCompare(b.dueDate) : a.status === 'overdue' ? -1 : 1)),
   );
-  protected readonly words = (item: DueItem): string => dueWords(item.dueDate, this.today());
+  /** The server's words, as of the laboratory's today (the reminder e-mail says the same). */
+  protected readonly words = (item: DueItem): string => item.dueWords;
   protected readonly icon = dueIcon;
 
   /** Starts a draft study from the item (the server links the two) and opens its Setup. */

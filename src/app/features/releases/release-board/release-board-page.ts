@@ -14,11 +14,10 @@ import { ZonedPipe, labZone } from '../../../ui/lab-time';
 import { EditReleaseData, EditReleaseDialog } from '../dialogs/edit-release-dialog';
 import { LinkStudyData, LinkStudyDialog } from '../dialogs/link-study-dialog';
 import { ReleaseReasonData, ReleaseReasonDialog } from '../dialogs/release-reason-dialog';
-import { labToday } from '../lab-today';
 import { ReleaseApi } from '../release-api';
 import { DecisionCaution } from '../../archive/decision-caution';
 import { ReleaseStateChip } from '../release-state-chip';
-import { dueIcon, dueWords, metWords } from '../release-words';
+import { dueIcon, metWords } from '../release-words';
 import { SignPanel } from '../sign-panel/sign-panel';
 import { ReleaseBoardStore } from './release-board-store';
 import { ReleaseHistory } from './release-history';
@@ -53,7 +52,6 @@ export class ReleaseBoardPage {
   private readonly notices = inject(Notices);
   private readonly history = viewChild(ReleaseHistory);
   protected readonly zone = labZone();
-  protected readonly today = labToday();
   protected readonly release = this.store.release;
 
   protected readonly director = computed(() => this.auth.hasAnyRole(['director']));
@@ -73,7 +71,7 @@ export class ReleaseBoardPage {
   protected readonly met = computed(() => (this.release() ? metWords(this.release()!.met, this.release()!.required) : ''));
   protected readonly stamp = computed(() => (this.release() ? `${this.release()!.version}:${this.release()!.state}` : ''));
   protected readonly pdfUrl = computed(() => (this.release() ? this.api.pdfUrl(this.release()!.id) : ''));
-  protected readonly dueWords = (item: DueItem): string => dueWords(item.dueDate, this.today());
+  protected readonly dueWords = (item: DueItem): string => item.dueWords;
   protected readonly dueIcon = dueIcon;
 
   constructor() {

@@ -54,7 +54,7 @@ describe('WorklistPage', () => {
     const today = laboratoryDate(new Date(), 'Europe/Lisbon');
     for (const roles of [['technologist'], ['director'], ['quality']] as Role[][]) {
       TestBed.resetTestingModule();
-      const el = await render(roles, [dueItem({ id: 12, status: 'overdue', dueDate: today })]);
+      const el = await render(roles, [dueItem({ id: 12, status: 'due-soon', dueDate: today, daysLeft: 0, dueWords: 'due today' })]);
       expect(dueRequests).toBe(1);
       expect(el.querySelector('[data-testid="wl-due"]')?.textContent).toContain('Yearly comparison');
       expect(el.querySelector('[data-testid="due-words-12"]')?.textContent).toBe('due today');
