@@ -89,7 +89,6 @@ CREATE TABLE "releases" (
 	"due_rules" jsonb NOT NULL,
 	"state" text DEFAULT 'open' NOT NULL,
 	"version" integer DEFAULT 1 NOT NULL,
-	"from_due_item_id" integer,
 	"created_by" integer NOT NULL,
 	"created_at" timestamp with time zone DEFAULT now() NOT NULL,
 	"updated_at" timestamp with time zone DEFAULT now() NOT NULL,

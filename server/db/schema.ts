@@ -231,8 +231,6 @@ export const releases = pgTable('releases', {
   /** 'open', 'released', 'not-released', 'needs-review'. */
   state: text('state').notNull().default('open'),
   version: integer('version').notNull().default(1),
-  /** The due item this release answers, when it was started from one. */
-  fromDueItemId: integer('from_due_item_id'),
   createdBy: integer('created_by').notNull().references(() => users.id),
   createdAt: created(),
   updatedAt: stamp('updated_at').notNull().defaultNow(),

@@ -9,7 +9,7 @@ import { dueItems, dueReminders, laboratories, releases, users } from '../db/sch
 import { AppError, invalid, notFound } from '../http/app-error';
 import { logFailure } from '../log';
 import { queueMail } from '../mail/outbox';
-import { createStudyIn } from '../studies/studies.service';
+import { startStudyFor } from './releases.service';
 import { dueView, labToday } from './due-view';
 
 /** The laboratory's due items: pending (open or started), overdue only, or all. */
@@ -54,14 +54,11 @@ export function startFromDue(db: Database, me: SignedInUser, id: number, body: S
     const [release] = await tx.select().from(releases).where(eq(releases.id, item.releaseId));
     const kinds = ((release.dueRules as { key: string; kinds?: string[] }[]).find((d) => d.key === item.ruleKey)?.kinds) ?? [];
     if (kinds.length && !kinds.includes(body.kind)) throw invalid('kind', `"${item.label}" is re-verified by ${kinds.map((k) => kindMeta(k).label.toLowerCase()).join(' or ')}`);
-    const pair = kindMeta(body.kind).instruments === 'pair';
-    if (pair && !release.comparativeInstrumentId) throw invalid('kind', `A ${kindMeta(body.kind).label.toLowerCase()} needs a comparative instrument, and release ${release.id} names none; start it from the Studies page`);
-    const study = await createStudyIn(tx, me, {
-      kind: body.kind, title: body.title ?? `${item.label}: ${release.title}`, purpose: `Re-verification due ${item.dueDate} (${item.rule || item.label}), set by release ${release.id}`,
-      analyteId: item.analyteId, ...(pair ? { comparativeInstrumentId: release.comparativeInstrumentId!, candidateInstrumentId: item.instrumentId } : { instrumentId: item.instrumentId }),
-    });
-    await tx.update(dueItems).set({ state: 'started', startedStudyId: study.id, version: item.version + 1, updatedAt: new Date() }).where(eq(dueItems.id, id));
-    await recordAudit(tx, actorOf(me), { action: 'due.started', entity: 'release', entityId: item.releaseId, studyId: study.id, before: { state: item.state }, after: { dueItem: id, label: item.label, study: study.id } });
+    const studyId = await startStudyFor(tx, me, release, body.kind, {
+      title: body.title ?? `${item.label}: ${release.title}`, purpose: `Re-verification due ${item.dueDate} (${item.rule || item.label}), set by release ${release.id}`,
+    }, 'kind');
+    await tx.update(dueItems).set({ state: 'started', startedStudyId: studyId, version: item.version + 1, updatedAt: new Date() }).where(eq(dueItems.id, id));
+    await recordAudit(tx, actorOf(me), { action: 'due.started', entity: 'release', entityId: item.releaseId, studyId, before: { state: item.state }, after: { dueItem: id, label: item.label, study: studyId } });
     return one(tx, me, id);
   });
 }

@@ -86,22 +86,29 @@ function blockerOf(r: BoardRequirement): string[] {
 }
 
 /**
+ * The answer for one person: whether they may sign now, why in words, whether they entered rows of a component
+ * (allowed only by the laboratory's setting, and audited), and, when not, whether the refusal is of the person
+ * (403) or of the release's state (409).
+ */
+export interface SigningRight extends MayISign { enteredRows: boolean; refusal?: 'forbidden' | 'conflict' }
+
+/**
  * Whether this person may sign the release now, and why in words: a director, the release open or needing review,
  * every requirement closed, and segregation of duties as for studies (not a director who entered rows of a
  * component study, unless the laboratory allows one-person sign-off).
  */
-export async function mayISignRelease(db: Executor, me: SignedInUser, release: ReleaseRow, board: Board): Promise<MayISign & { enteredRows: boolean }> {
+export async function mayISignRelease(db: Executor, me: SignedInUser, release: ReleaseRow, board: Board): Promise<SigningRight> {
   if (!['open', 'needs-review'].includes(release.state)) {
-    return { allowed: false, enteredRows: false, why: 'This release is signed; a new change needs a new release (an amended component makes it need review).' };
+    return { allowed: false, enteredRows: false, refusal: 'conflict', why: 'This release is signed; a new change needs a new release (an amended component makes it need review).' };
   }
-  if (board.blockers.length) return { allowed: false, enteredRows: false, why: `It can be signed once every requirement is met by a signed study or waived: ${board.blockers.join('; ')}.` };
+  if (board.blockers.length) return { allowed: false, enteredRows: false, refusal: 'conflict', why: `It can be signed once every requirement is met by a signed study or waived: ${board.blockers.join('; ')}.` };
   const ids = board.requirements.flatMap((r) => (r.study ? [r.study.id] : []));
   const [lab] = await db.select({ allowSelfSign: laboratories.allowSelfSign }).from(laboratories).where(eq(laboratories.id, release.laboratoryId));
   const entered = ids.length
     ? (await db.select({ n: sql<number>`count(*)::int` }).from(specimens).where(and(inArray(specimens.studyId, ids), eq(specimens.enteredBy, me.id))))[0].n > 0
     : false;
-  if (!me.roles.includes('director')) return { allowed: false, enteredRows: entered, why: 'A director signs the release.' };
-  if (entered && !lab.allowSelfSign) return { allowed: false, enteredRows: true, why: 'You entered rows of a study in this release; another director signs it (segregation of duties).' };
+  if (!me.roles.includes('director')) return { allowed: false, enteredRows: entered, refusal: 'forbidden', why: 'A director signs the release.' };
+  if (entered && !lab.allowSelfSign) return { allowed: false, enteredRows: true, refusal: 'forbidden', why: 'You entered rows of a study in this release; another director signs it (segregation of duties).' };
   return {
     allowed: true, enteredRows: entered,
     why: entered ? 'You entered rows of a study in this release; this laboratory allows one-person sign-off, so you may sign it, and the history records that you did.' : 'You may sign it: every requirement is met or waived.',
@@ -125,12 +132,12 @@ export async function releaseView(db: Executor, me: SignedInUser, release: Relea
   const sigRows = await db.select().from(releaseSignatures).where(eq(releaseSignatures.releaseId, release.id)).orderBy(desc(releaseSignatures.id));
   const latest = sigRows[0];
   const [creator] = await db.select({ id: users.id, name: users.name }).from(users).where(eq(users.id, release.createdBy));
-  const [analyte] = await db.select({ id: analytes.id, name: analytes.name }).from(analytes).where(eq(analytes.id, release.analyteId));
-  const due = await dueView(db, me.laboratoryId, and(eq(dueItems.releaseId, release.id))!);
-  const from = release.fromDueItemId ? (await db.select({ id: dueItems.id, label: dueItems.label }).from(dueItems).where(eq(dueItems.id, release.fromDueItemId)))[0] ?? null : null;
+  const due = await dueView(db, me.laboratoryId, eq(dueItems.releaseId, release.id));
+  // The due item this release answers: the one it was started from (the item keeps the link).
+  const [from] = await db.select({ id: dueItems.id, label: dueItems.label }).from(dueItems).where(eq(dueItems.startedReleaseId, release.id));
   const right = await mayISignRelease(db, me, release, board);
   return {
-    id: release.id, changeType: release.changeType as Release['changeType'], title: release.title, analyte,
+    id: release.id, changeType: release.changeType as Release['changeType'], title: release.title, analyte: (await ref(db, analytes, release.analyteId))!,
     instrument: (await ref(db, instruments, release.instrumentId))!, comparativeInstrument: await ref(db, instruments, release.comparativeInstrumentId),
     reagentLot: release.reagentLot, note: release.note, state: release.state as Release['state'], version: release.version,
     met: board.requirements.filter((r) => r.status === 'met' || r.status === 'waived').length, required: board.requirements.length,
@@ -139,7 +146,7 @@ export async function releaseView(db: Executor, me: SignedInUser, release: Relea
     requirements: board.requirements, waivers: board.waivers, ready: board.blockers.length === 0, blockers: board.blockers,
     signatures: sigRows.map(releaseSignatureView), due,
     reviewReasons: release.state === 'needs-review' ? reviewReasons(board) : [],
-    fromDueItem: from, mayISign: { allowed: right.allowed, why: right.why }, caution: RELEASE_CAUTION,
+    fromDueItem: from ?? null, mayISign: { allowed: right.allowed, why: right.why }, caution: RELEASE_CAUTION,
   };
 }
 
@@ -150,4 +157,3 @@ function reviewReasons(board: Board): string[] {
     : []));
 }
 
-export const kindLabel = (kind: string): string => kindMeta(kind).label;

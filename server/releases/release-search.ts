@@ -11,7 +11,7 @@ import type { Database } from '../db/client';
 import { labTimeZone, signedAndCreatedDays } from '../db/lab-zone';
 import { auditEvents } from '../db/schema';
 import { typedVerificationCode } from '../signoff/content-hash';
-import { boardOf, findRelease } from './release-board';
+import { boardOf, findRelease, type Board } from './release-board';
 
 /**
  * The releases of a laboratory, searchable like the archive: words in the title or note, a verification code as
@@ -50,17 +50,18 @@ async function filters(db: Database, me: SignedInUser, q: ReleaseQuery): Promise
 
 type Row = Record<string, unknown>;
 
-async function summary(db: Database, r: Row): Promise<ReleaseSummary> {
+/** A found row as the list shows it, with the board it was counted from. */
+async function summary(db: Database, r: Row): Promise<{ summary: ReleaseSummary; board: Board }> {
   const release = await findRelease(db, Number(r.laboratory_id), Number(r.id));
   const board = await boardOf(db, release);
-  return {
+  return { board, summary: {
     id: release.id, changeType: release.changeType as ChangeType, title: release.title, analyte: { id: release.analyteId, name: String(r.analyte_name) },
     instrument: { id: release.instrumentId, name: String(r.instrument_name) }, reagentLot: release.reagentLot, state: release.state as ReleaseState,
     met: board.requirements.filter((x) => x.status === 'met' || x.status === 'waived').length, required: (release.requirements as Requirement[]).length,
     signerName: (r.signer_name as string) ?? null, signedAt: r.sig_at ? new Date(r.sig_at as string).toISOString() : null, goLiveDate: (r.go_live_date as string) ?? null,
     verificationCode: (r.verification_code as string) ?? null, createdBy: { id: release.createdBy, name: String(r.creator_name) },
     createdAt: release.createdAt.toISOString(), updatedAt: release.updatedAt.toISOString(),
-  };
+  } };
 }
 
 export async function searchReleases(db: Database, me: SignedInUser, q: ReleaseQuery): Promise<ReleasePage> {
@@ -69,7 +70,7 @@ export async function searchReleases(db: Database, me: SignedInUser, q: ReleaseQ
   const rows = await db.execute(sql`${BASE} SELECT * FROM found WHERE ${where} ORDER BY ${SORTS[q.sort]} ${order}, id DESC LIMIT ${q.pageSize} OFFSET ${(q.page - 1) * q.pageSize}`);
   const total = await db.execute(sql`${BASE} SELECT count(*)::int AS total FROM found WHERE ${where}`);
   const items: ReleaseSummary[] = [];
-  for (const r of rows.rows as Row[]) items.push(await summary(db, r));
+  for (const r of rows.rows as Row[]) items.push((await summary(db, r)).summary);
   return { items, total: Number((total.rows[0] as Row).total) };
 }
 
@@ -89,8 +90,7 @@ export async function exportReleases(db: Database, me: SignedInUser, q: ReleaseQ
     { header: 'Verification code', key: 'code', width: 18 }, { header: 'Created by', key: 'creator', width: 20 }, { header: 'Created', key: 'created', width: 30 },
   ];
   for (const r of rows) {
-    const s = await summary(db, r);
-    const board = await boardOf(db, await findRelease(db, me.laboratoryId, s.id));
+    const { summary: s, board } = await summary(db, r);
     ws.addRow({
       id: s.id, title: s.title, change: CHANGE_TYPE_LABELS[s.changeType], analyte: s.analyte.name, instrument: s.instrument.name, lot: s.reagentLot,
       state: RELEASE_STATE_LABELS[s.state], met: `${s.met} of ${s.required}`,

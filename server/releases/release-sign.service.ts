@@ -2,7 +2,7 @@ import { and, desc, eq, inArray, ne } from 'drizzle-orm';
 import { kindMeta } from '../../shared/kinds/kinds';
 import { serverKind } from '../kinds';
 import {
-  CHANGE_TYPE_LABELS, RELEASE_MEANING_WORDS, REQUIREMENT_STATUS_LABELS, type ChangeType, type CheckResult, type Release, type ReleaseIntegrityReport,
+  CHANGE_TYPE_LABELS, RELEASE_CAUTION, RELEASE_MEANING_WORDS, REQUIREMENT_STATUS_LABELS, type ChangeType, type CheckResult, type Release, type ReleaseIntegrityReport,
   type ReleaseSignBody,
 } from '../../shared/schemas';
 import { addMonths } from '../../shared/types/due-dates';
@@ -69,9 +69,6 @@ async function reportOf(db: Executor, release: ReleaseRow, board: Board, decisio
   const studyIds = board.requirements.flatMap((r) => (r.study ? [r.study.id] : []));
   const sigs = studyIds.length ? await db.select({ studyId: signatures.studyId, analysisId: signatures.analysisId }).from(signatures)
     .where(and(inArray(signatures.studyId, studyIds), ne(signatures.meaning, 'plan-approved'))).orderBy(desc(signatures.id)) : [];
-  const [analyteRow] = await db.select().from(analytes).where(eq(analytes.id, release.analyteId));
-  const unit = analyteRow.unit;
-  const decimals = analyteRow.decimals;
   const requirements: ReleaseReportRequirement[] = [];
   for (const r of board.requirements) {
     const s = r.study?.state === 'signed' ? r.study : null;
@@ -79,7 +76,7 @@ async function reportOf(db: Executor, release: ReleaseRow, board: Board, decisio
     if (s) {
       const analysisId = sigs.find((g) => g.studyId === s.id)?.analysisId;
       const [analysis] = analysisId ? await db.select({ results: analyses.results, engineVersion: analyses.engineVersion }).from(analyses).where(eq(analyses.id, analysisId)) : [];
-      keyFigures = keyFiguresOf(s.kind, analysis?.results, unit, decimals, analysis?.engineVersion);
+      keyFigures = keyFiguresOf(s.kind, analysis?.results, analyte.unit, analyte.decimals, analysis?.engineVersion);
     }
     requirements.push({
       label: r.label, rule: r.rule, kinds: r.kinds.map((k) => kindMeta(k).label), status: r.status, statusLabel: REQUIREMENT_STATUS_LABELS[r.status],
@@ -115,17 +112,15 @@ function keyFiguresOf(kind: string, results: unknown, unit: string, decimals: nu
  */
 export async function signRelease(ctx: AppContext, me: SignedInUser, id: number, body: ReleaseSignBody, address: string): Promise<Release> {
   const first = await findRelease(ctx.db, me.laboratoryId, id);
-  const board0 = await boardOf(ctx.db, first);
-  const right = await mayISignRelease(ctx.db, me, first, board0);
-  // Segregation of duties is a refusal of this person (403); a release not (or no longer) ready is a conflict of state (409).
-  if (!right.allowed) throw new AppError(right.enteredRows && ['open', 'needs-review'].includes(first.state) && !board0.blockers.length ? 'forbidden' : 'conflict', right.why);
+  const right = await mayISignRelease(ctx.db, me, first, await boardOf(ctx.db, first));
+  if (!right.allowed) throw new AppError(right.refusal ?? 'conflict', right.why);
   if (body.meaning === 'released' && !body.goLiveDate) throw invalid('goLiveDate', 'Give the go-live date: the day patient testing starts');
   await confirmPassword(ctx, me, body.password, address, { entity: 'release', entityId: id, studyId: null, meaning: body.meaning });
   return step(ctx, async (tx) => {
     const release = await findRelease(tx, me.laboratoryId, id, true);
     const board = await boardOf(tx, release);
     const now = await mayISignRelease(tx, me, release, board);
-    if (!now.allowed) throw new AppError('conflict', now.why);
+    if (!now.allowed) throw new AppError(now.refusal ?? 'conflict', now.why);
     const notMet = board.requirements.filter((r) => r.status === 'not-met');
     if (body.meaning === 'released' && notMet.length) {
       throw new AppError('conflict', `It cannot be released while ${notMet.map((r) => `"${r.label}"`).join(' and ')} ${notMet.length === 1 ? 'was' : 'were'} not accepted; sign it "not released", or waive ${notMet.length === 1 ? 'it' : 'them'} with a reason`);
@@ -182,7 +177,7 @@ async function notifyReleased(tx: Tx, release: ReleaseRow, by: string, meaning: 
     subject: `${RELEASE_MEANING_WORDS[meaning]}: ${release.title}`,
     text: [`${by} signed the release "${release.title}": ${RELEASE_MEANING_WORDS[meaning].toLowerCase()}.`, ...(goLive ? [`Go-live date: ${goLive}`] : []), '',
       `Open the release: ${publicUrl}/releases/${release.id}`, '',
-      'The findings are decision support; acceptance follows local accreditation rules and the director\'s professional judgement.'].join('\n'),
+      RELEASE_CAUTION].join('\n'),
   });
 }
 

@@ -1,7 +1,7 @@
 import { and, eq } from 'drizzle-orm';
 import { kindMeta } from '../../shared/kinds/kinds';
 import {
-  CHANGE_TYPE_LABELS, type CreateReleaseBody, type LinkStudyBody, type Release, type Requirement, type UpdateReleaseBody, type WaiverBody,
+  CHANGE_TYPE_LABELS, keyFrom, type CreateReleaseBody, type LinkStudyBody, type Release, type Requirement, type StudyKind, type UpdateReleaseBody, type WaiverBody,
 } from '../../shared/schemas';
 import { recordAudit } from '../audit/audit';
 import { actorOf, type SignedInUser } from '../auth/session-user';
@@ -13,13 +13,11 @@ import { createStudyIn } from '../studies/studies.service';
 import { findRelease, releaseView, type ReleaseRow } from './release-board';
 import { templateOf } from './templates';
 
-/** Keys for a custom change's requirements, from their labels ("Precision" → "precision", a repeat → "precision-2"). */
+/** Keys for a custom change's requirements: a given key is kept, else one is made from the label (as the client makes it). */
 function keyed(list: (Omit<Requirement, 'key'> & { key?: string })[]): Requirement[] {
-  const used = new Set<string>();
+  const used = new Set(list.flatMap((r) => (r.key ? [r.key] : [])));
   return list.map((r) => {
-    const base = (r.key ?? r.label.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-+|-+$/g, '').replace(/^[^a-z]+/, '')).slice(0, 36) || 'requirement';
-    let key = base;
-    for (let i = 2; used.has(key); i++) key = `${base}-${i}`;
+    const key = r.key ?? keyFrom(r.label, used, 'requirement');
     used.add(key);
     return { ...r, key, rule: r.rule ?? '' };
   });
@@ -63,7 +61,7 @@ export function createRelease(db: Database, me: SignedInUser, body: CreateReleas
     const [row] = await tx.insert(releases).values({
       laboratoryId: me.laboratoryId, changeType: body.changeType, title: body.title, analyteId: body.analyteId, instrumentId: body.instrumentId,
       comparativeInstrumentId: body.comparativeInstrumentId ?? null, reagentLot: body.reagentLot, note: body.note, requirements,
-      dueRules: template.dueRules, fromDueItemId: due?.id ?? null, createdBy: me.id,
+      dueRules: template.dueRules, createdBy: me.id,
     }).returning();
     await recordAudit(tx, actorOf(me), {
       action: 'release.created', entity: 'release', entityId: row.id,
@@ -113,14 +111,20 @@ function requirementOf(release: ReleaseRow, key: string): Requirement {
   return req;
 }
 
-/** A new draft study for a requirement, pre-filled from the release: analyte, instrument(s), lots. */
-async function startStudy(tx: Tx, me: SignedInUser, release: ReleaseRow, kind: string, title?: string): Promise<number> {
+/**
+ * A new draft study pre-filled from a release (analyte, instrument(s), lots), for one of its requirements or for
+ * a re-verification it set due. `path` names the refused field when the kind needs a comparative instrument the
+ * release does not name.
+ */
+export async function startStudyFor(
+  tx: Tx, me: SignedInUser, release: ReleaseRow, kind: StudyKind, words: { title: string; purpose: string }, path: string,
+): Promise<number> {
   const pair = kindMeta(kind).instruments === 'pair';
   const lotChange = release.changeType === 'reagent-lot';
   const comparative = release.comparativeInstrumentId ?? (lotChange ? release.instrumentId : null);
-  if (pair && !comparative) throw invalid('start.kind', `A ${kindMeta(kind).label.toLowerCase()} needs a comparative instrument; give the release one, or link a study made by hand`);
+  if (pair && !comparative) throw invalid(path, `A ${kindMeta(kind).label.toLowerCase()} needs a comparative instrument, and release ${release.id} names none; start it from the Studies page and link it`);
   const study = await createStudyIn(tx, me, {
-    kind: kind as never, title: title ?? `${release.title}: ${kindMeta(kind).label}`, purpose: `For release ${release.id}: ${release.title}`,
+    kind, ...words,
     analyteId: release.analyteId,
     ...(pair ? { comparativeInstrumentId: comparative!, candidateInstrumentId: release.instrumentId } : { instrumentId: release.instrumentId }),
     settings: lotChange
@@ -155,11 +159,16 @@ export function linkStudy(db: Database, me: SignedInUser, id: number, body: Link
     let studyId: number;
     if ('start' in body) {
       if (!req.kinds.includes(body.start.kind)) throw invalid('start.kind', `"${req.label}" needs ${req.kinds.map((k) => kindMeta(k).label.toLowerCase()).join(' or ')}`);
-      studyId = await startStudy(tx, me, release, body.start.kind, body.start.title);
+      studyId = await startStudyFor(tx, me, release, body.start.kind, {
+        title: body.start.title ?? `${release.title}: ${kindMeta(body.start.kind).label}`, purpose: `For release ${release.id}: ${release.title}`,
+      }, 'start.kind');
     } else {
       studyId = body.studyId;
     }
-    await linkIn(tx, me, release, body.requirement, await findStudy(tx, me.laboratoryId, studyId, true).catch(() => { throw invalid('studyId', `There is no study ${studyId} in this laboratory`); }));
+    const study = await findStudy(tx, me.laboratoryId, studyId, true).catch((err: unknown) => {
+      throw err instanceof AppError && err.code === 'not_found' ? invalid('studyId', `There is no study ${studyId} in this laboratory`) : err;
+    });
+    await linkIn(tx, me, release, body.requirement, study);
     const [row] = await tx.update(releases).set({ version: release.version + 1, updatedAt: new Date() }).where(eq(releases.id, id)).returning();
     return releaseView(tx, me, row);
   });

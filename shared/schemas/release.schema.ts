@@ -38,6 +38,24 @@ export const RELEASE_MEANING_WORDS: Record<ReleaseMeaning, string> = {
 };
 
 const key = z.string().trim().regex(/^[a-z][a-z0-9-]{0,39}$/, 'Use lower-case letters, digits and hyphens (up to 40), starting with a letter');
+const KEY_MAX = 40;
+
+/**
+ * A key for a new row, made from its label and unlike every key in `taken`: lower-case letters, digits and
+ * hyphens, starting with a letter, at most 40 characters ("Method comparison" → "method-comparison").
+ */
+export function keyFrom(label: string, taken: ReadonlySet<string>, fallback = 'item'): string {
+  let base = label.toLowerCase().normalize('NFKD').replace(/[\u0300-\u036f]/g, '').replace(/[^a-z0-9]+/g, '-').replace(/^-+|-+$/g, '');
+  if (!/^[a-z]/.test(base)) base = base ? `${fallback}-${base}` : fallback;
+  base = base.slice(0, KEY_MAX).replace(/-+$/, '');
+  let key = base;
+  for (let n = 2; taken.has(key); n++) {
+    const suffix = `-${n}`;
+    key = `${base.slice(0, KEY_MAX - suffix.length).replace(/-+$/, '')}${suffix}`;
+  }
+  return key;
+}
+
 const words = (what: string, max: number) => z.string().trim().min(1, `Give ${what}`).max(max, `Keep ${what} to ${max} characters`);
 
 /** One study a change type requires: met by a signed study of any of `kinds`. `rule` names the rule it follows. */

@@ -1,5 +1,7 @@
 import { FormArray, FormControl, FormGroup } from '@angular/forms';
-import { DueRule, Requirement, type StudyKind } from '../../../../../shared/schemas';
+import { DueRule, keyFrom, Requirement, type StudyKind } from '../../../../../shared/schemas';
+
+export { keyFrom };
 import { schemaRule } from '../../../ui/schema-rule';
 
 /** One requirement as a form holds it; `key` stays hidden (kept for an existing one, made from the label for a new one). */
@@ -43,24 +45,6 @@ export const requirementArray = (list: readonly Requirement[] = []): FormArray<R
 
 export const dueRuleArray = (list: readonly DueRule[] = []): FormArray<DueRuleGroup> =>
   new FormArray(list.map((d) => dueRuleGroup(d)));
-
-const KEY_MAX = 40;
-
-/**
- * A key for a new row, made from its label and unlike every key in `taken`: lower-case letters, digits and
- * hyphens, starting with a letter, at most 40 characters ("Method comparison" → "method-comparison").
- */
-export function keyFrom(label: string, taken: ReadonlySet<string>, fallback = 'item'): string {
-  let base = label.toLowerCase().normalize('NFKD').replace(/[\u0300-\u036f]/g, '').replace(/[^a-z0-9]+/g, '-').replace(/^-+|-+$/g, '');
-  if (!/^[a-z]/.test(base)) base = base ? `${fallback}-${base}` : fallback;
-  base = base.slice(0, KEY_MAX).replace(/-+$/, '');
-  let key = base;
-  for (let n = 2; taken.has(key); n++) {
-    const suffix = `-${n}`;
-    key = `${base.slice(0, KEY_MAX - suffix.length).replace(/-+$/, '')}${suffix}`;
-  }
-  return key;
-}
 
 /** The rows as the API takes them: trimmed words, and a key for every row (existing keys kept). */
 export function requirementsOf(rows: FormArray<RequirementGroup>): Requirement[] {
