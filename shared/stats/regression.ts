@@ -34,6 +34,8 @@ export interface RegressionOptions {
   ciMethod: 'bootstrap' | 'jackknife';
   decisionLevels: number[];
   settings: ResampleSettings;
+  /** Values of x at which the line's CI band is estimated (default BAND_POINTS; 0 leaves the band out, as plans do). */
+  bandPoints?: number;
 }
 
 export interface RegressionResult {
@@ -57,7 +59,7 @@ export function regression(x: Float64Array, y: Float64Array, options: Regression
   const full = fit(new Int32Array(n).fill(1));
   if (!Number.isFinite(full.slope)) throw new RangeError('regression requires spread in x and a defined slope');
   const levels = options.decisionLevels;
-  const bandX = bandValues(x);
+  const bandX = bandValues(x, options.bandPoints ?? BAND_POINTS);
   const values = new Float64Array(2 + levels.length + bandX.length);
   const statistics = (line: { slope: number; intercept: number }): Float64Array => {
     values[0] = line.slope;
@@ -103,12 +105,13 @@ export function regression(x: Float64Array, y: Float64Array, options: Regression
   return slopes ? withRankCis(result, x, y, options.level, slopes) : result;
 }
 
-/** BAND_POINTS values of x from the lowest to the highest comparative value, evenly spaced. */
-function bandValues(x: Float64Array): number[] {
+/** `points` values of x from the lowest to the highest comparative value, evenly spaced. */
+function bandValues(x: Float64Array, points: number): number[] {
+  if (points < 1) return [];
   let lo = Infinity;
   let hi = -Infinity;
   for (const v of x) { if (v < lo) lo = v; if (v > hi) hi = v; }
-  return Array.from({ length: BAND_POINTS }, (_, g) => (g === BAND_POINTS - 1 ? hi : lo + ((hi - lo) * g) / (BAND_POINTS - 1)));
+  return Array.from({ length: points }, (_, g) => (g === points - 1 ? hi : lo + ((hi - lo) * g) / Math.max(1, points - 1)));
 }
 
 function withRankCis(result: RegressionResult, x: Float64Array, y: Float64Array, level: number, slopes: SlopeOrder): RegressionResult {
