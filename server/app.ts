@@ -6,6 +6,7 @@ import { adminRoutes } from './admin/admin.routes';
 import { AnalysisJobs, jobTiming } from './analyses/analysis-jobs';
 import { auditRoutes } from './audit/audit.routes';
 import { analysesRoutes } from './analyses/analyses.routes';
+import { plansRoutes } from './plans/plans.routes';
 import { authRoutes } from './auth/auth.routes';
 import { configurePassport } from './auth/passport';
 import { sessionMiddleware } from './auth/session';
@@ -30,7 +31,7 @@ export interface CreatedApp { app: Express; ctx: AppContext; routes: RouteSpec[]
 /** Every API route of Parallax, with the roles each allows (the role-matrix test walks this list). */
 export function apiRoutes(ctx: AppContext, passport: ReturnType<typeof configurePassport>): RouteSpec[] {
   return [
-    ...healthRoutes(ctx), ...authRoutes(ctx, passport), ...adminRoutes(ctx), ...studiesRoutes(ctx), ...specimensRoutes(ctx), ...uploadsRoutes(ctx), ...analysesRoutes(ctx),
+    ...healthRoutes(ctx), ...authRoutes(ctx, passport), ...adminRoutes(ctx), ...studiesRoutes(ctx), ...specimensRoutes(ctx), ...uploadsRoutes(ctx), ...analysesRoutes(ctx), ...plansRoutes(ctx),
     ...signoffRoutes(ctx), ...auditRoutes(ctx), ...releasesRoutes(ctx),
   ];
 }

@@ -5,11 +5,15 @@ import type { Database, Tx } from '../db/client';
 import { analyses, studies } from '../db/schema';
 import { logFailure } from '../log';
 import type { AnalysisInput } from '../specimens/input-hash';
+import type { PlanInput } from '../plans/plan-input';
 import { AnalysisEvents, announceChange, announceJob } from './analysis-events';
 import { runAnalysis } from './run-analysis';
 import { AnalysisPool } from './worker-pool';
 
 export const QUEUE = 'analysis';
+
+/** A plan's run says so in its history events (a findings run says nothing, as before plans existed). */
+const purposeOf = (run: { purpose: string }) => (run.purpose === 'plan' ? { purpose: 'plan' } : {});
 /** A run whose process died is queued once more; a second death fails it in words. */
 export const MAX_ATTEMPTS = 2;
 /** Workers learn of a job at once by NOTIFY; this polling is only the fallback when notifications are lost. */
@@ -126,18 +130,19 @@ export class AnalysisJobs {
         .catch((err) => logFailure('writing an analysis heartbeat', err));
     }, this.timing.heartbeatMs);
     try {
-      const input = claimed.input as AnalysisInput;
+      const input = claimed.input as AnalysisInput | PlanInput;
       const results = options.inThread ? runAnalysis(input) : await this.pool!.run(input, onProgress);
       clearInterval(beat);
-      await this.finish(claimed.studyId, analysisId, claimed.attempt, { state: 'done', results, progress: 1, durationMs: Date.now() - started });
+      await this.finish(claimed, { state: 'done', results, progress: 1, durationMs: Date.now() - started });
     } catch (err) {
       clearInterval(beat);
-      await this.finish(claimed.studyId, analysisId, claimed.attempt, { state: 'failed', error: (err as Error).message, durationMs: Date.now() - started });
+      await this.finish(claimed, { state: 'failed', error: (err as Error).message, durationMs: Date.now() - started });
     }
   }
 
   /** Ends this run; a run that was meanwhile re-queued (its heartbeat went stale) is left alone. */
-  private async finish(studyId: number, analysisId: number, attempt: number, values: Partial<typeof analyses.$inferInsert>): Promise<void> {
+  private async finish(run: typeof analyses.$inferSelect, values: Partial<typeof analyses.$inferInsert>): Promise<void> {
+    const { studyId, id: analysisId, attempt } = run;
     await this.db.transaction(async (tx) => {
       const updated = await tx.update(analyses).set({ ...values, finishedAt: new Date() })
         .where(and(eq(analyses.id, analysisId), eq(analyses.state, 'running'), eq(analyses.attempt, attempt))).returning({ id: analyses.id });
@@ -145,7 +150,7 @@ export class AnalysisJobs {
       await announceChange(tx, { id: analysisId, studyId, state: values.state!, progress: values.progress ?? 0 });
       await recordAudit(tx, await workerActor(tx, studyId), {
         action: `analysis.${values.state}`, entity: 'analysis', entityId: analysisId, studyId,
-        after: { durationMs: values.durationMs, error: values.error ?? undefined },
+        after: { durationMs: values.durationMs, error: values.error ?? undefined, ...purposeOf(run) },
       });
     });
   }
@@ -173,8 +178,8 @@ export class AnalysisJobs {
         if (!changed) return false;
         await announceChange(tx, { id: run.id, studyId: run.studyId, state: changed.state, progress: 0 });
         await recordAudit(tx, await workerActor(tx, run.studyId), again
-          ? { action: 'analysis.requeued', entity: 'analysis', entityId: run.id, studyId: run.studyId, after: { attempt: run.attempt + 1, reason } }
-          : { action: 'analysis.failed', entity: 'analysis', entityId: run.id, studyId: run.studyId, after: { error: changed.error } });
+          ? { action: 'analysis.requeued', entity: 'analysis', entityId: run.id, studyId: run.studyId, after: { attempt: run.attempt + 1, reason, ...purposeOf(run) } }
+          : { action: 'analysis.failed', entity: 'analysis', entityId: run.id, studyId: run.studyId, after: { error: changed.error, ...purposeOf(run) } });
         return again;
       });
       if (requeued) await this.enqueue(run.id);

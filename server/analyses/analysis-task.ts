@@ -1,9 +1,10 @@
 import type { MessagePort } from 'node:worker_threads';
 import type { AnalysisInput } from '../specimens/input-hash';
+import type { PlanInput } from '../plans/plan-input';
 import { runAnalysis } from './run-analysis';
 
 /** The piscina task: runs one analysis off the main thread and posts progress on the port. */
-export default function task({ input, port }: { input: AnalysisInput; port: MessagePort }): unknown {
+export default function task({ input, port }: { input: AnalysisInput | PlanInput; port: MessagePort }): unknown {
   let last = 0;
   try {
     return runAnalysis(input, (f) => {

@@ -3,6 +3,7 @@ import path from 'node:path';
 import { MessageChannel } from 'node:worker_threads';
 import { Piscina } from 'piscina';
 import type { AnalysisInput } from '../specimens/input-hash';
+import type { PlanInput } from '../plans/plan-input';
 
 /** A small invented comparison (30 pairs, few resamples) that exercises the engine's code paths. */
 const WARM_UP_INPUT: AnalysisInput = {
@@ -26,7 +27,7 @@ export class AnalysisPool {
     this.pool = new Piscina({ filename: path.join(__dirname, 'analysis-task.js'), minThreads: threads, maxThreads: threads, idleTimeout: 30_000 });
   }
 
-  async run(input: AnalysisInput, onProgress: (f: number) => void): Promise<unknown> {
+  async run(input: AnalysisInput | PlanInput, onProgress: (f: number) => void): Promise<unknown> {
     const { port1, port2 } = new MessageChannel();
     port1.on('message', (f: number) => onProgress(f));
     try {

@@ -16,7 +16,7 @@ const BASE = sql`
     SELECT s.*, a.name AS analyte_name,
       sig.signer_name, sig.meaning, sig.signed_at AS sig_at, sig.signer_id,
       (SELECT an.results FROM analyses an WHERE an.id = COALESCE(sig.analysis_id,
-         (SELECT max(x.id) FROM analyses x WHERE x.study_id = s.id AND x.state = 'done'))) AS results,
+         (SELECT max(x.id) FROM analyses x WHERE x.study_id = s.id AND x.purpose = 'findings' AND x.state = 'done'))) AS results,
       (SELECT count(*)::int FROM specimens sp WHERE sp.study_id = s.id AND NOT sp.excluded) AS n,
       concat_ws(' → ', ci.name, di.name, ii.name) AS instrument_names
     FROM studies s

@@ -1,6 +1,6 @@
 import { serverKind } from '../kinds';
 import ExcelJS from 'exceljs';
-import { desc, eq } from 'drizzle-orm';
+import { and, desc, eq } from 'drizzle-orm';
 import { StudySettings, type ArchiveQuery } from '../../shared/schemas';
 import { withRecordedWords } from '../analyses/recorded-words';
 import type { SignedInUser } from '../auth/session-user';
@@ -107,7 +107,7 @@ export async function exportStudy(db: Database, me: SignedInUser, studyId: numbe
   const signedId = signatureRows.filter((s) => s.meaning !== 'plan-approved').pop()?.analysisId;
   const [analysis] = signedId
     ? await db.select().from(analyses).where(eq(analyses.id, signedId))
-    : await db.select().from(analyses).where(eq(analyses.studyId, studyId)).orderBy(desc(analyses.id)).limit(1);
+    : await db.select().from(analyses).where(and(eq(analyses.studyId, studyId), eq(analyses.purpose, 'findings'))).orderBy(desc(analyses.id)).limit(1);
   const settings = StudySettings.parse(row.settings);
   const results = withRecordedWords(analysis?.results ?? null, row.settings);
   resultsSheet(wb, serverKind(study.kind), results, {

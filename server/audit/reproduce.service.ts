@@ -15,7 +15,7 @@ import { diffJson } from './json-diff';
 export async function reproduceStudy(db: Database, me: SignedInUser, studyId: number): Promise<ReproduceReport> {
   const study = await findStudy(db, me.laboratoryId, studyId);
   const [sig] = await db.select().from(signatures).where(and(eq(signatures.studyId, studyId), ne(signatures.meaning, 'plan-approved'))).orderBy(desc(signatures.id)).limit(1);
-  const latest = sig ? null : (await db.select({ id: analyses.id }).from(analyses).where(and(eq(analyses.studyId, studyId), eq(analyses.state, 'done'))).orderBy(desc(analyses.id)).limit(1))[0];
+  const latest = sig ? null : (await db.select({ id: analyses.id }).from(analyses).where(and(eq(analyses.studyId, studyId), eq(analyses.purpose, 'findings'), eq(analyses.state, 'done'))).orderBy(desc(analyses.id)).limit(1))[0];
   const analysisId = sig?.analysisId ?? latest?.id ?? null;
   if (!analysisId) throw new AppError('conflict', 'This study has no finished analysis to reproduce');
   const [analysis] = await db.select().from(analyses).where(eq(analyses.id, analysisId));

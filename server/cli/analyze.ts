@@ -4,6 +4,7 @@
  * verify-interval | bootstrap-test, with the engine's options as flags; or a study kind by its stored name
  * (method-comparison | interval-establish | interval-verify | precision | …, from the kinds' registry) with
  * `--settings FILE.json`, the study's settings object, run exactly as a stored study is (study-kinds.ts).
+ * Planning (no data file): plan-comparison --settings PLAN.json, plan-transference, plan-establish (plan-commands.ts).
  * A bad file or option prints one line naming the row or option on stderr and exits with status 2.
  */
 import { readFileSync } from 'node:fs';
@@ -12,9 +13,11 @@ import { CsvError, parseCsv } from './csv';
 import { FlagError, flagFor, parseFlags, textFlag } from './flags';
 import { KINDS, type Kind } from './kinds';
 import { readSettings, runStudyKind, STUDY_KIND_NAMES } from './study-kinds';
+import { PLAN_COMMANDS, runPlanCommand } from './plan-commands';
 
 const USAGE = `usage: npm run --silent analyze -- ${Object.keys(KINDS).join('|')} FILE.csv [--option value ...]\n` +
-  `   or: npm run --silent analyze -- ${STUDY_KIND_NAMES.join('|')} FILE.csv [--settings SETTINGS.json]`;
+  `   or: npm run --silent analyze -- ${STUDY_KIND_NAMES.join('|')} FILE.csv [--settings SETTINGS.json]\n` +
+  `   or: npm run --silent analyze -- plan-comparison --settings PLAN.json | plan-transference --n 20 --max-outside 2 --outside 0.025,0.1 | plan-establish --n 120,240`;
 
 /** A study kind on the command line: its only flag is the settings file. */
 const studyKind = (name: string): Kind => ({
@@ -23,6 +26,7 @@ const studyKind = (name: string): Kind => ({
 });
 
 export function main(argv: string[]): number {
+  if (PLAN_COMMANDS[argv[0] ?? '']) return plan(argv[0], argv.slice(1));
   const [kindName, file, ...rest] = argv;
   const kind = KINDS[kindName ?? ''] ?? (STUDY_KIND_NAMES.includes(kindName ?? '') ? studyKind(kindName) : undefined);
   if (!kind || !file) return fail(kindName && !kind ? `unknown analysis kind "${kindName}"; ${USAGE}` : USAGE);
@@ -40,6 +44,17 @@ export function main(argv: string[]): number {
   } catch (error) {
     if (error instanceof OptionError) return fail(`${flagFor(kind.flags, error.option)}: ${error.message.replace(/^option \S+ /, '')}`);
     if (error instanceof CsvError || error instanceof FlagError || error instanceof RangeError) return fail(error.message);
+    throw error;
+  }
+}
+
+/** A planning command: no data file, flags only. */
+function plan(name: string, args: string[]): number {
+  try {
+    process.stdout.write(`${JSON.stringify(runPlanCommand(name, args), null, 2)}\n`);
+    return 0;
+  } catch (error) {
+    if (error instanceof FlagError || error instanceof RangeError) return fail(error.message);
     throw error;
   }
 }

@@ -164,6 +164,8 @@ export const specimens = pgTable('specimens', {
 export const analyses = pgTable('analyses', {
   id: serial('id').primaryKey(),
   studyId: integer('study_id').notNull().references(() => studies.id),
+  /** 'findings': an analysis of the study's rows; 'plan': a simulation of the planned study before data (its input the plan). */
+  purpose: text('purpose').notNull().default('findings'),
   state: text('state').notNull().default('queued'),
   progress: doublePrecision('progress').notNull().default(0),
   inputHash: text('input_hash').notNull(),

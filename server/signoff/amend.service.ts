@@ -11,6 +11,8 @@ import { planFieldsOf } from '../studies/study-settings';
 import { studyView } from '../studies/study-view';
 import { amendedComponent } from '../releases/releases.service';
 import { contentHashOf, verificationCode } from './content-hash';
+import { currentPlanRun, hasSamplePlan } from '../plans/plans.service';
+import { planResultsHash } from '../plans/plan-input';
 import { confirmPassword, step, studyAttempt } from './signoff.service';
 
 /** Copies a signed study into a new draft that records what it supersedes. */
@@ -48,7 +50,13 @@ export async function approvePlan(ctx: AppContext, me: SignedInUser, id: number,
   await confirmPassword(ctx, me, body.password, address, studyAttempt(id, 'plan-approved'));
   return step(ctx, async (tx) => {
     const study = draftForPlan(await findStudy(tx, me.laboratoryId, id, true));
-    const plan = Object.fromEntries(planFieldsOf(study.kind).map((f) => [f, (study.settings as Record<string, unknown>)[f]]));
+    const plan: Record<string, unknown> = Object.fromEntries(planFieldsOf(study.kind).map((f) => [f, (study.settings as Record<string, unknown>)[f]]));
+    // A plan by simulation is approved with its figures: the run made from the plan as it is set now.
+    if (hasSamplePlan(study)) {
+      const run = await currentPlanRun(tx, study);
+      if (!run) throw new AppError('conflict', 'Run the plan (Setup › Plan) before approving it: its figures are approved with it', [{ path: 'settings.samplePlan', message: 'no finished run of the plan as it is set' }]);
+      plan.planRun = { analysisId: run.id, inputHash: run.inputHash, resultsHash: planResultsHash(run.results), recommendedN: (run.results as { recommendedN?: number | null }).recommendedN ?? null };
+    }
     const contentHash = contentHashOf({ studyId: id, kind: study.kind, analyteId: study.analyteId, plan });
     const signedAt = new Date();
     const [sig] = await tx.insert(signatures).values({

@@ -30,9 +30,9 @@ type FindingsRow = { studyId: number; latestId: number | null; latestState: stri
  */
 const findingsSql = (ids: number[], known: Known) => sql`
   SELECT s.id AS "studyId", l.id AS "latestId", l.state AS "latestState", l.input_hash AS "latestHash",
-         (SELECT c.id FROM ${analyses} c WHERE c.study_id = s.id AND c.state = 'done' AND c.input_hash = s.hash ORDER BY c.id DESC LIMIT 1) AS "currentId"
+         (SELECT c.id FROM ${analyses} c WHERE c.study_id = s.id AND c.purpose = 'findings' AND c.state = 'done' AND c.input_hash = s.hash ORDER BY c.id DESC LIMIT 1) AS "currentId"
     FROM unnest(${intArray(ids)}::int[], ${`{${ids.map((id) => known.get(id)!.hash).join(',')}}`}::text[]) AS s(id, hash)
-    LEFT JOIN LATERAL (SELECT a.id, a.state, a.input_hash FROM ${analyses} a WHERE a.study_id = s.id ORDER BY a.id DESC LIMIT 1) l ON true`;
+    LEFT JOIN LATERAL (SELECT a.id, a.state, a.input_hash FROM ${analyses} a WHERE a.study_id = s.id AND a.purpose = 'findings' ORDER BY a.id DESC LIMIT 1) l ON true`;
 
 function findingsFrom(rows: FindingsRow[], known: Known): Map<number, Findings> {
   const out = new Map<number, Findings>();

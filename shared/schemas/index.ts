@@ -8,3 +8,4 @@ export * from './specimen.schema';
 export * from './analysis.schema';
 export * from './audit.schema';
 export * from './release.schema';
+export * from './plan.schema';

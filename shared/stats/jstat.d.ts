@@ -2,6 +2,7 @@
 declare module 'jstat' {
   export const jStat: {
     gammaln(x: number): number;
+    betaln(a: number, b: number): number;
     erfc(x: number): number;
     normal: { cdf(x: number, mean: number, sd: number): number; inv(p: number, mean: number, sd: number): number };
     studentt: { cdf(x: number, dof: number): number; inv(p: number, dof: number): number };

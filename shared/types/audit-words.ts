@@ -54,6 +54,9 @@ function rowLines(after: Obj): string[] {
   return lines.length ? lines : ['no cell changed'];
 }
 
+/** A plan's simulation run or an analysis of the rows. */
+const runWord = (a: Obj): string => (a.purpose === 'plan' ? 'Plan simulation' : 'Analysis');
+
 const HEADLINES: Record<string, (a: Obj, b: Obj, e: AuditEventLike) => string> = {
   'study.created': (a) => `Study created: "${a.title ?? ''}"`,
   'study.updated': () => 'Setup changed',
@@ -69,9 +72,10 @@ const HEADLINES: Record<string, (a: Obj, b: Obj, e: AuditEventLike) => string> =
   'specimens.imported.appended': (a) => `Rows appended from an uploaded file (now ${rows(a.rowCount)})`,
   'upload.received': (a) => `File "${a.fileName}" uploaded (${rows(a.rows)}, SHA-256 ${String(a.sha256 ?? '').slice(0, 12)}…)`,
   'analysis.queued': (a) => `Analysis queued (seed ${a.seed}, ${show(a.resamples)} resamples, ${a.engineVersion})`,
-  'analysis.done': (a) => `Analysis finished in ${show(a.durationMs)} ms`,
-  'analysis.failed': (a) => `Analysis failed: ${a.error ?? 'unknown error'}`,
-  'analysis.requeued': (a) => `Analysis queued again (attempt ${a.attempt}): ${a.reason}`,
+  'analysis.done': (a) => `${runWord(a)} finished in ${show(a.durationMs)} ms`,
+  'analysis.failed': (a) => `${runWord(a)} failed: ${a.error ?? 'unknown error'}`,
+  'analysis.requeued': (a) => `${runWord(a)} queued again (attempt ${a.attempt}): ${a.reason}`,
+  'plan.queued': (a) => `Plan simulation queued (${show(a.simulations)} simulated studies per n, n = ${Array.isArray(a.n) ? a.n.join(', ') : '?'}; seed ${a.seed})`,
   'signature.self-sign-allowed': () => 'The director signed rows they entered, as the laboratory setting allows',
   'signature.refused': (a, _b, e) => `${a.meaning === 'plan-approved' ? 'Plan approval' : e.entity === 'study' ? 'Signature' : `Signature of ${e.entity} ${e.entityId ?? ''}`.trim()} refused: ${a.why ?? 'wrong password'}`,
   // Wrong passwords as recorded on the user, with no study (signatures before they were recorded on the study, sign-ins, password changes).

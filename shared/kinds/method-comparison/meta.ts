@@ -1,5 +1,6 @@
 import { ComparisonRowInput } from '../../schemas/specimen.schema';
 import type { KindMeta } from '../kind';
+import { MethodComparisonSettings } from './sample-plan';
 
 /** Method comparison: the same specimens on the comparative and the candidate method. */
 export const methodComparisonMeta = {
@@ -15,6 +16,10 @@ export const methodComparisonMeta = {
     { key: 'exceeds', tone: 'fail', icon: 'cancel', word: 'Exceeds goal', sentence: 'At one or more decision levels the whole CI of the bias lies beyond the allowable bias.' },
   ],
   row: ComparisonRowInput,
+  settings: MethodComparisonSettings,
+  // The plan before data: approved with the plan, read by no analysis.
+  recordOnly: ['samplePlan'],
+  planFields: ['samplePlan'],
   rowFields: [
     { field: 'label', type: 'text', words: 'specimen label', column: 'label' },
     { field: 'comparative', type: 'result', words: 'comparative result', column: 'comparative', required: true, importHeader: /(comparative|current|reference|old|^x$)/i },
