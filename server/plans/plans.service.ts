@@ -144,7 +144,8 @@ async function imprecisionFrom(db: Executor, study: StudyRow, instrumentId: numb
 
 /** Method comparisons of the same analyte with at least 10 included comparative values, newest first. */
 async function earlierStudies(db: Executor, study: StudyRow): Promise<StudyPlan['earlierStudies']> {
-  const n = sql<number>`(SELECT count(*)::int FROM ${specimens} s WHERE s.study_id = ${studies.id} AND NOT s.excluded AND s.comparative IS NOT NULL)`;
+  // The outer column written out: in a select list drizzle names it unqualified ("id"), which the subquery would read as its own.
+  const n = sql<number>`(SELECT count(*)::int FROM ${specimens} sp WHERE sp.study_id = "studies"."id" AND NOT sp.excluded AND sp.comparative IS NOT NULL)`;
   const rows = await db.select({ id: studies.id, title: studies.title, n }).from(studies)
     .where(and(eq(studies.laboratoryId, study.laboratoryId), eq(studies.kind, PLANNED_KIND), eq(studies.analyteId, study.analyteId), ne(studies.id, study.id)))
     .orderBy(desc(studies.id)).limit(50);

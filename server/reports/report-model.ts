@@ -1,6 +1,8 @@
 import type { SpecimenRow, StudyKind, StudyState } from '../../shared/schemas';
 import type { KindSettings } from '../../shared/kinds/settings';
 import type { ComparisonResult, EngineInfo, IntervalResult, VerifyIntervalResult } from '../../shared/stats';
+import type { SamplePlan } from '../../shared/kinds/method-comparison/sample-plan';
+import type { ComparisonPlanResult } from '../../shared/stats/plan-comparison';
 
 /**
  * Everything the verification PDF prints, as plain data: the renderer does no I/O and reads no clock,
@@ -20,6 +22,12 @@ export interface StudyReport {
   results: ReportResults | null;
   amendments: Amendment[];
   planApproval?: PlanApproval | null;
+  /**
+   * A method comparison's plan by simulation: the finished run of the plan as it is set now (currentPlanRun), or
+   * null when there is none. Whether a plan is set at all is `settings.samplePlan`; set but not run (or run for
+   * other settings), the report says so.
+   */
+  samplePlan?: ReportSamplePlan | null;
   signature?: ReportSignature | null;
   /** SHA-256 of the signed content, 64 hex digits. */
   contentHash: string;
@@ -42,6 +50,9 @@ export type ReportRow = Pick<SpecimenRow,
 export interface Amendment { at: Date; by: string; field: string; from: string; to: string; reason: string }
 
 export interface PlanApproval { signerName: string; signedAt: Date; comment: string }
+
+/** A run of the plan: the plan it simulated, its figures, and when it finished. */
+export interface ReportSamplePlan { plan: SamplePlan; results: ComparisonPlanResult; runId: number; finishedAt: Date }
 
 export interface ReportSignature { signerName: string; meaning: 'accepted' | 'not-accepted'; comment: string; signedAt: Date }
 

@@ -1,4 +1,6 @@
 import { parseKindSettings } from '../../shared/kinds/settings';
+import type { SamplePlan } from '../../shared/kinds/method-comparison/sample-plan';
+import type { ComparisonPlanResult } from '../../shared/stats/plan-comparison';
 import { and, asc, desc, eq } from 'drizzle-orm';
 import { show } from '../../shared/types/audit-words';
 import { StudySettings, type StudyKind, type StudyState } from '../../shared/schemas';
@@ -6,7 +8,8 @@ import type { Executor } from '../db/client';
 import { analyses, analytes, auditEvents, instruments, laboratories, signatures } from '../db/schema';
 import { withRecordedWords } from '../analyses/recorded-words';
 import { renderStudyReport } from '../reports/render-report';
-import type { Amendment, InstrumentInfo, ReportResults, StudyReport } from '../reports/report-model';
+import type { Amendment, InstrumentInfo, ReportResults, ReportSamplePlan, StudyReport } from '../reports/report-model';
+import { currentPlanRun, hasSamplePlan } from '../plans/plans.service';
 import { loadRows } from '../specimens/input-hash';
 import { rowView } from '../specimens/specimens.service';
 import type { StudyRow } from '../studies/studies.repository';
@@ -30,12 +33,21 @@ async function amendmentsOf(db: Executor, studyId: number): Promise<Amendment[]>
   })));
 }
 
+/** The finished run of the comparison's plan as it is set now, or null (no plan, or none run for these settings). */
+async function samplePlanOf(db: Executor, study: StudyRow, settings: Record<string, unknown>): Promise<ReportSamplePlan | null> {
+  if (!hasSamplePlan(study)) return null;
+  const run = await currentPlanRun(db, study);
+  if (!run?.results || !run.finishedAt) return null;
+  return { plan: settings.samplePlan as SamplePlan, results: run.results as ComparisonPlanResult, runId: run.id, finishedAt: run.finishedAt };
+}
+
 /** Builds the report's data from the database and renders it (signed: at signing; otherwise a DRAFT preview). */
 export async function renderStudyPdf(db: Executor, study: StudyRow, analysisId: number | null, signing: PdfSigning): Promise<Buffer> {
   const [lab] = await db.select().from(laboratories).where(eq(laboratories.id, study.laboratoryId));
   const [analyte] = await db.select().from(analytes).where(eq(analytes.id, study.analyteId));
   const analysis = analysisId === null ? undefined : (await db.select().from(analyses).where(eq(analyses.id, analysisId)))[0];
   const [plan] = await db.select().from(signatures).where(and(eq(signatures.studyId, study.id), eq(signatures.meaning, 'plan-approved'))).orderBy(desc(signatures.id)).limit(1);
+  const settings = parseKindSettings(study.kind, study.settings);
   const report: StudyReport = {
     laboratory: { name: lab.name, timeZone: lab.timeZone },
     study: { id: study.id, kind: study.kind as StudyKind, title: study.title, purpose: study.purpose, state: (signing.draft ? study.state : 'signed') as StudyState, supersedesId: study.supersedesId },
@@ -46,12 +58,13 @@ export async function renderStudyPdf(db: Executor, study: StudyRow, analysisId: 
       candidate: await instrument(db, study.candidateInstrumentId),
       instrument: await instrument(db, study.instrumentId),
     },
-    settings: parseKindSettings(study.kind, study.settings),
+    settings,
     engineVersion: analysis?.engineVersion ?? '',
     rows: (await loadRows(db, study.id)).map(rowView),
     results: (withRecordedWords(analysis?.results, study.settings) as ReportResults | undefined) ?? null,
     amendments: await amendmentsOf(db, study.id),
     planApproval: plan ? { signerName: plan.signerName, signedAt: plan.signedAt, comment: plan.comment } : null,
+    samplePlan: await samplePlanOf(db, study, settings),
     signature: signing.draft || !signing.signedAt
       ? null
       : { signerName: signing.signerName!, meaning: signing.meaning as 'accepted' | 'not-accepted', comment: signing.comment ?? '', signedAt: signing.signedAt },

@@ -17,6 +17,7 @@ const FIELD: Record<string, string> = {
   statedUpper: 'stated upper limit', statedSource: 'source of the stated interval', confidenceLevel: 'confidence level', differenceType: 'difference type',
   demingRatio: 'Deming error ratio', analyteId: 'analyte', comparativeInstrumentId: 'comparative instrument', candidateInstrumentId: 'candidate instrument',
   instrumentId: 'instrument', outlierRule: 'outlier rule', acceptanceRule: 'acceptance rule', intervalMethod: 'interval method', partitionFields: 'partition fields',
+  samplePlan: 'plan by simulation',
 };
 /** A field's name in words: allowableBiasSource → "source of the allowable bias". */
 export const fieldWords = (f: string): string => FIELD[f] ?? f.replace(/([A-Z])/g, ' $1').toLowerCase();

@@ -71,16 +71,25 @@ export function axisTriangle(frame: Frame, value: number, color: string): void {
   frame.doc.save().polygon([x, bottom - 6], [x - 3.4, bottom], [x + 3.4, bottom]).fillColor(color).fill().restore();
 }
 
-export type PointShape = 'dot' | 'ring' | 'diamond' | 'cross';
+export type PointShape = 'dot' | 'ring' | 'diamond' | 'cross' | 'triangle';
 
 function shape(doc: PDFKit.PDFDocument, kind: PointShape, x: number, y: number, r: number, color: string): void {
   if (kind === 'dot') doc.circle(x, y, r).fillColor(color).fillOpacity(0.85).fill();
   else if (kind === 'ring') doc.circle(x, y, r).lineWidth(0.8).strokeColor(color).stroke();
   else if (kind === 'diamond') doc.polygon([x, y - r * 1.35], [x + r * 1.35, y], [x, y + r * 1.35], [x - r * 1.35, y]).lineWidth(0.8).fillColor(color).strokeColor(color).fillOpacity(0.35).fillAndStroke();
+  else if (kind === 'triangle') doc.polygon([x, y - r * 1.4], [x - r * 1.25, y + r * 0.9], [x + r * 1.25, y + r * 0.9]).fillColor(color).fill();
   else doc.lineWidth(0.9).strokeColor(color).moveTo(x - r, y - r).lineTo(x + r, y + r).moveTo(x - r, y + r).lineTo(x + r, y - r).stroke();
 }
 
-/** Points of one kind: filled dots, open rings, diamonds or crosses, so kinds differ in shape, not colour alone. */
+/** The dash pattern of a reference line (a target, a limit): long dash, dot, so it differs from a dashed data line in shape too. */
+const REFERENCE_DASH = [6, 2, 1.2, 2];
+
+/** Sets the reference line's dash pattern (pdfkit takes a pattern as an array; its types know one length only). */
+export function referenceDash(doc: PDFKit.PDFDocument): PDFKit.PDFDocument {
+  return doc.dash(REFERENCE_DASH as unknown as number, {});
+}
+
+/** Points of one kind: filled dots, open rings, diamonds, crosses or triangles, so kinds differ in shape, not colour alone. */
 export function points(frame: Frame, data: [number, number][], style: { color: string; radius?: number; hollow?: boolean; shape?: PointShape }): void {
   const { doc } = frame;
   const r = style.radius ?? 1.8;
@@ -95,7 +104,7 @@ export function points(frame: Frame, data: [number, number][], style: { color: s
 export interface LegendItem {
   label: string;
   color: string;
-  kind: 'line' | 'dash' | 'dots' | 'band' | 'area' | 'point' | 'ring' | 'diamond' | 'cross' | 'triangle';
+  kind: 'line' | 'dash' | 'dots' | 'reference' | 'band' | 'area' | 'point' | 'ring' | 'diamond' | 'cross' | 'triangle';
 }
 
 const LEGEND_STYLE = { size: SIZE.small, color: COLOR.muted };
@@ -143,6 +152,7 @@ function swatch(doc: PDFKit.PDFDocument, item: LegendItem, x: number, y: number)
   else if (item.kind === 'diamond') shape(doc, 'diamond', x + 6, y, 2.2, item.color);
   else if (item.kind === 'cross') shape(doc, 'cross', x + 6, y, 2.2, item.color);
   else if (item.kind === 'triangle') doc.polygon([x + 6, y - 3], [x + 2.6, y + 3], [x + 9.4, y + 3]).fillColor(item.color).fill();
+  else if (item.kind === 'reference') referenceDash(doc.lineWidth(0.9).strokeColor(item.color)).moveTo(x, y).lineTo(x + 12, y).stroke();
   else {
     doc.lineWidth(1.2).strokeColor(item.color);
     if (item.kind === 'dash') doc.dash(3, { space: 2 });
