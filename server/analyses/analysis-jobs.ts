@@ -5,7 +5,8 @@ import type { Database, Tx } from '../db/client';
 import { analyses, studies } from '../db/schema';
 import { logFailure } from '../log';
 import type { AnalysisInput } from '../specimens/input-hash';
-import type { PlanInput } from '../plans/plan-input';
+import { isPlanInput, type PlanInput } from '../plans/plan-input';
+import { runPlanOnThreads } from '../plans/plan-threads';
 import { AnalysisEvents, announceChange, announceJob } from './analysis-events';
 import { runAnalysis } from './run-analysis';
 import { AnalysisPool } from './worker-pool';
@@ -131,7 +132,8 @@ export class AnalysisJobs {
     }, this.timing.heartbeatMs);
     try {
       const input = claimed.input as AnalysisInput | PlanInput;
-      const results = options.inThread ? runAnalysis(input) : await this.pool!.run(input, onProgress);
+      const results = options.inThread ? runAnalysis(input)
+        : isPlanInput(input) ? await runPlanOnThreads(this.pool!, input, onProgress) : await this.pool!.run(input, onProgress);
       clearInterval(beat);
       await this.finish(claimed, { state: 'done', results, progress: 1, durationMs: Date.now() - started });
     } catch (err) {

@@ -9,6 +9,8 @@
  * same number of runs, so that both medians see the same load on a shared machine; the median-ci row's ms is
  * the engine's median from these runs. The C CI and SE must equal the engine's (differenceBias's median for the
  * same seed), which shows that the C loop did the same work.
+ * Then the plan workload (bench-plan.ts): a 1,000-study plan over 7 sizes for Deming and Passing–Bablok.
+ * `--plan-only` runs the plan workload alone.
  */
 import { execFileSync } from 'child_process';
 import * as fs from 'fs';
@@ -19,6 +21,7 @@ import { differenceBias } from '../../shared/stats/difference-bias';
 import { streamFor } from '../../shared/stats/rng';
 import { benchData, FULL_B, REGRESSION_RESAMPLES, SEED, takeCredit, WORKLOADS, type Workload } from './bench-workloads';
 import { useStyle, type SortStyle } from './bench-naive';
+import { planBench, planBlock } from './bench-plan';
 
 const SIZES = [40, 120, 500, 2000, 10_000];
 const B = FULL_B;
@@ -221,10 +224,16 @@ function spreadBlock(spread: Spread[]): string {
   ].join('\n');
 }
 
-function main(): void {
+async function main(): Promise<void> {
   const only = process.argv.indexOf('--ratio-only');
   if (only >= 0) return ratioOnly(Number(process.argv[only + 1]), process.argv[only + 2]);
   const json = process.argv.includes('--json');
+  const log = (line: string): void => { if (!json) process.stderr.write(`${line}\n`); };
+  if (process.argv.includes('--plan-only')) {
+    const plans = await planBench(log);
+    process.stdout.write(json ? `${JSON.stringify({ plans })}\n` : `${planBlock(plans)}\n`);
+    return;
+  }
   const c = compileC();
   if ('reason' in c) process.stderr.write(`  no C yardstick for ${C_WORKLOAD}: ${c.reason}; the ratio is skipped\n`);
   try {
@@ -236,10 +245,11 @@ function main(): void {
       }
     }
     const spread = ratioSpread(c);
-    process.stdout.write(json ? `${JSON.stringify({ rows, ratioToC: spread })}\n` : `${table(rows)}\n\n${cBlock(rows, c)}\n\n${spreadBlock(spread)}\n\n${targets(rows, c)}\n`);
+    const plans = await planBench(log);
+    process.stdout.write(json ? `${JSON.stringify({ rows, ratioToC: spread, plans })}\n` : `${table(rows)}\n\n${cBlock(rows, c)}\n\n${spreadBlock(spread)}\n\n${targets(rows, c)}\n\n${planBlock(plans)}\n`);
   } finally {
     if ('dir' in c) fs.rmSync(c.dir, { recursive: true, force: true });
   }
 }
 
-main();
+void main();

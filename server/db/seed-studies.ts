@@ -2,6 +2,7 @@ import seedrandom from 'seedrandom';
 import { and, eq } from 'drizzle-orm';
 import type { CreateStudyBody, StudySettingsPatch } from '../../shared/schemas';
 import { analyseNow } from '../analyses/analyses.service';
+import { planNow } from '../plans/plans.service';
 import { AnalysisJobs } from '../analyses/analysis-jobs';
 import { toSignedIn } from '../auth/auth.service';
 import { putRows } from '../specimens/specimens.service';
@@ -167,5 +168,24 @@ export async function seedDemoStudies(db: Database, labId: number, publicUrl: st
       await finish(study.id, demo.finish, demo.signComment ?? '');
     }
   }
+  await seedDemoPlan(db, jobs, me, labId, byName);
   await seedDemoReleases(ctx, labId, me, toSignedIn(director));
+}
+
+/** A draft comparison planned before any specimen is drawn: its plan by simulation set and run (invented figures). */
+export const DEMO_PLAN_TITLE = 'Potassium: Chemistry line 2 against line 1 (planned)';
+async function seedDemoPlan(db: Database, jobs: AnalysisJobs, me: ReturnType<typeof toSignedIn>, labId: number, byName: (n: string) => number): Promise<void> {
+  const exists = await db.select({ id: studies.id }).from(studies).where(and(eq(studies.laboratoryId, labId), eq(studies.title, DEMO_PLAN_TITLE)));
+  if (exists.length) return;
+  const [analyte] = await db.select().from(analytes).where(and(eq(analytes.laboratoryId, labId), eq(analytes.name, 'Potassium')));
+  const study = await createStudy(db, me, {
+    kind: 'method-comparison', title: DEMO_PLAN_TITLE, analyteId: analyte.id,
+    purpose: 'How many specimens does the potassium comparison need? Planned by simulation before any specimen is drawn (invented demo study).',
+    comparativeInstrumentId: byName('Chemistry line 1'), candidateInstrumentId: byName('Chemistry line 2'),
+    settings: {
+      seed: 'vh-potassium-plan-2026', regression: 'deming', demingRatio: 0.73,
+      samplePlan: { errorModel: 'constant', cvComparative: 0.06, cvCandidate: 0.07, low: 2.8, high: 6.8, shape: 'uniform', n: [40, 60, 80, 100, 120, 160, 200], simulations: 1000 },
+    } as CreateStudyBody['settings'],
+  });
+  await planNow(db, jobs, me, study.id);
 }

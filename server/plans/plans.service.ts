@@ -10,7 +10,7 @@ import { analysisView } from '../analyses/analyses.service';
 import type { AnalysisJobs } from '../analyses/analysis-jobs';
 import { recordAudit } from '../audit/audit';
 import { actorOf, type SignedInUser } from '../auth/session-user';
-import type { Database, Executor } from '../db/client';
+import type { Database, Executor, Tx } from '../db/client';
 import { analyses, instruments, signatures, specimens, studies } from '../db/schema';
 import { AppError } from '../http/app-error';
 import { findStudy, type StudyRow } from '../studies/studies.repository';
@@ -98,24 +98,31 @@ export async function getPlan(db: Database, me: SignedInUser, id: number): Promi
 
 /** Queues a simulation of the plan as it is set; the job runs after commit in a worker, as an analysis does. */
 export async function queuePlan(db: Database, jobs: AnalysisJobs, me: SignedInUser, id: number): Promise<StudyPlan> {
-  const runId = await db.transaction(async (tx) => {
-    const study = await findStudy(tx, me.laboratoryId, id, true);
-    assertEditable(study);
-    const { input, problems } = await planInputOf(tx, study);
-    if (!input) throw new AppError('invalid_request', problems[0].message, problems);
-    const resolved = resolveComparisonPlan(input.plan);
-    const hash = planInputHash(input);
-    const [row] = await tx.insert(analyses).values({
-      studyId: id, purpose: 'plan', state: 'queued', inputHash: hash, input, engineVersion: ENGINE_VERSION, seed: resolved.seed, resamples: resolved.resamples, requestedBy: me.id,
-    }).returning();
-    await recordAudit(tx, actorOf(me), {
-      action: 'plan.queued', entity: 'analysis', entityId: row.id, studyId: id,
-      after: { inputHash: hash, seed: resolved.seed, simulations: resolved.simulations, n: resolved.n, resamples: resolved.resamples, regression: resolved.regression, engineVersion: ENGINE_VERSION },
-    });
-    return row.id;
-  });
-  await jobs.enqueue(runId);
+  await jobs.enqueue(await db.transaction((tx) => insertPlanRun(tx, me, id)));
   return getPlan(db, me, id);
+}
+
+/** Runs the plan in this thread and waits for it (demo seeding). */
+export async function planNow(db: Database, jobs: AnalysisJobs, me: SignedInUser, id: number): Promise<void> {
+  await jobs.execute(await db.transaction((tx) => insertPlanRun(tx, me, id)), { inThread: true });
+}
+
+/** Inserts a queued plan run of the plan as it is set, with its audit event (in the caller's transaction). */
+async function insertPlanRun(tx: Tx, me: SignedInUser, id: number): Promise<number> {
+  const study = await findStudy(tx, me.laboratoryId, id, true);
+  assertEditable(study);
+  const { input, problems } = await planInputOf(tx, study);
+  if (!input) throw new AppError('invalid_request', problems[0].message, problems);
+  const resolved = resolveComparisonPlan(input.plan);
+  const hash = planInputHash(input);
+  const [row] = await tx.insert(analyses).values({
+    studyId: id, purpose: 'plan', state: 'queued', inputHash: hash, input, engineVersion: ENGINE_VERSION, seed: resolved.seed, resamples: resolved.resamples, requestedBy: me.id,
+  }).returning();
+  await recordAudit(tx, actorOf(me), {
+    action: 'plan.queued', entity: 'analysis', entityId: row.id, studyId: id,
+    after: { inputHash: hash, seed: resolved.seed, simulations: resolved.simulations, n: resolved.n, resamples: resolved.resamples, regression: resolved.regression, engineVersion: ENGINE_VERSION },
+  });
+  return row.id;
 }
 
 /**

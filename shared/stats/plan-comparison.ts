@@ -282,6 +282,31 @@ export function planComparison(options: ComparisonPlanOptions, onProgress?: Prog
     };
   });
   onProgress?.(1);
+  return finishPlan(p, rows);
+}
+
+/**
+ * One plan from plans run on parts of the same grid (in parallel threads): the same figures as one run over the
+ * whole grid, since study j at size n draws from its own stream whatever else is simulated.
+ */
+export function mergePlans(parts: ComparisonPlanResult[]): ComparisonPlanResult {
+  if (parts.length === 0) throw new RangeError('mergePlans needs at least one part');
+  const rows = parts.flatMap((part) => part.rows).sort((a, b) => a.n - b.n);
+  return finishPlan({ ...parts[0].settings, n: rows.map((r) => r.n) }, rows);
+}
+
+/** The grid split into `parts` groups of about equal work (the cost of a simulated study grows with n). */
+export function splitGrid(grid: readonly number[], parts: number): number[][] {
+  const groups = Array.from({ length: Math.max(1, Math.min(parts, grid.length)) }, () => ({ ns: [] as number[], work: 0 }));
+  for (const n of [...grid].sort((a, b) => b - a)) {
+    const lightest = groups.reduce((a, b) => (b.work < a.work ? b : a));
+    lightest.ns.push(n);
+    lightest.work += n;
+  }
+  return groups.map((g) => g.ns.sort((a, b) => a - b));
+}
+
+function finishPlan(p: ResolvedComparisonPlan, rows: PlanRow[]): ComparisonPlanResult {
   const meets = (r: PlanRow) => r.levels.every((l) => l.powerAtHalf >= p.targetPower && l.falsePass <= p.maxFalsePass);
   const recommended = rows.find(meets) ?? null;
   return jsonClean({
