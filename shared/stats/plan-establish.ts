@@ -10,8 +10,8 @@ import { binomialRankCi } from './rank-ci';
  *   Statistics, 3rd ed. 2003, §2.2 [memory for the section]).
  * - In the unit, for a presumed population whose central 95% runs from `lower` to `upper` (normal, or log-normal:
  *   normal on the log scale): E[x(s)] − E[x(r)], each expectation ∫ Q(u)·Beta(u; k, n − k + 1) du computed by
- *   Simpson's rule on the normal scale z (u = Φ(z), 4,000 panels from −9 to 9; plan-establish.spec.ts checks it
- *   against scipy's numerical integration and against published expected normal order statistics).
+ *   Simpson's rule on the normal scale z (u = Φ(z), 4,000 panels from −9 to 9; reference-checks/plan.check.ts checks
+ *   it against scipy's numerical integration and against published expected normal order statistics).
  */
 export type PopulationShape = 'normal' | 'log-normal';
 
@@ -70,8 +70,8 @@ export function planEstablish(o: EstablishPlanOptions = {}): EstablishPlanResult
 function resolvePopulation(p: NonNullable<EstablishPlanOptions['population']>): { shape: PopulationShape; lower: number; upper: number } {
   const shape = choiceOption('population.shape', p.shape, 'normal', ['normal', 'log-normal'] as const);
   const lower = numberOption('population.lower', p.lower, NaN, Number.isFinite, 'a number');
-  const upper = numberOption('population.upper', p.upper, NaN, (v) => v > lower, `a number above the lower limit (${lower})`);
   if (!Number.isFinite(lower)) throw new OptionError('population.lower', 'is required with a presumed population');
+  const upper = numberOption('population.upper', p.upper, NaN, (v) => v > lower, `a number above the lower limit (${lower})`);
   if (!Number.isFinite(upper)) throw new OptionError('population.upper', 'is required with a presumed population');
   if (shape === 'log-normal' && !(lower > 0)) throw new OptionError('population.lower', 'must be above 0 for a log-normal population');
   return { shape, lower, upper };

@@ -9,7 +9,7 @@ import { integerOption, numberListOption, OptionError } from './options';
  *   acceptFirst      = P(X ≤ k),                     X ~ Binomial(n, p)
  *   acceptWithRetest = P(X ≤ k) + P(X > k)·P(X' ≤ k), X' ~ Binomial(retest, p), the retest judged on its own
  * With n = 20, k = 2 and p = 10%: 67.7% and 89.6%; the rule is weak against a population shifted so that a
- * tenth falls outside (plan-transference.spec.ts checks these against scipy.stats.binom).
+ * tenth falls outside (reference-checks/plan.check.ts checks these against scipy.stats.binom).
  */
 export interface TransferencePlanOptions {
   n?: number;
