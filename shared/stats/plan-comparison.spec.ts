@@ -313,3 +313,22 @@ describe('planComparison warnings', () => {
     expect(planComparison(base).warnings.some((w) => w.includes('negative'))).toBe(false);
   });
 });
+
+describe('planComparison with least squares and with a goal of 0', () => {
+  it('says least squares ignores the comparative error: a warning, and a cause when no n will do; Deming gets neither', () => {
+    const narrowOls: ComparisonPlanOptions = { ...base, low: 9, high: 11, decisionLevels: [11], allowableBias: 0.15, cvComparative: 0.2, cvCandidate: 0.2, n: [20] };
+    const ols = planComparison(narrowOls);
+    expect(ols.warnings.some((w) => w.startsWith('Least squares assumes the comparative method has no error'))).toBe(true);
+    expect(ols.recommendedN).toBeNull();
+    expect(ols.reason).toContain('least squares ignores the comparative method\'s error');
+    const deming = planComparison({ ...narrowOls, regression: 'deming' });
+    expect(deming.warnings.some((w) => w.startsWith('Least squares'))).toBe(false);
+    expect(deming.reason).not.toContain('least squares');
+  });
+
+  it('refuses a decision level whose allowable bias is 0 (only a percentage goal at level 0), naming the decision levels', () => {
+    expect(optionOf(() => planComparison({ ...base, decisionLevels: [0, 100], allowableBias: null, allowableBiasPercent: 5 }))).toBe('decisionLevels');
+    // With an absolute goal as well, the level 0 has a goal and runs.
+    expect(planComparison({ ...base, decisionLevels: [0, 100], allowableBias: 2, allowableBiasPercent: 5 }).rows[0].levels[0].allowable).toBe(2);
+  });
+});

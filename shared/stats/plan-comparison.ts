@@ -147,6 +147,8 @@ export function resolveComparisonPlan(o: ComparisonPlanOptions): ResolvedCompari
   const allowableBias = optionalNumber('allowableBias', o.allowableBias, positive, 'a number above 0');
   const allowableBiasPercent = optionalNumber('allowableBiasPercent', o.allowableBiasPercent, positive, 'a number above 0');
   if (allowableBias === null && allowableBiasPercent === null) throw new OptionError('allowableBias', 'or allowableBiasPercent must be given: the plan judges the bias against it');
+  const zeroGoal = decisionLevels.find((l) => allowableBiasAt(l, allowableBias, allowableBiasPercent) === 0);
+  if (zeroGoal !== undefined) throw new OptionError('decisionLevels', `has a level (${zeroGoal}) where the allowable bias is 0 (a percentage of 0): no study can end within it; give an absolute allowable bias too`);
   const n = numberListOption('n', o.n ?? [...PLAN_DEFAULTS.n], (v) => Number.isInteger(v) && v >= PLAN_LIMITS.n[0] && v <= PLAN_LIMITS.n[1], `a whole number from ${PLAN_LIMITS.n[0]} to ${PLAN_LIMITS.n[1]}`);
   if (n.length === 0 || n.length > PLAN_LIMITS.gridPoints) throw new OptionError('n', `must list 1 to ${PLAN_LIMITS.gridPoints} numbers of specimens`);
   const grid = [...new Set(n)].sort((a, b) => a - b);
@@ -347,6 +349,7 @@ function noneWords(p: ResolvedComparisonPlan, last: PlanRow): string {
   const causes: string[] = [];
   if (ratio !== null && ratio < 3) causes.push(`the range is narrow (highest/lowest ${short(ratio)}; a slope is poorly fixed over a narrow range, Linnet 1999)`);
   if (p.decisionLevels.some((l) => l < p.low || l > p.high)) causes.push('a decision level lies outside the planned range (the bias there is extrapolated)');
+  if (p.regression === 'ols') causes.push('least squares ignores the comparative method\'s error, so its slope is pulled towards 0 and the bias it predicts away from the centre is off (Deming or Passing–Bablok allow for that error)');
   const goal = Math.min(...last.levels.map((l) => l.allowable));
   const sd = p.errorModel === 'constant' ? Math.hypot(p.cvComparative, p.cvCandidate) : null;
   if (sd !== null && sd > goal) causes.push(`the imprecision (combined SD ${short(sd)}) is large against the allowable bias (${short(goal)})`);
@@ -365,6 +368,7 @@ function planWarnings(p: ResolvedComparisonPlan): string[] {
   if (p.errorModel === 'constant' && p.low - 3 * Math.max(p.cvComparative, p.cvCandidate) < 0) {
     w.push('With a constant SD, some simulated results at the low end are negative; a method that cannot report below 0 would censor them.');
   }
+  if (p.regression === 'ols') w.push('Least squares assumes the comparative method has no error; with the imprecision stated, its slope is biased towards 0 and the figures show what that costs.');
   w.push(`Each simulated study uses ${p.resamples.toLocaleString('en-US')} bootstrap resamples (a real analysis uses more); the figures carry a Monte Carlo error of up to ${pct(0.5 / Math.sqrt(p.simulations))} (one SE).`);
   return w;
 }
