@@ -1,4 +1,4 @@
-import { drawText, textWidth } from '../text';
+import { drawText, textWidth, wrapAtSpaces } from '../text';
 import { COLOR, SIZE } from '../theme';
 import { LEGEND_ROW, type Frame } from './frame';
 
@@ -105,18 +105,51 @@ export interface LegendItem {
   label: string;
   color: string;
   kind: 'line' | 'dash' | 'dots' | 'reference' | 'band' | 'area' | 'point' | 'ring' | 'diamond' | 'cross' | 'triangle';
+  /** Set by legendRows on the further lines of a label too wide for one row: drawn without a key. */
+  continued?: boolean;
 }
 
 const LEGEND_STYLE = { size: SIZE.small, color: COLOR.muted };
 const KEY = 16;
 const GAP = 12;
 
-/** The legend's keys placed in rows no wider than `width`: each row a list of [item, x offset]. */
+/**
+ * A label broken into lines no wider than `width`: after the commas of a list first ("3.0 mmol/L, 10.0 mmol/L"),
+ * at other spaces only where one item is itself too wide, and never between a value and its unit.
+ */
+function labelLines(doc: PDFKit.PDFDocument, label: string, width: number): string[] {
+  const fits = (text: string): boolean => textWidth(doc, text, LEGEND_STYLE) <= width - 2;
+  const lines: string[] = [];
+  for (const piece of label.split(/(?<=,) /)) {
+    const last = lines[lines.length - 1];
+    if (last !== undefined && fits(`${last} ${piece}`)) lines[lines.length - 1] = `${last} ${piece}`;
+    else if (fits(piece)) lines.push(piece);
+    // A number and the word after it (its unit) stay together: joined by a no-break space while the piece is broken.
+    else lines.push(...wrapAtSpaces(doc, piece.replace(/(\d) (?=\S)/g, '$1\u00a0'), LEGEND_STYLE.size, width).split('\n').map((l) => l.replace(/\u00a0/g, ' ')));
+  }
+  return lines;
+}
+
+/**
+ * The legend's keys placed in rows no wider than `width`: each row a list of [item, x offset]. A label too wide
+ * for a row of its own ("decision levels 3.0 mmol/L, 10.0 mmol/L, 20.0 mmol/L" under a half-width plot) is broken
+ * at spaces over rows of its own, its key on the first, so no legend runs past its plot.
+ */
 export function legendRows(doc: PDFKit.PDFDocument, items: LegendItem[], width: number): [LegendItem, number][][] {
   const rows: [LegendItem, number][][] = [[]];
   let x = 0;
   for (const item of items) {
     const w = KEY + textWidth(doc, item.label, LEGEND_STYLE);
+    if (w > width) {
+      if (x > 0) rows.push([]);
+      labelLines(doc, item.label, width - KEY).forEach((line, k) => {
+        if (k > 0) rows.push([]);
+        rows[rows.length - 1].push([{ ...item, label: line, continued: k > 0 }, 0]);
+      });
+      rows.push([]);
+      x = 0;
+      continue;
+    }
     if (x > 0 && x + w > width) {
       rows.push([]);
       x = 0;
@@ -124,6 +157,7 @@ export function legendRows(doc: PDFKit.PDFDocument, items: LegendItem[], width: 
     rows[rows.length - 1].push([item, x]);
     x += w + GAP;
   }
+  if (rows.length > 1 && rows[rows.length - 1].length === 0) rows.pop();
   return rows;
 }
 
@@ -134,7 +168,7 @@ export function legend(frame: Frame, items: LegendItem[]): void {
     const y = frame.y + frame.height + 29 + k * LEGEND_ROW;
     for (const [item, dx] of row) {
       const x = frame.x + dx;
-      swatch(doc, item, x, y + 4.5);
+      if (!item.continued) swatch(doc, item, x, y + 4.5);
       const w = textWidth(doc, item.label, LEGEND_STYLE);
       drawText(doc, item.label, x + KEY, y, LEGEND_STYLE, { width: w + 2, oneLine: true });
     }

@@ -7,6 +7,10 @@ import { COLOR } from '../theme';
 import { differenceLegend, differencePlot, type DifferenceInput } from './difference-plot';
 import type { Frame } from './frame';
 import { histogramPlot } from './histogram-plot';
+import { legendRows } from './marks';
+import { levelStyle, powerCurveLegend, powerCurvePlot, type PowerCurveInput } from './power-curve';
+import { textWidth } from '../text';
+import { pdfLayout } from '../testing/pdf-layout';
 import { scatterLegend, scatterPlot } from './scatter-plot';
 import { stripPlot } from './strip-plot';
 
@@ -130,5 +134,86 @@ describe('the PDF plots', () => {
     expect(text).toMatch(/observed \d\.\d\d mmol\/L/);
     const verify = flat(pdfPages(await renderStudyReport(verifyReport(20))));
     expect(verify).toContain('outside');
+  });
+});
+
+describe('the power curve of a plan by simulation', () => {
+  const curve: PowerCurveInput = {
+    title: 'Plan', targetPower: 0.8, maxFalsePass: 0.05,
+    levels: [{ label: 'at 3.0 mmol/L', points: [
+      { n: 40, powerAtZero: 0.9, powerAtHalf: 0.5, falsePass: 0.02 },
+      { n: 20, powerAtZero: 0.6, powerAtHalf: 0.2, falsePass: 0 },
+      { n: 80, powerAtZero: 1, powerAtHalf: 0.85, falsePass: 0.04 },
+    ] }],
+  };
+
+  it('puts a marker at each n and share of every line, inside the frame, the shares of 0 and 100% off its edges', () => {
+    const d = page();
+    const frame = powerCurvePlot(d.doc, { ...BOX, width: 480 }, curve);
+    const expected = curve.levels[0].points.flatMap((p) => [p.powerAtHalf, p.falsePass, p.powerAtZero].map((v) => [frame.px(p.n), frame.py(100 * v)]));
+    const drawn = d.circles.filter(([, y]) => y < frame.y + frame.height + 20);
+    expect(drawn.map(([x, y]) => `${x.toFixed(2)},${y.toFixed(2)}`).sort()).toEqual(expected.map(([x, y]) => `${x.toFixed(2)},${y.toFixed(2)}`).sort());
+    expect(inside(frame, d.circles)).toBe(true);
+    expect(frame.yAxis.ticks).toEqual([0, 20, 40, 60, 80, 100]);
+  });
+
+  it('draws the target power and the false-pass limit as dash-dot lines across the frame', () => {
+    const d = page();
+    const lines: { pattern: unknown; y: number; from: number; to: number }[] = [];
+    let pattern: unknown = null;
+    const dash = d.doc.dash.bind(d.doc);
+    const moveTo = d.doc.moveTo.bind(d.doc);
+    const lineTo = d.doc.lineTo.bind(d.doc);
+    d.doc.dash = ((length: unknown, options: unknown) => { pattern = length; return dash(length as number, options); }) as typeof d.doc.dash;
+    d.doc.moveTo = ((x: number, y: number) => { if (Array.isArray(pattern)) lines.push({ pattern, y, from: x, to: x }); return moveTo(x, y); }) as typeof d.doc.moveTo;
+    d.doc.lineTo = ((x: number, y: number) => { if (Array.isArray(pattern)) lines[lines.length - 1].to = x; pattern = null; return lineTo(x, y); }) as typeof d.doc.lineTo;
+    const frame = powerCurvePlot(d.doc, { ...BOX, width: 480 }, curve);
+    const across = lines.filter((l) => Math.abs(l.from - frame.x) < 1e-6 && Math.abs(l.to - frame.x - frame.width) < 1e-6);
+    expect(across.map((l) => l.y)).toEqual([frame.py(80), frame.py(5)]);
+    expect(across.every((l) => (l.pattern as number[]).length === 4)).toBe(true);
+  });
+
+  it('tells the levels apart by marker and colour together, and the truths by line style, in the legend', () => {
+    const looks = Array.from({ length: 10 }, (_, k) => `${levelStyle(k).color} ${levelStyle(k).shape}`);
+    expect(new Set(looks).size).toBe(10);
+    expect(new Set(Array.from({ length: 5 }, (_, k) => levelStyle(k).shape)).size).toBe(5);
+    expect(powerCurveLegend(curve).map((i) => [i.label, i.kind])).toEqual([
+      ['at 3.0 mmol/L', 'point'],
+      ['true bias half the allowable (power)', 'line'], ['true bias equal to the allowable (false pass)', 'dash'], ['true bias 0', 'dots'],
+      ['targets: power 80%, false pass 5%', 'reference'],
+    ]);
+  });
+});
+
+describe('the legend under a plot', () => {
+  it('breaks a label wider than the plot over rows of its own, the key on the first, so no row runs past the plot', () => {
+    const { doc } = page();
+    const width = 182;
+    const long = { label: 'decision levels 3.0 mmol/L, 10.0 mmol/L, 20.0 mmol/L', color: COLOR.ink, kind: 'triangle' as const };
+    const style = { size: 7.5 };
+    expect(16 + textWidth(doc, long.label, style)).toBeGreaterThan(width);
+    const rows = legendRows(doc, [{ label: 'pairs', color: COLOR.ink, kind: 'point' }, long, { label: 'CIs', color: COLOR.ink, kind: 'band' }], width);
+    for (const row of rows) for (const [item, x] of row) expect(x + 16 + textWidth(doc, item.label, style)).toBeLessThanOrEqual(width);
+    expect(rows.map((row) => row.map(([item]) => [item.label, !!item.continued]))).toEqual([
+      [['pairs', false]], [['decision levels 3.0 mmol/L, 10.0 mmol/L,', false]], [['20.0 mmol/L', true]], [['CIs', false]],
+    ]);
+  });
+});
+
+describe('the scatter and difference plots of a comparison', () => {
+  it('keep the height of their data when a long legend breaks over more rows, and no legend runs past the right margin', async () => {
+    // "allowable bias ±0.30 mmol/L or ±5 %, whichever is greater" breaks over two rows: the plots grow by the rows added.
+    const heights: number[] = [];
+    for (const report of [comparisonReport(40), comparisonReport(40, { allowableBiasPercent: 5 })]) {
+      const pages = pdfLayout(await renderStudyReport(report));
+      const lines = pages.flatMap((p) => p.lines);
+      const title = lines.find((l) => l.text.startsWith('Scatter plot Difference plot'))!;
+      const axis = lines.find((l) => l.text.startsWith('Comparative x (mmol/L) Mean of the pair (mmol/L)'))!;
+      heights.push(axis.top - title.top);
+      const page = pages.find((p) => p.lines.includes(title))!;
+      for (const l of page.lines) expect({ text: l.text, past: l.right > page.width - 56 + 1 }).toEqual({ text: l.text, past: false });
+    }
+    expect(heights[0]).toBeGreaterThan(190);
+    expect(heights[1]).toBeCloseTo(heights[0], 1);
   });
 });

@@ -33,6 +33,9 @@ export const levelStyle = (k: number): { color: string; shape: PointShape; legen
   return { color: COLORS[k % COLORS.length], ...s };
 };
 
+/** The reference lines' grey: lighter than the data, darker than the grid. */
+const REFERENCE = '#7d8a93';
+
 const percent = (v: number): string => `${Math.round(v * 1000) / 10}%`;
 
 /** The legend: a marker per level, then the three line styles, then the reference lines of the targets. */
@@ -40,7 +43,7 @@ export function powerCurveLegend(input: PowerCurveInput): LegendItem[] {
   return [
     ...input.levels.map((l, k) => ({ label: l.label, color: levelStyle(k).color, kind: levelStyle(k).legend })),
     ...SCENARIOS.map((s) => ({ label: s.label, color: COLOR.ink, kind: s.legend as LegendItem['kind'] })),
-    { label: `targets: power ${percent(input.targetPower)}, false pass ${percent(input.maxFalsePass)}`, color: COLOR.muted, kind: 'reference' },
+    { label: `targets: power ${percent(input.targetPower)}, false pass ${percent(input.maxFalsePass)}`, color: REFERENCE, kind: 'reference' },
   ];
 }
 
@@ -62,7 +65,7 @@ export function powerCurvePlot(doc: PDFKit.PDFDocument, box: Box, input: PowerCu
   clipped(frame, () => {
     for (const value of [input.targetPower, input.maxFalsePass]) {
       const y = frame.py(100 * value);
-      referenceDash(doc.save().lineWidth(0.9).strokeColor(COLOR.muted)).moveTo(frame.x, y).lineTo(frame.x + frame.width, y).stroke();
+      referenceDash(doc.save().lineWidth(0.8).strokeColor(REFERENCE)).moveTo(frame.x, y).lineTo(frame.x + frame.width, y).stroke();
       doc.restore();
     }
     input.levels.forEach((level, k) => {

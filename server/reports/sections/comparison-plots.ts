@@ -1,7 +1,7 @@
 import { num } from '../format';
 import type { Layout } from '../layout';
 import { type DifferenceInput, differenceLegend, differencePlot } from '../plots/difference-plot';
-import { dataWidth } from '../plots/frame';
+import { dataWidth, LEGEND_ROW } from '../plots/frame';
 import { legendRows } from '../plots/marks';
 import { histogramPlot } from '../plots/histogram-plot';
 import { plotRow } from '../plots/plot-box';
@@ -12,6 +12,8 @@ import { REGRESSION_WORDS } from '../words';
 import { decimalsOf, differenceUnit, type Pair } from './comparison-data';
 
 const NONE = { estimate: null, ci: null };
+/** The gap between the two plots of a row (plotRow's). */
+const PLOT_GAP = 18;
 const label = (name: string, unit: string): string => (unit ? `${name} (${unit})` : name);
 const withUnit = (text: string, unit: string): string => (unit ? `${text} ${unit}` : text);
 
@@ -29,9 +31,8 @@ export function comparisonPlots(layout: Layout, report: StudyReport, results: Co
   const percent = type !== 'absolute';
   const dDecimals = percent ? 2 : d.stat;
   const step = results.resolution?.increment ?? null;
-  layout.heading('Plots', 285);
+  if (!pairs.length) layout.heading('Plots', 285);
   if (pairs.length) {
-    const [left, right] = plotRow(layout, 2, 270);
     const reg = results.regression;
     const line = reg?.slope?.estimate != null && reg.intercept?.estimate != null
       ? { slope: reg.slope.estimate, intercept: reg.intercept.estimate, label: REGRESSION_WORDS[reg.method] ?? reg.method }
@@ -56,8 +57,13 @@ export function comparisonPlots(layout: Layout, report: StudyReport, results: Co
       format: { difference: (v) => withUnit(num(v, dDecimals), dUnit), value: (v) => withUnit(num(v, d.value), unit), goal: (v) => withUnit(num(v, d.stat), unit) },
       resolution: { x: step, y: percent ? null : results.resolution?.differenceIncrement ?? step },
     };
-    // Both plots leave room for as many legend rows as the longer legend, so their axes line up.
-    const rows = Math.max(...[scatterLegend(scatter), differenceLegend(difference)].map((items) => legendRows(layout.doc, items, dataWidth(left)).length));
+    // Both plots leave room for as many legend rows as the longer legend, so their axes line up; past five rows the
+    // plots grow by the rows they add, so a long legend (long labels broken over rows) does not squeeze the data.
+    const width = (layout.width - PLOT_GAP) / 2;
+    const rows = Math.max(...[scatterLegend(scatter), differenceLegend(difference)].map((items) => legendRows(layout.doc, items, dataWidth({ width })).length));
+    const height = Math.max(270, 215 + rows * LEGEND_ROW);
+    layout.heading('Plots', height + 15);
+    const [left, right] = plotRow(layout, 2, height, PLOT_GAP);
     scatterPlot(layout.doc, left, { ...scatter, legendRows: rows });
     differencePlot(layout.doc, right, { ...difference, legendRows: rows });
   }

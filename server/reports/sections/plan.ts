@@ -3,6 +3,7 @@ import type { Layout } from '../layout';
 import type { StudyReport } from '../report-model';
 import { laboratoryTime } from '../../../shared/types/lab-time';
 import { decimalsOf } from './comparison-data';
+import { samplePlanSection } from './sample-plan';
 
 /** "0.3 mmol/L or 5% of the level, whichever is greater", as the engine applies it. */
 export function allowableBiasWords(report: StudyReport): string {
@@ -21,7 +22,7 @@ export function planApprovalWords(report: StudyReport): string {
   return `Approved by ${a.signerName}, ${when}${a.comment ? `: “${a.comment}”` : ''}`;
 }
 
-/** The plan of a method comparison, fixed before the data: levels, goal and its source, rules. */
+/** The plan of a method comparison, fixed before the data: levels, goal and its source, rules; and its sample size by simulation, when one is set. */
 export function comparisonPlan(layout: Layout, report: StudyReport): void {
   const s = report.settings;
   const d = decimalsOf(report).value;
@@ -35,4 +36,5 @@ export function comparisonPlan(layout: Layout, report: StudyReport): void {
   ];
   layout.heading('Plan and acceptance criteria', layout.keyValuesHeight(pairs, 150, 2));
   layout.keyValues(pairs);
+  samplePlanSection(layout, report);
 }

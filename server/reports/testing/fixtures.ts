@@ -1,6 +1,8 @@
 import { createHash } from 'node:crypto';
 import { StudySettings, type StudySettingsPatch } from '../../../shared/schemas';
 import { analyzeComparison, analyzeInterval, verifyInterval } from '../../../shared/stats';
+import { planOptionsFor, SamplePlan } from '../../../shared/kinds/method-comparison/sample-plan';
+import { planComparison } from '../../../shared/stats/plan-comparison';
 import type { ReportRow, StudyReport } from '../report-model';
 
 /**
@@ -75,6 +77,25 @@ export function comparisonReport(count = 40, patch: StudySettingsPatch = {}, row
     allowableBiasPercent: settings.allowableBiasPercent ?? undefined, decimals: settings.decimals,
   });
   return { ...base('method-comparison', settings, rows), results };
+}
+
+/** The invented plan of the glucose comparison: CVs of 2% and 2.5%, true values spread evenly over 2–25 mmol/L. */
+export const SAMPLE_PLAN: Partial<SamplePlan> = {
+  errorModel: 'proportional', cvComparative: 2, cvCandidate: 2.5, low: 2, high: 25, shape: 'uniform',
+  n: [20, 40, 60, 80, 100, 120], simulations: 100, targetPower: 0.8, maxFalsePass: 0.05,
+};
+
+/**
+ * The glucose comparison with a plan by simulation set (`plan` over SAMPLE_PLAN) and its run, made by the real
+ * planning engine with 100 resamples per simulated study (for the tests' speed); `run: false` leaves the plan unrun.
+ */
+export function comparisonPlanReport(plan: Partial<SamplePlan> = {}, patch: StudySettingsPatch = {}, run = true): StudyReport {
+  const report = comparisonReport(40, patch);
+  const samplePlan = SamplePlan.parse({ ...SAMPLE_PLAN, ...plan });
+  const settings = { ...report.settings, samplePlan };
+  if (!run) return { ...report, settings, samplePlan: null };
+  const results = planComparison({ ...planOptionsFor(settings)!, resamples: 100 });
+  return { ...report, settings, samplePlan: { plan: samplePlan, results, runId: 311, finishedAt: new Date('2026-11-02T11:48:00Z') } };
 }
 
 /**

@@ -14,6 +14,11 @@ export interface KindView {
   kind: StudyKind;
   /** Its own Setup fields: a component with a `form` input (the SetupGroup) and a `catalog` input. */
   setupFields: Type<unknown>;
+  /**
+   * A panel under its Setup form, such as its plan before data: a component with `form` (the SetupGroup), `study` (null
+   * for a new study) and `readonly` inputs, loaded when Setup shows it so its charts stay out of the Setup chunk.
+   */
+  setupPanel?: () => Promise<Type<unknown>>;
   /** What the shared Setup form says and shows for it (setup-guidance.ts). */
   guidance: SetupGuidance;
   /** The columns of its specimen grid (pasting, checks and saving follow them). */

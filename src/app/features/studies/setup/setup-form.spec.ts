@@ -42,7 +42,11 @@ const input = (testId: string) => MatInputHarness.with({ selector: `[data-testid
 const select = (testId: string) => MatSelectHarness.with({ selector: `[data-testid="${testId}"]` });
 
 describe('SetupForm', () => {
-  afterEach(() => httpController().verify());
+  // A comparison's Setup reads its plan too (the plan panel, tested in kinds/method-comparison/plan/).
+  afterEach(() => {
+    httpController().match((req) => req.url.endsWith('/plan'));
+    httpController().verify();
+  });
 
   it("brings the chosen analyte's unit, decision levels and allowable bias into a new study, with a random seed shown", async () => {
     const { loader } = await render(null);
@@ -97,5 +101,38 @@ describe('SetupForm', () => {
     await fixture.whenStable();
     expect(await (await loader.getHarness(input('setup-title'))).getValue()).toBe('Their title');
     expect(el.querySelector('[data-testid="setup-conflict"]')).toBeNull();
+  });
+
+  it('asks for a reason when the server says the approved plan changes, and sends it', async () => {
+    const { loader, fixture } = await render(STUDY);
+    await (await loader.getHarness(input('setup-levels'))).setValue('2.8, 7.0');
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Save setup' }))).click();
+    httpController().expectOne({ method: 'PATCH', url: '/api/v1/studies/8' }).flush(
+      apiError('The plan was approved; give a reason for changing the decision levels', [{ path: 'reason', message: 'The plan was approved; give a reason for changing the decision levels' }]),
+      { status: 400, statusText: 'Bad Request' },
+    );
+    await fixture.whenStable();
+    const reason = await loader.getHarness(input('setup-reason'));
+    expect((fixture.nativeElement as HTMLElement).querySelector('[data-testid="setup-reason"]')!.closest('mat-form-field')!.textContent).toContain('give a reason for changing the decision levels');
+    await reason.setValue('Levels agreed with the clinicians');
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Save setup' }))).click();
+    const patch = httpController().expectOne({ method: 'PATCH', url: '/api/v1/studies/8' });
+    expect(patch.request.body.reason).toBe('Levels agreed with the clinicians');
+    patch.flush({ ...STUDY, version: 7 });
+  });
+
+  it("shows the kind's own panel under the form: how often the rule accepts, for a verification", async () => {
+    jest.spyOn(HTMLCanvasElement.prototype, 'getContext').mockReturnValue(null);
+    const { loader, fixture } = await render(null);
+    const kind = await loader.getHarness(select('setup-kind'));
+    await kind.open();
+    await kind.clickOptions({ text: 'Reference interval: verify' });
+    for (let i = 0; i < 3; i++) {
+      await new Promise((resolve) => setTimeout(resolve, 0));
+      await fixture.whenStable();
+    }
+    const el = fixture.nativeElement as HTMLElement;
+    expect(el.querySelector('[data-testid="transference-plan"]')).not.toBeNull();
+    expect(el.querySelector('[data-testid="plan-panel"]')).toBeNull();
   });
 });

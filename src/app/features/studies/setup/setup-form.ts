@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, effect, inject, input, output, signal, untracked } from '@angular/core';
+import { ChangeDetectionStrategy, Component, Type, computed, effect, inject, input, output, signal, untracked } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -62,6 +62,11 @@ export class SetupForm {
   );
   protected readonly form = buildSetupForm(setupValues(null, randomSeed()));
   protected readonly problem = signal<string | null>(null);
+  /**
+   * The server's words when it asks why an approved plan changes. The reason field shows while they stand, and its own
+   * rule says them (an error put on the field would be cleared as the field appears and binds its control).
+   */
+  protected readonly reasonAsked = signal<string | null>(null);
   protected readonly busy = signal(false);
   protected readonly conflict = computed(() => this.store?.conflict() ?? false);
   protected readonly conflictText = STUDY_CONFLICT_TEXT;
@@ -71,6 +76,12 @@ export class SetupForm {
   protected readonly levels = [0.9, 0.95, 0.99];
   private readonly kind = toSignal(this.form.controls.kind.valueChanges, { initialValue: this.form.controls.kind.value });
   protected readonly kindFields = computed(() => kindView(this.kind()).setupFields);
+  /** The kind's panel under the form (its plan before data), once loaded; none for a kind without one. */
+  private readonly loadedPanel = signal<{ kind: string; component: Type<unknown> } | null>(null);
+  protected readonly kindPanel = computed(() => {
+    const loaded = this.loadedPanel();
+    return loaded && loaded.kind === this.kind() ? loaded.component : null;
+  });
   /** The kind's words for the analyte and the plan, and which analysis settings its engine reads. */
   protected readonly guidance = computed(() => kindView(this.kind()).guidance);
   protected readonly activeAnalytes = computed(() =>
@@ -78,6 +89,12 @@ export class SetupForm {
   );
 
   constructor() {
+    this.form.controls.reason.addValidators((c) => (this.reasonAsked() && !String(c.value).trim() ? { server: this.reasonAsked() } : null));
+    effect(() => {
+      const kind = this.kind();
+      const load = kindView(kind).setupPanel;
+      if (load) void load().then((component) => this.kind() === kind && this.loadedPanel.set({ kind, component }));
+    });
     effect(() => {
       const study = this.study();
       untracked(() => {
@@ -114,6 +131,7 @@ export class SetupForm {
     if (id === undefined || !this.store) return;
     this.form.markAsPristine();
     this.problem.set(null);
+    this.reasonAsked.set(null);
     this.store.load(id);
   }
 
@@ -138,13 +156,17 @@ export class SetupForm {
       next: (saved) => {
         this.busy.set(false);
         this.form.markAsPristine();
+        this.reasonAsked.set(null);
         this.form.controls.reason.setValue('');
         if (study) this.notices.post('Setup saved.');
         else this.created.emit(saved);
       },
       error: (err: ApiError) => {
         this.busy.set(false);
-        if (err.status !== 409) this.problem.set(showApiError(this.form, err));
+        if (err.status === 409) return;
+        const asked = err.issues.find((i) => i.path === 'reason');
+        if (asked) this.reasonAsked.set(asked.message);
+        this.problem.set(showApiError(this.form, err));
       },
     });
   }

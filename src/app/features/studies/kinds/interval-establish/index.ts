@@ -8,6 +8,7 @@ import { establishRows } from './plan-rows';
 export const intervalEstablishView: KindView = {
   kind: 'interval-establish',
   setupFields: EstablishSetupFields,
+  setupPanel: () => import('../../intervals/setup/plan/establish-plan').then((m) => m.EstablishPlan),
   guidance: ESTABLISH_GUIDANCE,
   layout: INTERVAL_LAYOUT,
   findings: () => import('../../intervals/findings/establish-findings').then((m) => m.EstablishFindings),

@@ -8,6 +8,7 @@ import { verifyRows } from './plan-rows';
 export const intervalVerifyView: KindView = {
   kind: 'interval-verify',
   setupFields: VerifySetupFields,
+  setupPanel: () => import('../../intervals/setup/plan/transference-plan').then((m) => m.TransferencePlan),
   guidance: VERIFY_GUIDANCE,
   layout: INTERVAL_LAYOUT,
   findings: () => import('../../intervals/findings/verify-findings').then((m) => m.VerifyFindings),

@@ -8,6 +8,7 @@ import { comparisonRows } from './plan-rows';
 export const methodComparisonView: KindView = {
   kind: 'method-comparison',
   setupFields: ComparisonSetupFields,
+  setupPanel: () => import('./plan/plan-panel').then((m) => m.PlanPanel),
   guidance: COMPARISON_GUIDANCE,
   layout: COMPARISON_LAYOUT,
   findings: () => import('../../findings/comparison/comparison-findings').then((m) => m.ComparisonFindings),
