@@ -332,3 +332,15 @@ describe('planComparison with least squares and with a goal of 0', () => {
     expect(planComparison({ ...base, decisionLevels: [0, 100], allowableBias: 2, allowableBiasPercent: 5 }).rows[0].levels[0].allowable).toBe(2);
   });
 });
+
+describe('planComparison on coarse results', () => {
+  it('judges a CI narrower than the reporting step on the estimate ± step/2, as the analysis does: a collapsed CI does not pass a bias equal to the goal', () => {
+    // Whole-number results and tiny errors: the bias CI at the level collapses to about one value. Judged on that CI
+    // moved by the goal it would sit on the goal's edge and count as "within" nearly always; widened to ± 0.5 it cannot.
+    const coarse = planComparison({ ...base, regression: 'deming', cvComparative: 0.02, cvCandidate: 0.02, decimals: 0, allowableBias: 0.6, n: [40] });
+    const level = coarse.rows[0].levels[0];
+    expect(level.medianHalfWidth!).toBeLessThan(0.5);
+    expect(level.falsePass).toBe(0);
+    expect(level.powerAtZero).toBe(1);
+  });
+});

@@ -1,5 +1,6 @@
 import type { ProgressFn } from './bootstrap';
 import { allowableBiasAt, verdict } from './decision-levels';
+import { judgedInterval, narrowerThanStep } from './resolution';
 import type { DifferenceType } from './differences';
 import { engineInfo, type EngineInfo } from './engine';
 import { jsonClean } from './json-clean';
@@ -25,7 +26,8 @@ import { streamFor, type Xor128 } from './rng';
  * Each simulated study is analysed with the engine's own regression (regression.ts: the planned method, its CIs
  * by bootstrap of pairs with `resamples` resamples, fewer than a real analysis for speed, the same code) and the
  * verdict at each decision level is the engine's own (decision-levels.ts): "within" when the whole CI of the
- * bias at Xc lies within the allowable bias there.
+ * bias at Xc lies within the allowable bias there; where the CI is narrower than the reporting step, judged on the
+ * estimate ± step/2 joined with the CI, as the analysis does (resolution.ts).
  *
  * Three truths per decision level: δ = 0, δ = half the allowable bias at Xc (the power), δ = the allowable bias
  * at Xc (the risk of a false pass). Ordinary least squares, Deming and Passing–Bablok are equivariant under a
@@ -204,6 +206,19 @@ function drawStudy(p: ResolvedComparisonPlan, n: number, s: Xor128, x: Float64Ar
   }
 }
 
+/** The bias at a decision level of one simulated study: its estimate and CI (null where the engine gives none). */
+type LevelCi = { estimate: number; ci: [number, number] } | null;
+
+/**
+ * Whether a level's bias, moved by `moveBy`, ends "within": judged as the analysis judges it (core-comparison.ts),
+ * on the CI, or where the CI is narrower than the reporting step on the estimate ± step/2 joined with the CI.
+ */
+function endsWithin(b: LevelCi, moveBy: number, allowable: number, step: number): boolean {
+  if (!b) return false;
+  const ci: [number, number] = [b.ci[0] + moveBy, b.ci[1] + moveBy];
+  return verdict(narrowerThanStep(ci, step) ? judgedInterval(b.estimate + moveBy, ci, step) : ci, allowable) === 'within';
+}
+
 /** Shift-equivariant methods: one analysis serves every true bias. */
 const EQUIVARIANT: ReadonlySet<RegressionMethod> = new Set(['ols', 'deming', 'passing-bablok']);
 
@@ -211,13 +226,13 @@ const EQUIVARIANT: ReadonlySet<RegressionMethod> = new Set(['ols', 'deming', 'pa
  * The CIs of the bias at each decision level for one simulated study with true bias `shift`, or null for a level
  * where the engine gives none (no defined line, too few usable resamples).
  */
-function levelCis(p: ResolvedComparisonPlan, x: Float64Array, y: Float64Array, stream: Xor128): ([number, number] | null)[] {
+function levelCis(p: ResolvedComparisonPlan, x: Float64Array, y: Float64Array, stream: Xor128): LevelCi[] {
   try {
     const fit = regression(x, y, {
       method: p.regression, lambda: p.demingRatio, level: p.level, interval: 'percentile', ciMethod: 'bootstrap',
       decisionLevels: p.decisionLevels, settings: { resamples: p.resamples, stream }, bandPoints: 0,
     });
-    return fit.decisionLevelBias.map((b) => (b.ci && Number.isFinite(b.ci[0]) && Number.isFinite(b.ci[1]) ? [b.ci[0], b.ci[1]] : null));
+    return fit.decisionLevelBias.map((b) => (b.ci && Number.isFinite(b.ci[0]) && Number.isFinite(b.ci[1]) && Number.isFinite(b.estimate) ? { estimate: b.estimate, ci: [b.ci[0], b.ci[1]] } : null));
   } catch (error) {
     if (!(error instanceof RangeError)) throw error;
     return p.decisionLevels.map(() => null);
@@ -233,6 +248,7 @@ export function planComparison(options: ComparisonPlanOptions, onProgress?: Prog
   const allowable = p.decisionLevels.map((l) => allowableBiasAt(l, p.allowableBias, p.allowableBiasPercent)!);
   const scenarios = [0, 0.5, 1];
   const equivariant = EQUIVARIANT.has(p.regression);
+  const reportingStep = 10 ** -p.decimals;
   const total = p.n.length * p.simulations;
   const step = Math.max(1, Math.floor(total / 100));
   let done = 0;
@@ -245,26 +261,26 @@ export function planComparison(options: ComparisonPlanOptions, onProgress?: Prog
     for (let j = 0; j < p.simulations; j++) {
       const draws = streamFor(p.seed, `plan:${n}:${j}`);
       drawStudy(p, n, draws, x, y0);
-      const judge = (k: number, s: number, ci: [number, number] | null, moveBy: number) => {
-        if (ci && verdict([ci[0] + moveBy, ci[1] + moveBy], allowable[k]) === 'within') within[k][s]++;
+      const judge = (k: number, s: number, b: LevelCi, moveBy: number) => {
+        if (endsWithin(b, moveBy, allowable[k], reportingStep)) within[k][s]++;
       };
       if (equivariant) {
         const cis = levelCis(p, x, y0, streamFor(p.seed, `plan:${n}:${j}:regression`));
-        cis.forEach((ci, k) => {
-          if (ci) halfWidths[k].push((ci[1] - ci[0]) / 2);
-          scenarios.forEach((f, s) => judge(k, s, ci, f * allowable[k]));
+        cis.forEach((b, k) => {
+          if (b) halfWidths[k].push((b.ci[1] - b.ci[0]) / 2);
+          scenarios.forEach((f, s) => judge(k, s, b, f * allowable[k]));
         });
       } else {
         // One analysis per distinct true bias, each from the same draws and resampling stream.
         const shifts = [...new Set(allowable.flatMap((a) => scenarios.map((f) => f * a)))];
-        const byShift = new Map<number, ([number, number] | null)[]>();
+        const byShift = new Map<number, LevelCi[]>();
         for (const shift of shifts) {
           for (let i = 0; i < n; i++) y[i] = y0[i] + shift;
           byShift.set(shift, levelCis(p, x, y, streamFor(p.seed, `plan:${n}:${j}:regression`)));
         }
         allowable.forEach((a, k) => {
           const atZero = byShift.get(0)![k];
-          if (atZero) halfWidths[k].push((atZero[1] - atZero[0]) / 2);
+          if (atZero) halfWidths[k].push((atZero.ci[1] - atZero.ci[0]) / 2);
           scenarios.forEach((f, s) => judge(k, s, byShift.get(f * a)![k], 0));
         });
       }
