@@ -34,6 +34,14 @@ describe('planRows', () => {
     expect(value(rows, 'Source of the allowable bias')?.value).toBe('Not given');
   });
 
+  it('sums up the plan by simulation, or says it is not set', () => {
+    expect(value(planRows(study('method-comparison')), 'Plan by simulation')?.value).toBe('Not set');
+    const samplePlan = { errorModel: 'proportional', cvComparative: 2, cvCandidate: 2.5, low: 3, high: 20, shape: 'uniform', earlierStudyId: null, n: [40, 80], simulations: 1000, targetPower: 0.8, maxFalsePass: 0.05 };
+    const rows = planRows(study('method-comparison', { samplePlan } as Partial<StudySettings>));
+    expect(value(rows, 'Plan by simulation')?.value)
+      .toBe('CV 2% (comparative) and 2.5% (candidate); values 3 to 20 mmol/L, even across the range; n = 40, 80; 1,000 simulated studies each; targets 80% power, at most 5% false passes');
+  });
+
   it('names the Deming error ratio when the regression uses it', () => {
     expect(value(planRows(study('method-comparison', { regression: 'deming', demingRatio: 1.5 })), 'Regression')?.value).toBe('Deming, error ratio λ = 1.5');
   });
