@@ -1,4 +1,4 @@
-import { OptionError } from './options';
+import { optionOf } from './option-of.testing';
 import { mergePlans, planComparison, splitGrid, type ComparisonPlanOptions } from './plan-comparison';
 import { regression } from './regression';
 import type { RegressionMethod } from './regression-fitters';
@@ -11,15 +11,6 @@ const base: ComparisonPlanOptions = {
   n: [20], simulations: 100, resamples: 100, seed: 'spec',
 };
 
-function optionOf(run: () => unknown): string {
-  try {
-    run();
-  } catch (error) {
-    if (error instanceof OptionError) return error.option;
-    throw error;
-  }
-  throw new Error('no OptionError thrown');
-}
 
 describe('planComparison options', () => {
   it.each<[string, string, ComparisonPlanOptions]>([

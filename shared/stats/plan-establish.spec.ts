@@ -1,15 +1,6 @@
-import { OptionError } from './options';
+import { optionOf } from './option-of.testing';
 import { ESTABLISH_GRID, expectedOrderStatistic, planEstablish, type EstablishPlanOptions } from './plan-establish';
 
-function optionOf(run: () => unknown): string {
-  try {
-    run();
-  } catch (error) {
-    if (error instanceof OptionError) return error.option;
-    throw error;
-  }
-  throw new Error('no OptionError thrown');
-}
 
 const population = { shape: 'normal' as const, lower: 3.5, upper: 5.3 };
 

@@ -1,4 +1,4 @@
-import { OptionError } from './options';
+import { optionOf } from './option-of.testing';
 import { allowedOutside, planTransference, TRANSFERENCE_OUTSIDE, type TransferencePlanOptions } from './plan-transference';
 
 /** P(B ≤ k), B ~ Binomial(n, p), from the pmf by the recurrence pmf(j + 1) = pmf(j)·(n − j)/(j + 1)·p/(1 − p). */
@@ -12,15 +12,6 @@ function cdf(k: number, n: number, p: number): number {
   return sum;
 }
 
-function optionOf(run: () => unknown): string {
-  try {
-    run();
-  } catch (error) {
-    if (error instanceof OptionError) return error.option;
-    throw error;
-  }
-  throw new Error('no OptionError thrown');
-}
 
 describe('planTransference', () => {
   it('defaults to 20 individuals, at most 2 outside, a retest of 20 and the standard fractions', () => {
