@@ -1,7 +1,6 @@
 import { optionOf } from './option-of.testing';
 import { ESTABLISH_GRID, expectedOrderStatistic, planEstablish, type EstablishPlanOptions } from './plan-establish';
 
-
 const population = { shape: 'normal' as const, lower: 3.5, upper: 5.3 };
 
 describe('planEstablish', () => {
