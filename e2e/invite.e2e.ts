@@ -13,8 +13,16 @@ test('an administrator invites a technologist, who sets a password from the e-ma
   await page.getByTestId('nav-users').click();
   await page.getByTestId('invite-user').click();
   const dialog = page.getByRole('dialog');
-  await dialog.getByTestId('user-name-input').fill('Noor Newcomer');
-  await dialog.getByTestId('user-email-input').fill(email);
+  const nameInput = dialog.getByTestId('user-name-input');
+  const emailInput = dialog.getByTestId('user-email-input');
+  // The dialog moves focus to its first field when its opening animation ends; text typed before that can land in
+  // the name field (seen once under load), so fill until both fields hold what was typed.
+  await expect(async () => {
+    await nameInput.fill('Noor Newcomer');
+    await emailInput.fill(email);
+    await expect(nameInput).toHaveValue('Noor Newcomer', { timeout: 1000 });
+    await expect(emailInput).toHaveValue(email, { timeout: 1000 });
+  }).toPass();
   await dialog.getByTestId('role-technologist').getByRole('checkbox').check();
   await shoot(page, 'invite-dialog');
   await dialog.getByTestId('user-save').click();
