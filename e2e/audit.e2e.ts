@@ -2,7 +2,7 @@ import { expect, test, type Download, type Page } from '@playwright/test';
 import { createHash } from 'node:crypto';
 import { mkdirSync, readFileSync, statSync } from 'node:fs';
 import path from 'node:path';
-import { laboratoryDate, laboratoryTime } from '../shared/types/lab-time';
+import { laboratoryDate, laboratoryTime } from '@shared/types/lab-time';
 import { NO_SESSION, signedStudy } from './fixtures/api';
 
 const SCREENSHOTS = path.resolve(__dirname, '../.test-output/screenshots');

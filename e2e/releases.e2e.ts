@@ -2,7 +2,7 @@ import { expect, test } from '@playwright/test';
 import { execFileSync } from 'node:child_process';
 import { mkdirSync, readdirSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
-import { addDays } from '../shared/types/due-dates';
+import { addDays } from '@shared/types/due-dates';
 import { apiAs, send, signedStudy } from './fixtures/api';
 import { fullShot, SCREENSHOTS, signIn } from './fixtures/pages';
 

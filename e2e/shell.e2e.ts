@@ -1,6 +1,6 @@
 import { expect, test, type Page } from '@playwright/test';
 import path from 'node:path';
-import type { Role } from '../shared/schemas/roles';
+import type { Role } from '@shared/schemas/roles';
 import { navigationFor } from '../src/app/core/layout/navigation';
 
 const SCREENSHOTS = path.resolve(__dirname, '../.test-output/screenshots');

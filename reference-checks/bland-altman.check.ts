@@ -1,4 +1,4 @@
-import { analyzeComparison } from '../shared/stats';
+import { analyzeComparison } from '@shared/stats';
 import { dataFile } from './support';
 
 // Source: J. M. Bland and D. G. Altman (1986), "Statistical methods for assessing agreement between two

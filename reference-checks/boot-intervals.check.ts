@@ -1,6 +1,6 @@
-import { bcaInterval, percentileInterval } from '../shared/stats/confidence-interval';
-import { jackknifeMoments, jackknifeQuantileSorted } from '../shared/stats/jackknife';
-import { mean, median } from '../shared/stats';
+import { bcaInterval, percentileInterval } from '@shared/stats/confidence-interval';
+import { jackknifeMoments, jackknifeQuantileSorted } from '@shared/stats/jackknife';
+import { mean, median } from '@shared/stats';
 import { fixture } from './support';
 
 // Source: R 4.2 with the boot package 1.3-28 (A. Canty and B. Ripley; Davison & Hinkley 1997), run once by

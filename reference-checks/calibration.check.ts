@@ -1,9 +1,9 @@
-import { forEachResample } from '../shared/stats/bootstrap';
-import { percentileInterval } from '../shared/stats/confidence-interval';
-import { medianFromCounts } from '../shared/stats/counts-stats';
-import { meanFromCounts } from '../shared/stats/difference-bias';
-import { streamFor, Xor128 } from '../shared/stats/rng';
-import { shiftedNullTest } from '../shared/stats/shifted-null-test';
+import { forEachResample } from '@shared/stats/bootstrap';
+import { percentileInterval } from '@shared/stats/confidence-interval';
+import { medianFromCounts } from '@shared/stats/counts-stats';
+import { meanFromCounts } from '@shared/stats/difference-bias';
+import { streamFor, Xor128 } from '@shared/stats/rng';
+import { shiftedNullTest } from '@shared/stats/shifted-null-test';
 
 // Calibration by seeded simulation (our own check; the tolerances come from the simulation size):
 // 1. under a true null the shifted-null test's p-values are close to uniform: the rejection rates at 0.05

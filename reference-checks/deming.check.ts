@@ -1,4 +1,4 @@
-import { deming, weightedDeming } from '../shared/stats';
+import { deming, weightedDeming } from '@shared/stats';
 import { fixture } from './support';
 
 // Sources, all on invented data from make-fixtures/make_scipy_fixtures.py:

@@ -1,5 +1,5 @@
-import { analyzeInterval } from '../shared/stats';
-import { boxCoxFit, LAMBDA_BOUND } from '../shared/stats/box-cox';
+import { analyzeInterval } from '@shared/stats';
+import { boxCoxFit, LAMBDA_BOUND } from '@shared/stats/box-cox';
 import { fixture, logRelativeError, nistUnivariate } from './support';
 
 // Reference checks for the defects fixed in engine 1.2 (issue 11). Values from

@@ -1,4 +1,4 @@
-import { generalizedEsd } from '../shared/stats';
+import { generalizedEsd } from '@shared/stats';
 import { fixture } from './support';
 
 // Source: B. Rosner (1983), Technometrics 25(2), 165–172, example data of 54 values as printed in the

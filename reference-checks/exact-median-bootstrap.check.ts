@@ -1,6 +1,6 @@
-import { medianFromCounts } from '../shared/stats/counts-stats';
-import { streamFor } from '../shared/stats/rng';
-import { shiftedNullTest } from '../shared/stats/shifted-null-test';
+import { medianFromCounts } from '@shared/stats/counts-stats';
+import { streamFor } from '@shared/stats/rng';
+import { shiftedNullTest } from '@shared/stats/shifted-null-test';
 import { fixture } from './support';
 
 // Source: J. S. Maritz and R. G. Jarrett (1978), "A note on estimating the variance of the sample median",

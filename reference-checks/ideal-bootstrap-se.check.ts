@@ -1,4 +1,4 @@
-import { analyzeComparison, bootstrapCi, mean } from '../shared/stats';
+import { analyzeComparison, bootstrapCi, mean } from '@shared/stats';
 
 // Source: B. Efron and R. J. Tibshirani (1993), An Introduction to the Bootstrap, Chapman & Hall, §6.2
 // (from memory): the ideal (B → ∞) bootstrap standard error of the mean is sqrt(Σ(x − x̄)²)/n.

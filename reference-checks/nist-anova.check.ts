@@ -1,5 +1,5 @@
-import { analyzePrecision } from '../shared/stats';
-import { oneWayAnova } from '../shared/stats/one-way-anova';
+import { analyzePrecision } from '@shared/stats';
+import { oneWayAnova } from '@shared/stats/one-way-anova';
 import { dataFile, logRelativeError } from './support';
 
 // Source: NIST Statistical Reference Datasets, one-way analysis of variance (certified with multiple-precision

@@ -1,4 +1,4 @@
-import { evaluatePolynomial, fitPolynomial } from '../shared/stats/polynomial-fit';
+import { evaluatePolynomial, fitPolynomial } from '@shared/stats/polynomial-fit';
 import { dataFile, logRelativeError } from './support';
 
 // Source: NIST Statistical Reference Datasets, linear least-squares regression (certified with multiple-precision

@@ -1,4 +1,4 @@
-import { analyzeComparison, mean, sampleSd } from '../shared/stats';
+import { analyzeComparison, mean, sampleSd } from '@shared/stats';
 import { logRelativeError, nistUnivariate } from './support';
 
 // Source: NIST Statistical Reference Datasets, Univariate Summary Statistics (certified with 500-digit

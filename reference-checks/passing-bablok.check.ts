@@ -1,4 +1,4 @@
-import { passingBablok } from '../shared/stats';
+import { passingBablok } from '@shared/stats';
 import { fixture } from './support';
 
 // Source: scipy.stats.theilslopes(y, x, 0.95, method='joint') (scipy 1.10), run once by

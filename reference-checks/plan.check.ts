@@ -1,9 +1,9 @@
 import { jStat } from 'jstat';
-import { planComparison } from '../shared/stats/plan-comparison';
-import { expectedOrderStatistic, planEstablish } from '../shared/stats/plan-establish';
-import { planTransference } from '../shared/stats/plan-transference';
-import { binomialRankCi } from '../shared/stats/rank-ci';
-import { Xor128 } from '../shared/stats/rng';
+import { planComparison } from '@shared/stats/plan-comparison';
+import { expectedOrderStatistic, planEstablish } from '@shared/stats/plan-establish';
+import { planTransference } from '@shared/stats/plan-transference';
+import { binomialRankCi } from '@shared/stats/rank-ci';
+import { Xor128 } from '@shared/stats/rng';
 import { fixture } from './support';
 
 // Sources of the planning checks:

@@ -1,7 +1,7 @@
 import { jStat } from 'jstat';
-import { analyzePrecision, type PrecisionResult } from '../shared/stats';
-import { sdConfidenceInterval } from '../shared/stats/precision-components';
-import { upperVerificationLimit } from '../shared/stats/precision-verification';
+import { analyzePrecision, type PrecisionResult } from '@shared/stats';
+import { sdConfidenceInterval } from '@shared/stats/precision-components';
+import { upperVerificationLimit } from '@shared/stats/precision-verification';
 import { fixture } from './support';
 
 // Source: fixtures/precision.json, made once by make-fixtures/make_precision_fixture.R with R 4.2.2 and

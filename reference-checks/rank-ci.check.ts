@@ -1,4 +1,4 @@
-import { analyzeInterval, binomialRankCi } from '../shared/stats';
+import { analyzeInterval, binomialRankCi } from '@shared/stats';
 import { fixture } from './support';
 
 // Sources: CLSI EP28-A3c practice (as quoted by Ozarda et al., Clin Chem Lab Med 2019;57:30): for n = 120

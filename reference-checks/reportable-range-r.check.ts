@@ -1,6 +1,6 @@
-import { analyzeReportableRange } from '../shared/stats/analyze-reportable-range';
-import { fitPolynomial } from '../shared/stats/polynomial-fit';
-import type { RangeResult } from '../shared/stats/reportable-range-types';
+import { analyzeReportableRange } from '@shared/stats/analyze-reportable-range';
+import { fitPolynomial } from '@shared/stats/polynomial-fit';
+import type { RangeResult } from '@shared/stats/reportable-range-types';
 import { fixture } from './support';
 
 // Source: fixtures/reportable-range-r.json, made once by make-fixtures/make_reportable_range_fixture.R with R 4.2.2

@@ -1,6 +1,6 @@
-import { boxCoxLambda } from '../shared/stats/box-cox';
-import { kolmogorovSurvival } from '../shared/stats/cusum-linearity';
-import { quantileSorted } from '../shared/stats';
+import { boxCoxLambda } from '@shared/stats/box-cox';
+import { kolmogorovSurvival } from '@shared/stats/cusum-linearity';
+import { quantileSorted } from '@shared/stats';
 import { fixture } from './support';
 
 // Sources, from make-fixtures/make_scipy_fixtures.py on invented data:

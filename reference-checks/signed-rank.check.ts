@@ -1,4 +1,4 @@
-import { signTest, wilcoxonSignedRank } from '../shared/stats';
+import { signTest, wilcoxonSignedRank } from '@shared/stats';
 import { fixture } from './support';
 
 // Source: scipy 1.10 (Debian python3-scipy), run once by make-fixtures/make_scipy_fixtures.py on invented

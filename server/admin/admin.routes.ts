@@ -1,4 +1,4 @@
-import { AnalyteBody, IdParams, InstrumentBody, InviteUserBody, LaboratorySettings, UpdateUserBody } from '../../shared/schemas';
+import { AnalyteBody, IdParams, InstrumentBody, InviteUserBody, LaboratorySettings, UpdateUserBody } from '@shared/schemas';
 import type { AppContext } from '../context';
 import { parseRequest } from '../http/parse-request';
 import type { RouteSpec } from '../http/routes';

@@ -1,5 +1,5 @@
 import { and, eq } from 'drizzle-orm';
-import type { AnalyteBody, InstrumentBody } from '../../shared/schemas';
+import type { AnalyteBody, InstrumentBody } from '@shared/schemas';
 import { recordAudit } from '../audit/audit';
 import { actorOf, SignedInUser } from '../auth/session-user';
 import type { Database } from '../db/client';

@@ -1,5 +1,5 @@
 import { eq } from 'drizzle-orm';
-import type { LaboratorySettings } from '../../shared/schemas';
+import type { LaboratorySettings } from '@shared/schemas';
 import { recordAudit } from '../audit/audit';
 import { findLaboratory } from '../auth/auth.repository';
 import { actorOf, SignedInUser } from '../auth/session-user';

@@ -1,4 +1,4 @@
-import type { InviteUserBody, UpdateUserBody, User } from '../../shared/schemas';
+import type { InviteUserBody, UpdateUserBody, User } from '@shared/schemas';
 import { recordAudit } from '../audit/audit';
 import { findLaboratory, findUserInLab, findUserInLabByEmail, updateUser } from '../auth/auth.repository';
 import { sendPasswordLink } from '../auth/password-links';

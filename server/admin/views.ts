@@ -1,4 +1,4 @@
-import type { Analyte, Instrument, MailMessage, Role, User } from '../../shared/schemas';
+import type { Analyte, Instrument, MailMessage, Role, User } from '@shared/schemas';
 import type { analytes, instruments, mailMessages, users } from '../db/schema';
 
 /** Database rows → the API's shapes (never the password hash). */

@@ -1,5 +1,5 @@
 import { and, eq, getTableColumns } from 'drizzle-orm';
-import { ENGINE_VERSION } from '../../shared/stats/engine';
+import { ENGINE_VERSION } from '@shared/stats/engine';
 import { recordAudit } from '../audit/audit';
 import { actorOf, SignedInUser } from '../auth/session-user';
 import type { Database, Executor, Tx } from '../db/client';
@@ -8,7 +8,7 @@ import { AppError, notFound } from '../http/app-error';
 import { analysisInput, inputHash, knownInputHash } from '../specimens/input-hash';
 import { findStudy } from '../studies/studies.repository';
 import { assertEditable } from '../studies/study-rules';
-import { StudySettings, type Analysis } from '../../shared/schemas';
+import { StudySettings, type Analysis } from '@shared/schemas';
 import { missingResults } from './run-analysis';
 import { withRecordedWords } from './recorded-words';
 import type { AnalysisJobs } from './analysis-jobs';

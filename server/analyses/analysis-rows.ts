@@ -1,7 +1,7 @@
-import { kindMeta } from '../../shared/kinds/kinds';
-import type { RowField } from '../../shared/kinds/kind';
-import { magnitudeProblem } from '../../shared/stats/magnitude';
-import { repeatedLabels, repeatedLabelsSentence } from '../../shared/types/repeated-labels';
+import { kindMeta } from '@shared/kinds/kinds';
+import type { RowField } from '@shared/kinds/kind';
+import { magnitudeProblem } from '@shared/stats/magnitude';
+import { repeatedLabels, repeatedLabelsSentence } from '@shared/types/repeated-labels';
 import type { AnalysisInput } from '../specimens/input-hash';
 
 /** One analysed row as the input hash covers it. */

@@ -1,4 +1,4 @@
-import { parseKindSettings } from '../../shared/kinds/settings';
+import { parseKindSettings } from '@shared/kinds/settings';
 import { SERVER_KINDS } from '../kinds';
 
 const isObject = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);

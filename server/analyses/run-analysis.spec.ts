@@ -1,4 +1,4 @@
-import { StudySettings } from '../../shared/schemas';
+import { StudySettings } from '@shared/schemas';
 import type { AnalysisInput } from '../specimens/input-hash';
 import { runAnalysis } from './run-analysis';
 

@@ -2,7 +2,7 @@ import { serverKind } from '../kinds';
 import type { Progress } from '../kinds/kind';
 import type { AnalysisInput } from '../specimens/input-hash';
 import { missingResults, outOfRangeResults } from './analysis-rows';
-import { planComparison } from '../../shared/stats/plan-comparison';
+import { planComparison } from '@shared/stats/plan-comparison';
 import { isPlanInput, type PlanInput } from '../plans/plan-input';
 
 export type { Progress } from '../kinds/kind';

@@ -1,6 +1,6 @@
 import { SERVER_KINDS } from '../kinds';
 import { sql, SQL } from 'drizzle-orm';
-import type { ArchiveItem, ArchivePage, ArchiveQuery } from '../../shared/schemas';
+import type { ArchiveItem, ArchivePage, ArchiveQuery } from '@shared/schemas';
 import type { SignedInUser } from '../auth/session-user';
 import type { Database, Executor } from '../db/client';
 import { signedAndCreatedDays } from '../db/lab-zone';

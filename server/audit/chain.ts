@@ -4,8 +4,8 @@ import { auditChainHeads, auditCheckpoints, auditEvents } from '../db/schema';
 import { auditKey } from './audit-key';
 import { chainOf, eventHash, GENESIS_HASH, headMac } from './audit';
 import { labTimeZone } from '../db/lab-zone';
-import { laboratoryTime } from '../../shared/types/lab-time';
-import { plural } from '../../shared/types/plural';
+import { laboratoryTime } from '@shared/types/lab-time';
+import { plural } from '@shared/types/plural';
 
 export interface ChainReport {
   chain: string;

@@ -1,12 +1,12 @@
 import { serverKind } from '../kinds';
 import ExcelJS from 'exceljs';
 import { and, desc, eq } from 'drizzle-orm';
-import { StudySettings, type ArchiveQuery } from '../../shared/schemas';
+import { StudySettings, type ArchiveQuery } from '@shared/schemas';
 import { withRecordedWords } from '../analyses/recorded-words';
 import type { SignedInUser } from '../auth/session-user';
 import type { Database } from '../db/client';
 import { labTimeZone } from '../db/lab-zone';
-import { laboratoryTime } from '../../shared/types/lab-time';
+import { laboratoryTime } from '@shared/types/lab-time';
 import { analyses } from '../db/schema';
 import { listSignatures } from '../signoff/report.service';
 import { loadRows } from '../specimens/input-hash';
@@ -15,7 +15,7 @@ import { studyView } from '../studies/study-view';
 import { searchArchive } from './archive.service';
 import { studyHistory } from './history.service';
 import { resultsSheet } from './results-sheet';
-import type { FindingsStatus } from '../../shared/schemas';
+import type { FindingsStatus } from '@shared/schemas';
 
 /** Whether the exported findings still match the study's rows and settings, in words. */
 const FINDINGS_WORDS: Record<FindingsStatus, string> = {

@@ -1,11 +1,11 @@
 import { and, asc, desc, eq, like, sql, SQL } from 'drizzle-orm';
-import { describeEvent } from '../../shared/types/audit-words';
+import { describeEvent } from '@shared/types/audit-words';
 import type { SignedInUser } from '../auth/session-user';
 import type { Database } from '../db/client';
 import { inLabDays } from '../db/lab-zone';
 import { auditEvents, users } from '../db/schema';
 import { findStudy } from '../studies/studies.repository';
-import type { AuditQuery, HistoryEvent, HistoryPage, Person } from '../../shared/schemas';
+import type { AuditQuery, HistoryEvent, HistoryPage, Person } from '@shared/schemas';
 
 const view = (e: typeof auditEvents.$inferSelect): HistoryEvent => ({
   id: e.id, at: e.at.toISOString(), userId: e.userId, userName: e.userName, studyId: e.studyId, action: e.action, entity: e.entity, ...describeEvent(e),

@@ -1,5 +1,5 @@
 import { and, desc, eq, ne } from 'drizzle-orm';
-import type { ChainCheckReport, CheckResult, IntegrityReport } from '../../shared/schemas';
+import type { ChainCheckReport, CheckResult, IntegrityReport } from '@shared/schemas';
 import { actorOf, SignedInUser } from '../auth/session-user';
 import type { Database, Executor } from '../db/client';
 import { analyses, auditEvents, signatures } from '../db/schema';
@@ -10,7 +10,7 @@ import { contentHashOf, signedContent } from '../signoff/content-hash';
 import { recordAudit } from './audit';
 import { sha256Hex } from './canonical-json';
 import { verifyChain, type ChainReport } from './chain';
-import { plural } from '../../shared/types/plural';
+import { plural } from '@shared/types/plural';
 
 /**
  * Re-checks a signed study from what is stored: the content hash over rows, settings and results

@@ -1,6 +1,6 @@
 import ExcelJS from 'exceljs';
 import { eq, inArray } from 'drizzle-orm';
-import { laboratoryDate, laboratoryTime } from '../../shared/types/lab-time';
+import { laboratoryDate, laboratoryTime } from '@shared/types/lab-time';
 import { laboratories, mailMessages, mailOutbox, studies } from '../db/schema';
 import { analysedComparison, createComparison } from '../test/fixtures';
 import { anonymous, binary, Harness, signedIn, startHarness, uniqueEmail, signedStudy } from '../test/harness';

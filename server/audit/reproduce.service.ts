@@ -1,6 +1,6 @@
 import { and, desc, eq, ne } from 'drizzle-orm';
-import type { ReproduceReport } from '../../shared/schemas';
-import { ENGINE_VERSION } from '../../shared/stats/engine';
+import type { ReproduceReport } from '@shared/schemas';
+import { ENGINE_VERSION } from '@shared/stats/engine';
 import { runAnalysis } from '../analyses/run-analysis';
 import { actorOf, SignedInUser } from '../auth/session-user';
 import type { Database } from '../db/client';

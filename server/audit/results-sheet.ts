@@ -1,11 +1,11 @@
 import type ExcelJS from 'exceljs';
-import type { ComparisonResult, IntervalResult, LimitResult } from '../../shared/stats';
-import type { VerifyIntervalResult } from '../../shared/stats/verify-interval';
-import { findingsDecimals, formatNumber, levelLabel, numberFormat, P_VALUE_FORMAT, withUnit } from '../../shared/types/findings-numbers';
-import { agreementRows, differenceUnitOf, testRows, VERDICT_WORDS, type ComparisonUnits, type FindingsRow } from '../../shared/types/findings-rows';
+import type { ComparisonResult, IntervalResult, LimitResult } from '@shared/stats';
+import type { VerifyIntervalResult } from '@shared/stats/verify-interval';
+import { findingsDecimals, formatNumber, levelLabel, numberFormat, P_VALUE_FORMAT, withUnit } from '@shared/types/findings-numbers';
+import { agreementRows, differenceUnitOf, testRows, VERDICT_WORDS, type ComparisonUnits, type FindingsRow } from '@shared/types/findings-rows';
 import {
   correlationDetails, interceptSentence, linearitySentence, REGRESSION_HEADING, regressionCiWords, regressionMethod, regressionRows, slopeSentence,
-} from '../../shared/types/regression-words';
+} from '@shared/types/regression-words';
 import type { ServerKind, SheetCell, SheetColumn, SheetLine } from '../kinds/kind';
 import { INTERVAL_METHOD_WORDS, PARTITION_WORDS } from '../reports/words';
 

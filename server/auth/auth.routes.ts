@@ -1,6 +1,6 @@
 import type { Request, Response } from 'express';
 import type { PassportStatic } from 'passport';
-import { ChangePasswordBody, PASSWORD_RESET_ANSWER, PasswordResetBody, SetPasswordBody, SignInBody, TokenParams, type PasswordResetAnswer } from '../../shared/schemas';
+import { ChangePasswordBody, PASSWORD_RESET_ANSWER, PasswordResetBody, SetPasswordBody, SignInBody, TokenParams, type PasswordResetAnswer } from '@shared/schemas';
 import { recordAudit } from '../audit/audit';
 import { SignInLimits } from './sign-in-limits';
 import type { AppContext } from '../context';

@@ -1,4 +1,4 @@
-import type { ChangePasswordBody, Role, SessionUser } from '../../shared/schemas';
+import type { ChangePasswordBody, Role, SessionUser } from '@shared/schemas';
 import { recordAudit, type AuditInput } from '../audit/audit';
 import type { Database, Executor } from '../db/client';
 import { AppError } from '../http/app-error';

@@ -1,12 +1,12 @@
 import { randomBytes } from 'node:crypto';
 import { and, eq, gt, isNotNull, isNull, ne } from 'drizzle-orm';
-import { RESET_LINK_HOURS, type PasswordLinkInfo, type PasswordLinkPurpose } from '../../shared/schemas';
-import { plural } from '../../shared/types/plural';
+import { RESET_LINK_HOURS, type PasswordLinkInfo, type PasswordLinkPurpose } from '@shared/schemas';
+import { plural } from '@shared/types/plural';
 import { recordAudit } from '../audit/audit';
 import { sha256Hex } from '../audit/canonical-json';
 import type { Database, Executor } from '../db/client';
 import { labTimeZone } from '../db/lab-zone';
-import { laboratoryTime } from '../../shared/types/lab-time';
+import { laboratoryTime } from '@shared/types/lab-time';
 import { passwordLinks, users } from '../db/schema';
 import { AppError } from '../http/app-error';
 import { queueMail } from '../mail/outbox';

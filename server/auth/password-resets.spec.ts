@@ -1,5 +1,5 @@
 import { and, asc, eq, sql } from 'drizzle-orm';
-import { PASSWORD_RESET_ANSWER } from '../../shared/schemas';
+import { PASSWORD_RESET_ANSWER } from '@shared/schemas';
 import { sha256Hex } from '../audit/canonical-json';
 import { auditEvents, mailMessages, mailOutbox, passwordLinks, users } from '../db/schema';
 import { anonymous, freshDatabase, Harness, signedIn, startHarness, uniqueEmail } from '../test/harness';

@@ -1,6 +1,6 @@
 import type { Pool } from 'pg';
 import { RateLimiterPostgres, RateLimiterRes } from 'rate-limiter-flexible';
-import { plural } from '../../shared/types/plural';
+import { plural } from '@shared/types/plural';
 import { recordAudit } from '../audit/audit';
 import type { Database } from '../db/client';
 import { AppError } from '../http/app-error';

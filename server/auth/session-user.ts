@@ -1,4 +1,4 @@
-import type { Role } from '../../shared/schemas';
+import type { Role } from '@shared/schemas';
 import type { Actor } from '../audit/audit';
 
 declare global {

@@ -2,7 +2,7 @@ import connectPgSimple from 'connect-pg-simple';
 import type { Request } from 'express';
 import session from 'express-session';
 import type { Pool } from 'pg';
-import type { Role } from '../../shared/schemas';
+import type { Role } from '@shared/schemas';
 import type { Config } from '../config';
 import type { SignedInUser } from './session-user';
 

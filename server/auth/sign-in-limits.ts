@@ -3,7 +3,7 @@ import { RateLimiterPostgres, RateLimiterRes } from 'rate-limiter-flexible';
 import { recordAudit } from '../audit/audit';
 import type { Database } from '../db/client';
 import { AppError } from '../http/app-error';
-import { plural } from '../../shared/types/plural';
+import { plural } from '@shared/types/plural';
 
 const WINDOW_SECONDS = 15 * 60;
 

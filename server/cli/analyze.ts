@@ -8,7 +8,7 @@
  * A bad file or option prints one line naming the row or option on stderr and exits with status 2.
  */
 import { readFileSync } from 'node:fs';
-import { OptionError } from '../../shared/stats';
+import { OptionError } from '@shared/stats';
 import { CsvError, parseCsv } from './csv';
 import { FlagError, flagFor, parseFlags, textFlag } from './flags';
 import { KINDS, type Kind } from './kinds';

@@ -10,11 +10,11 @@ let style: SortStyle = 'plain';
 export function useStyle(s: SortStyle): void {
   style = s;
 }
-import { percentileInterval } from '../../shared/stats/confidence-interval';
-import { medianSorted, quantileSorted, sortedCopy } from '../../shared/stats/quantile';
-import { streamFor, type Xor128 } from '../../shared/stats/rng';
-import { slopeTable } from '../../shared/stats/slope-table';
-import { median } from '../../shared/stats';
+import { percentileInterval } from '@shared/stats/confidence-interval';
+import { medianSorted, quantileSorted, sortedCopy } from '@shared/stats/quantile';
+import { streamFor, type Xor128 } from '@shared/stats/rng';
+import { slopeTable } from '@shared/stats/slope-table';
+import { median } from '@shared/stats';
 
 function eachSortedResample(data: Float64Array, B: number, stream: Xor128, visit: (sorted: Float64Array, b: number) => void): void {
   const n = data.length;

@@ -6,9 +6,9 @@
  * grid split in two, as the analysis queue runs a plan on a pool of several threads), checked to give the same
  * figures as the one-thread run.
  */
-import { analyzeComparison } from '../../shared/stats';
+import { analyzeComparison } from '@shared/stats';
 import { isDeepStrictEqual } from 'node:util';
-import { planComparison, type ComparisonPlanOptions } from '../../shared/stats/plan-comparison';
+import { planComparison, type ComparisonPlanOptions } from '@shared/stats/plan-comparison';
 import { AnalysisPool } from '../analyses/worker-pool';
 import { runPlanOnThreads } from '../plans/plan-threads';
 

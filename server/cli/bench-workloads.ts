@@ -1,13 +1,13 @@
 /** The workloads of `npm run bench`: the engine's version and the sort-per-resample version of each. */
-import { analyzeComparison } from '../../shared/stats';
-import { medianReplicates } from '../../shared/stats/bootstrap';
-import { summariseReplicates } from '../../shared/stats/bootstrap-estimate';
-import { medianFromCounts } from '../../shared/stats/counts-stats';
-import { resolveIntervalOptions } from '../../shared/stats/interval-options';
-import { sortedCopy } from '../../shared/stats/quantile';
-import { referenceInterval } from '../../shared/stats/reference-interval';
-import { streamFor, Xor128 } from '../../shared/stats/rng';
-import { shiftedNullTest } from '../../shared/stats/shifted-null-test';
+import { analyzeComparison } from '@shared/stats';
+import { medianReplicates } from '@shared/stats/bootstrap';
+import { summariseReplicates } from '@shared/stats/bootstrap-estimate';
+import { medianFromCounts } from '@shared/stats/counts-stats';
+import { resolveIntervalOptions } from '@shared/stats/interval-options';
+import { sortedCopy } from '@shared/stats/quantile';
+import { referenceInterval } from '@shared/stats/reference-interval';
+import { streamFor, Xor128 } from '@shared/stats/rng';
+import { shiftedNullTest } from '@shared/stats/shifted-null-test';
 import { naiveDifferenceParts, naiveIntervalCi, naiveMedianCi, naiveMedianTest, naivePassingBablokBootstrap } from './bench-naive';
 
 export const SEED = 'bench';

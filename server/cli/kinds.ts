@@ -1,5 +1,5 @@
-import { analyzeComparison, analyzeInterval, bootstrapTest, verifyInterval } from '../../shared/stats';
-import type { ComparisonRow, IntervalRow } from '../../shared/stats';
+import { analyzeComparison, analyzeInterval, bootstrapTest, verifyInterval } from '@shared/stats';
+import type { ComparisonRow, IntervalRow } from '@shared/stats';
 import { CsvError, numberColumn, textColumn, type CsvTable } from './csv';
 import { FlagError, integerFlag, listFlag, numberFlag, textFlag, wordsFlag, type FlagSpec } from './flags';
 

@@ -29,7 +29,7 @@ import { DEMO_PASSWORD } from '../db/seed-data';
 import { prepareDatabase } from '../dev/database';
 import { runAnalysis } from '../analyses/run-analysis';
 import { analysisInput, backfillInputHashes } from '../specimens/input-hash';
-import { ENGINE_VERSION } from '../../shared/stats/engine';
+import { ENGINE_VERSION } from '@shared/stats/engine';
 
 // eslint-disable-next-line @typescript-eslint/no-require-imports
 const autocannon = require('autocannon') as (opts: object) => AutocannonInstance;

@@ -1,4 +1,4 @@
-import { planComparison } from '../../shared/stats/plan-comparison';
+import { planComparison } from '@shared/stats/plan-comparison';
 import { analyze, scratchFiles } from '../test/cli';
 
 const file = scratchFiles('parallax-plan-cli-');

@@ -4,10 +4,10 @@
  *   plan-transference --n 20 --max-outside 2 --outside 0.025,0.05,0.1,0.2 [--retest 20]
  *   plan-establish [--n 120,240] [--percentiles 2.5,97.5] [--level 0.9] [--shape normal --lower L --upper U]
  */
-import { OptionError } from '../../shared/stats/options';
-import { planComparison } from '../../shared/stats/plan-comparison';
-import { planEstablish } from '../../shared/stats/plan-establish';
-import { planTransference } from '../../shared/stats/plan-transference';
+import { OptionError } from '@shared/stats/options';
+import { planComparison } from '@shared/stats/plan-comparison';
+import { planEstablish } from '@shared/stats/plan-establish';
+import { planTransference } from '@shared/stats/plan-transference';
 import { FlagError, flagFor, integerFlag, listFlag, numberFlag, parseFlags, textFlag, type FlagSpec } from './flags';
 import { readSettings } from './study-kinds';
 

@@ -1,6 +1,6 @@
 import { readFileSync } from 'node:fs';
-import { KIND_METAS, kindMeta } from '../../shared/kinds/kinds';
-import { parseKindSettings } from '../../shared/kinds/settings';
+import { KIND_METAS, kindMeta } from '@shared/kinds/kinds';
+import { parseKindSettings } from '@shared/kinds/settings';
 import { runAnalysis } from '../analyses/run-analysis';
 import { analysedFields, analysedSettings, type AnalysisInput } from '../specimens/input-hash';
 import { validateRows } from '../specimens/row-validation';

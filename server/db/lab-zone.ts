@@ -1,6 +1,6 @@
 import { and, eq, sql, SQL } from 'drizzle-orm';
 import type { PgColumn } from 'drizzle-orm/pg-core';
-import { labDayRange } from '../../shared/types/lab-time';
+import { labDayRange } from '@shared/types/lab-time';
 import type { Executor } from './client';
 import { laboratories } from './schema';
 

@@ -1,6 +1,6 @@
 import seedrandom from 'seedrandom';
 import { and, eq } from 'drizzle-orm';
-import type { CreateStudyBody, StudySettingsPatch } from '../../shared/schemas';
+import type { CreateStudyBody, StudySettingsPatch } from '@shared/schemas';
 import { analyseNow } from '../analyses/analyses.service';
 import { planNow } from '../plans/plans.service';
 import { AnalysisJobs } from '../analyses/analysis-jobs';

@@ -10,6 +10,8 @@ const swc = [
     module: { type: 'commonjs' },
   },
 ];
+// `@shared/*` (tsconfig.json's one path alias) is the repository's shared/ folder for every runner.
+const sharedAlias = { '^@shared/(.*)$': '<rootDir>/shared/$1' };
 const nodeProject = (displayName, testMatch) => ({
   displayName,
   rootDir: root,
@@ -17,6 +19,7 @@ const nodeProject = (displayName, testMatch) => ({
   testMatch,
   transform: { '^.+\\.ts$': swc },
   moduleFileExtensions: ['ts', 'js', 'json'],
+  moduleNameMapper: sharedAlias,
   testPathIgnorePatterns: ['/node_modules/', '/dist/', '/.data/'],
 });
 
@@ -29,6 +32,7 @@ const clientProject = () => {
     rootDir: root,
     testMatch: ['<rootDir>/src/**/*.spec.ts'],
     setupFilesAfterEnv: ['<rootDir>/src/test-setup.ts'],
+    moduleNameMapper: { ...(preset.moduleNameMapper ?? {}), ...sharedAlias },
     testPathIgnorePatterns: ['/node_modules/', '/dist/'],
   };
 };

@@ -1,5 +1,5 @@
 import { sql } from 'drizzle-orm';
-import type { HealthReport } from '../../shared/schemas';
+import type { HealthReport } from '@shared/schemas';
 import type { AppContext } from '../context';
 import { RETRY_AFTER_SECONDS } from '../http/database-errors';
 import { eventLoopDelaySinceLastReading } from './event-loop';

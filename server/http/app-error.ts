@@ -1,4 +1,4 @@
-import type { ApiIssue } from '../../shared/schemas';
+import type { ApiIssue } from '@shared/schemas';
 
 export type ErrorCode =
   | 'invalid_request' | 'unauthenticated' | 'forbidden' | 'not_found' | 'conflict' | 'too_large' | 'locked' | 'too_many' | 'unavailable';

@@ -1,4 +1,4 @@
-import { IdParams } from '../../shared/schemas';
+import { IdParams } from '@shared/schemas';
 import { studies } from '../db/schema';
 import { catalogIds, createComparison, inventedPairs } from '../test/fixtures';
 import { anonymous, Harness, signedIn, startHarness } from '../test/harness';

@@ -1,5 +1,5 @@
 import type { RequestHandler } from 'express';
-import type { ApiIssue } from '../../shared/schemas';
+import type { ApiIssue } from '@shared/schemas';
 import { AppError } from './app-error';
 
 /**

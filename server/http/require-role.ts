@@ -1,5 +1,5 @@
 import type { RequestHandler } from 'express';
-import type { Role } from '../../shared/schemas';
+import type { Role } from '@shared/schemas';
 import { AppError } from './app-error';
 
 /** Every route declares the roles that may call it; a user needs at least one of them. */

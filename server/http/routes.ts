@@ -1,5 +1,5 @@
 import { Router, type Request, type RequestHandler, type Response } from 'express';
-import type { Role } from '../../shared/schemas';
+import type { Role } from '@shared/schemas';
 import { requireRole, requireSignedIn } from './require-role';
 
 export type Access = readonly Role[] | 'public' | 'signed-in';

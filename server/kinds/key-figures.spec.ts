@@ -1,5 +1,5 @@
-import { precisionResult } from '../../shared/kinds/precision/words-fixture';
-import { verifyInterval } from '../../shared/stats/verify-interval';
+import { precisionResult } from '@shared/kinds/precision/words-fixture';
+import { verifyInterval } from '@shared/stats/verify-interval';
 import { rangeStudyReport } from './reportable-range/report-fixture';
 import { serverKind } from '.';
 

@@ -1,5 +1,5 @@
 import type { SQL } from 'drizzle-orm';
-import type { KindMeta } from '../../shared/kinds/kind';
+import type { KindMeta } from '@shared/kinds/kind';
 import type { analytes } from '../db/schema';
 import type { Layout } from '../reports/layout';
 import type { StudyReport } from '../reports/report-model';
@@ -9,8 +9,8 @@ import type { StoredRow } from '../specimens/input-hash';
 export type Progress = (fraction: number) => void;
 
 /** A study's settings as a kind reads them: those every study carries, and the kind's own (KindMeta.settings). */
-export type { KindSettings } from '../../shared/kinds/settings';
-import type { KindSettings } from '../../shared/kinds/settings';
+export type { KindSettings } from '@shared/kinds/settings';
+import type { KindSettings } from '@shared/kinds/settings';
 
 /** A cell of the Results sheet of the full record's workbook. */
 export type SheetCell = number | string | null;

@@ -1,4 +1,4 @@
-import type { ComparisonPlanOptions } from '../../shared/stats/plan-comparison';
+import type { ComparisonPlanOptions } from '@shared/stats/plan-comparison';
 import { canonicalJson, sha256Hex } from '../audit/canonical-json';
 
 /**

@@ -1,4 +1,4 @@
-import { planComparison, splitGrid } from '../../shared/stats/plan-comparison';
+import { planComparison, splitGrid } from '@shared/stats/plan-comparison';
 import { AnalysisPool } from '../analyses/worker-pool';
 import { runPlanOnThreads } from './plan-threads';
 

@@ -1,4 +1,4 @@
-import { mergePlans, resolveComparisonPlan, splitGrid, type ComparisonPlanResult } from '../../shared/stats/plan-comparison';
+import { mergePlans, resolveComparisonPlan, splitGrid, type ComparisonPlanResult } from '@shared/stats/plan-comparison';
 import type { AnalysisPool } from '../analyses/worker-pool';
 import type { PlanInput } from './plan-input';
 

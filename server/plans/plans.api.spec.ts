@@ -1,5 +1,5 @@
 import { and, eq } from 'drizzle-orm';
-import { planComparison, type ComparisonPlanResult } from '../../shared/stats/plan-comparison';
+import { planComparison, type ComparisonPlanResult } from '@shared/stats/plan-comparison';
 import { analyses, auditEvents, studies } from '../db/schema';
 import { analysedComparison, createComparison, waitForAnalysis } from '../test/fixtures';
 import { apiPatch, apiPost, Harness, signedIn, signedStudy, startHarness, type Session } from '../test/harness';

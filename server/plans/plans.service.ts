@@ -1,11 +1,11 @@
 import { and, desc, eq, isNotNull, ne, sql } from 'drizzle-orm';
-import { planOptionPath, planOptionsFor, type SamplePlan } from '../../shared/kinds/method-comparison/sample-plan';
-import { parseKindSettings } from '../../shared/kinds/settings';
-import type { ImprecisionSuggestion, StudyPlan } from '../../shared/schemas';
-import { ENGINE_VERSION } from '../../shared/stats/engine';
-import { OptionError } from '../../shared/stats/options';
-import { resolveComparisonPlan } from '../../shared/stats/plan-comparison';
-import type { PrecisionResult } from '../../shared/stats/precision-types';
+import { planOptionPath, planOptionsFor, type SamplePlan } from '@shared/kinds/method-comparison/sample-plan';
+import { parseKindSettings } from '@shared/kinds/settings';
+import type { ImprecisionSuggestion, StudyPlan } from '@shared/schemas';
+import { ENGINE_VERSION } from '@shared/stats/engine';
+import { OptionError } from '@shared/stats/options';
+import { resolveComparisonPlan } from '@shared/stats/plan-comparison';
+import type { PrecisionResult } from '@shared/stats/precision-types';
 import { analysisView } from '../analyses/analyses.service';
 import type { AnalysisJobs } from '../analyses/analysis-jobs';
 import { recordAudit } from '../audit/audit';

@@ -1,6 +1,6 @@
 import { and, eq, inArray } from 'drizzle-orm';
-import { addDays } from '../../shared/types/due-dates';
-import { laboratoryDate } from '../../shared/types/lab-time';
+import { addDays } from '@shared/types/due-dates';
+import { laboratoryDate } from '@shared/types/lab-time';
 import type { SignedInUser } from '../auth/session-user';
 import type { AppContext } from '../context';
 import { labTimeZone } from '../db/lab-zone';

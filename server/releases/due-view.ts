@@ -1,8 +1,8 @@
 import { and, asc, eq, type SQL } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/pg-core';
-import type { DueItem } from '../../shared/schemas';
-import { daysBetween, dueStatus, dueWords } from '../../shared/types/due-dates';
-import { laboratoryDate } from '../../shared/types/lab-time';
+import type { DueItem } from '@shared/schemas';
+import { daysBetween, dueStatus, dueWords } from '@shared/types/due-dates';
+import { laboratoryDate } from '@shared/types/lab-time';
 import type { Executor } from '../db/client';
 import { labTimeZone } from '../db/lab-zone';
 import { analytes, dueItems, instruments, releases, studies } from '../db/schema';

@@ -1,7 +1,7 @@
 import { and, eq, inArray, ne, sql } from 'drizzle-orm';
-import { kindMeta } from '../../shared/kinds/kinds';
-import type { DueItem, DueQuery, StartFromDueBody, UpdateDueBody } from '../../shared/schemas';
-import { addDays, DUE_SOON_DAYS } from '../../shared/types/due-dates';
+import { kindMeta } from '@shared/kinds/kinds';
+import type { DueItem, DueQuery, StartFromDueBody, UpdateDueBody } from '@shared/schemas';
+import { addDays, DUE_SOON_DAYS } from '@shared/types/due-dates';
 import { recordAudit } from '../audit/audit';
 import { actorOf, type SignedInUser } from '../auth/session-user';
 import type { Database, Tx } from '../db/client';

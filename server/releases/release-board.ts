@@ -1,9 +1,9 @@
 import { and, asc, desc, eq, inArray, ne, sql } from 'drizzle-orm';
-import { kindMeta, KIND_METAS } from '../../shared/kinds/kinds';
+import { kindMeta, KIND_METAS } from '@shared/kinds/kinds';
 import {
   RELEASE_CAUTION, RELEASE_MEANING_WORDS, type BoardRequirement, type ComponentStudy, type MayISign, type Release, type ReleaseMeaning,
   type ReleaseSignature, type Requirement, type RequirementStatus, type StudyKind, type StudyState, type Waiver,
-} from '../../shared/schemas';
+} from '@shared/schemas';
 import { judgedStudies } from '../audit/archive.service';
 import type { SignedInUser } from '../auth/session-user';
 import type { Executor } from '../db/client';

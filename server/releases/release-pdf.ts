@@ -1,5 +1,5 @@
-import { laboratoryTime } from '../../shared/types/lab-time';
-import { plural } from '../../shared/types/plural';
+import { laboratoryTime } from '@shared/types/lab-time';
+import { plural } from '@shared/types/plural';
 import { NOT_AVAILABLE, orDash } from '../reports/format';
 import { Layout } from '../reports/layout';
 import { markPages } from '../reports/page-marks';

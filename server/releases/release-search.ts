@@ -3,9 +3,9 @@ import { and, asc, eq, sql, type SQL } from 'drizzle-orm';
 import {
   CHANGE_TYPE_LABELS, RELEASE_CAUTION, RELEASE_STATE_LABELS, type ChangeType, type HistoryEvent, type ReleasePage, type ReleaseQuery, type ReleaseState,
   type ReleaseSummary, type Requirement,
-} from '../../shared/schemas';
-import { describeEvent } from '../../shared/types/audit-words';
-import { laboratoryTime } from '../../shared/types/lab-time';
+} from '@shared/schemas';
+import { describeEvent } from '@shared/types/audit-words';
+import { laboratoryTime } from '@shared/types/lab-time';
 import type { SignedInUser } from '../auth/session-user';
 import type { Database } from '../db/client';
 import { labTimeZone, signedAndCreatedDays } from '../db/lab-zone';

@@ -1,12 +1,12 @@
 import { and, desc, eq, inArray, ne } from 'drizzle-orm';
-import { kindMeta } from '../../shared/kinds/kinds';
+import { kindMeta } from '@shared/kinds/kinds';
 import { serverKind } from '../kinds';
 import {
   CHANGE_TYPE_LABELS, RELEASE_CAUTION, RELEASE_MEANING_WORDS, REQUIREMENT_STATUS_LABELS, type ChangeType, type CheckResult, type Release, type ReleaseIntegrityReport,
   type ReleaseSignBody,
-} from '../../shared/schemas';
-import { addMonths } from '../../shared/types/due-dates';
-import { plural } from '../../shared/types/plural';
+} from '@shared/schemas';
+import { addMonths } from '@shared/types/due-dates';
+import { plural } from '@shared/types/plural';
 import { chainOf, recordAudit } from '../audit/audit';
 import { sha256Hex } from '../audit/canonical-json';
 import { verifyChain } from '../audit/chain';

@@ -1,7 +1,7 @@
 import ExcelJS from 'exceljs';
 import { and, eq, sql } from 'drizzle-orm';
-import { addDays } from '../../shared/types/due-dates';
-import { laboratoryDate } from '../../shared/types/lab-time';
+import { addDays } from '@shared/types/due-dates';
+import { laboratoryDate } from '@shared/types/lab-time';
 import { auditEvents, dueItems, dueReminders, instruments, mailMessages, releaseSignatures, releases, studies } from '../db/schema';
 import { flat, pdfPages } from '../reports/testing/pdf-text';
 import { analysedComparison, catalogIds } from '../test/fixtures';

@@ -2,7 +2,7 @@ import * as z from 'zod';
 import {
   ChangeType, CreateReleaseBody, DueQuery, IdParams, LinkStudyBody, ReleaseQuery, ReleaseSignBody, StartFromDueBody, UpdateDueBody, UpdateReleaseBody,
   UpdateTemplateBody, WaiverBody,
-} from '../../shared/schemas';
+} from '@shared/schemas';
 import { AUDITORS } from '../audit/audit.routes';
 import type { AppContext } from '../context';
 import { parseRequest } from '../http/parse-request';

@@ -1,8 +1,8 @@
 import { and, eq } from 'drizzle-orm';
-import { kindMeta } from '../../shared/kinds/kinds';
+import { kindMeta } from '@shared/kinds/kinds';
 import {
   CHANGE_TYPE_LABELS, keyFrom, type CreateReleaseBody, type LinkStudyBody, type Release, type Requirement, type StudyKind, type UpdateReleaseBody, type WaiverBody,
-} from '../../shared/schemas';
+} from '@shared/schemas';
 import { recordAudit } from '../audit/audit';
 import { actorOf, type SignedInUser } from '../auth/session-user';
 import type { Database, Tx } from '../db/client';

@@ -1,7 +1,7 @@
 import { and, eq } from 'drizzle-orm';
 import {
   CHANGE_TYPE_LABELS, CHANGE_TYPES, type ChangeType, type DueRule, type ReleaseTemplate, type Requirement, type UpdateTemplateBody,
-} from '../../shared/schemas';
+} from '@shared/schemas';
 import { recordAudit } from '../audit/audit';
 import { actorOf, type SignedInUser } from '../auth/session-user';
 import type { Database, Executor } from '../db/client';

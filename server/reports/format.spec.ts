@@ -1,5 +1,5 @@
 import { num, percent, pValue, range, withCi } from './format';
-import { laboratoryTime, utcOffset } from '../../shared/types/lab-time';
+import { laboratoryTime, utcOffset } from '@shared/types/lab-time';
 
 describe('report number formats', () => {
   it('prints a true minus sign and no sign on a rounded zero', () => {

@@ -4,7 +4,7 @@
  * for a value that is not available, "not available" for a CI that could not be formed, p-values to three
  * decimals with a floor of "< 0.001".
  */
-import { estimateWithCi, formatCi, formatNumber, formatP, NOT_AVAILABLE, withUnit as unitAfter } from '../../shared/types/findings-numbers';
+import { estimateWithCi, formatCi, formatNumber, formatP, NOT_AVAILABLE, withUnit as unitAfter } from '@shared/types/findings-numbers';
 
 export { NOT_AVAILABLE };
 

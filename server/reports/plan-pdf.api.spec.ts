@@ -1,4 +1,4 @@
-import type { ComparisonPlanResult } from '../../shared/stats/plan-comparison';
+import type { ComparisonPlanResult } from '@shared/stats/plan-comparison';
 import { createComparison, waitForAnalysis } from '../test/fixtures';
 import { apiPatch, apiPost, binary, Harness, signedIn, startHarness, type Session } from '../test/harness';
 import { flat, pdfPages } from './testing/pdf-text';

@@ -6,7 +6,7 @@ import type { StudyReport } from './report-model';
 import { cautionCallout } from './sections/caution';
 import { titleBlock } from './sections/title';
 import { PAGE } from './theme';
-import { kindMeta } from '../../shared/kinds/kinds';
+import { kindMeta } from '@shared/kinds/kinds';
 import { serverKind } from '../kinds';
 
 /**

@@ -1,8 +1,8 @@
-import type { SpecimenRow, StudyKind, StudyState } from '../../shared/schemas';
-import type { KindSettings } from '../../shared/kinds/settings';
-import type { ComparisonResult, EngineInfo, IntervalResult, VerifyIntervalResult } from '../../shared/stats';
-import type { SamplePlan } from '../../shared/kinds/method-comparison/sample-plan';
-import type { ComparisonPlanResult } from '../../shared/stats/plan-comparison';
+import type { SpecimenRow, StudyKind, StudyState } from '@shared/schemas';
+import type { KindSettings } from '@shared/kinds/settings';
+import type { ComparisonResult, EngineInfo, IntervalResult, VerifyIntervalResult } from '@shared/stats';
+import type { SamplePlan } from '@shared/kinds/method-comparison/sample-plan';
+import type { ComparisonPlanResult } from '@shared/stats/plan-comparison';
 
 /**
  * Everything the verification PDF prints, as plain data: the renderer does no I/O and reads no clock,

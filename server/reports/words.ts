@@ -1,5 +1,5 @@
-import { BIAS_CI_WORDS, VERDICT_WORDS as SHARED_VERDICT_WORDS } from '../../shared/types/findings-rows';
-import { REGRESSION_NAMES } from '../../shared/types/regression-words';
+import { BIAS_CI_WORDS, VERDICT_WORDS as SHARED_VERDICT_WORDS } from '@shared/types/findings-rows';
+import { REGRESSION_NAMES } from '@shared/types/regression-words';
 
 /** The report's fixed wording. The caution is printed in full near the findings and again at the end. */
 export const CAUTION =

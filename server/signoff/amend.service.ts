@@ -1,5 +1,5 @@
 import { eq } from 'drizzle-orm';
-import type { PlanApprovalBody, Study } from '../../shared/schemas';
+import type { PlanApprovalBody, Study } from '@shared/schemas';
 import { recordAudit } from '../audit/audit';
 import { actorOf, SignedInUser } from '../auth/session-user';
 import type { AppContext } from '../context';

@@ -2,7 +2,7 @@ import { and, eq, sql } from 'drizzle-orm';
 import type { Tx } from '../db/client';
 import { labTimeZone } from '../db/lab-zone';
 import { users } from '../db/schema';
-import { laboratoryTime } from '../../shared/types/lab-time';
+import { laboratoryTime } from '@shared/types/lab-time';
 import { queueMail } from '../mail/outbox';
 import type { StudyRow } from '../studies/studies.repository';
 

@@ -1,5 +1,5 @@
 import { asc, eq } from 'drizzle-orm';
-import type { Signature } from '../../shared/schemas';
+import type { Signature } from '@shared/schemas';
 import { sha256Hex } from '../audit/canonical-json';
 import type { SignedInUser } from '../auth/session-user';
 import type { Database } from '../db/client';

@@ -1,5 +1,5 @@
 import { eq } from 'drizzle-orm';
-import type { SignBody, Study } from '../../shared/schemas';
+import type { SignBody, Study } from '@shared/schemas';
 import { chainOf, recordAudit } from '../audit/audit';
 import { writeCheckpoint } from '../audit/checkpoints';
 import { sha256Hex } from '../audit/canonical-json';

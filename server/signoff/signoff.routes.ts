@@ -1,4 +1,4 @@
-import { AmendBody, PlanApprovalBody, ReturnBody, SignBody, SubmitBody } from '../../shared/schemas';
+import { AmendBody, PlanApprovalBody, ReturnBody, SignBody, SubmitBody } from '@shared/schemas';
 import type { AppContext } from '../context';
 import { parseRequest } from '../http/parse-request';
 import type { RouteSpec } from '../http/routes';

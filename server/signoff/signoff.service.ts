@@ -1,5 +1,5 @@
 import { eq } from 'drizzle-orm';
-import type { Study } from '../../shared/schemas';
+import type { Study } from '@shared/schemas';
 import { recordAudit, type AuditInput } from '../audit/audit';
 import { findUserById, updateUser } from '../auth/auth.repository';
 import { registerFailure } from '../auth/auth.service';

@@ -1,9 +1,9 @@
-import { parseKindSettings } from '../../shared/kinds/settings';
-import type { SamplePlan } from '../../shared/kinds/method-comparison/sample-plan';
-import type { ComparisonPlanResult } from '../../shared/stats/plan-comparison';
+import { parseKindSettings } from '@shared/kinds/settings';
+import type { SamplePlan } from '@shared/kinds/method-comparison/sample-plan';
+import type { ComparisonPlanResult } from '@shared/stats/plan-comparison';
 import { and, asc, desc, eq } from 'drizzle-orm';
-import { show } from '../../shared/types/audit-words';
-import { StudySettings, type StudyKind, type StudyState } from '../../shared/schemas';
+import { show } from '@shared/types/audit-words';
+import { StudySettings, type StudyKind, type StudyState } from '@shared/schemas';
 import type { Executor } from '../db/client';
 import { analyses, analytes, auditEvents, instruments, laboratories, signatures } from '../db/schema';
 import { withRecordedWords } from '../analyses/recorded-words';

@@ -1,6 +1,6 @@
-import { parseKindSettings } from '../../shared/kinds/settings';
+import { parseKindSettings } from '@shared/kinds/settings';
 import { serverKind } from '../kinds';
-import { repeatedLabels, repeatedLabelsSentence } from '../../shared/types/repeated-labels';
+import { repeatedLabels, repeatedLabelsSentence } from '@shared/types/repeated-labels';
 import type { Executor } from '../db/client';
 import { loadRows } from '../specimens/input-hash';
 import type { StudyRow } from '../studies/studies.repository';

@@ -1,5 +1,5 @@
 import { eq } from 'drizzle-orm';
-import type { Study } from '../../shared/schemas';
+import type { Study } from '@shared/schemas';
 import type { Executor } from '../db/client';
 import { users } from '../db/schema';
 import type { StudyRow } from '../studies/studies.repository';

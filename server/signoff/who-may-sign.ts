@@ -1,5 +1,5 @@
 import { sql, type SQL } from 'drizzle-orm';
-import type { MayISign } from '../../shared/schemas';
+import type { MayISign } from '@shared/schemas';
 import type { SignedInUser } from '../auth/session-user';
 import type { Executor } from '../db/client';
 import { laboratories, specimens, studies, users } from '../db/schema';

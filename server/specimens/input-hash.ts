@@ -3,7 +3,7 @@ import type { Executor } from '../db/client';
 import { specimens, studies } from '../db/schema';
 import { canonicalJson, sha256Hex } from '../audit/canonical-json';
 import type { StudyRow } from '../studies/studies.repository';
-import { kindMeta } from '../../shared/kinds/kinds';
+import { kindMeta } from '@shared/kinds/kinds';
 
 export type StoredRow = typeof specimens.$inferSelect;
 

@@ -1,4 +1,4 @@
-import { readResult, type DecimalMark, type ResultReading } from '../../shared/schemas/result-text';
+import { readResult, type DecimalMark, type ResultReading } from '@shared/schemas/result-text';
 
 export type ParsedResult = ResultReading;
 

@@ -1,8 +1,8 @@
-import { MAX_ROWS } from '../../shared/schemas';
-import type { ApiIssue } from '../../shared/schemas';
-import type { DecimalMark } from '../../shared/schemas/result-text';
-import { kindMeta } from '../../shared/kinds/kinds';
-import type { RowField } from '../../shared/kinds/kind';
+import { MAX_ROWS } from '@shared/schemas';
+import type { ApiIssue } from '@shared/schemas';
+import type { DecimalMark } from '@shared/schemas/result-text';
+import { kindMeta } from '@shared/kinds/kinds';
+import type { RowField } from '@shared/kinds/kind';
 import { parseResult } from './parse-result';
 
 export interface CleanRow {

@@ -1,11 +1,11 @@
 import { eq } from 'drizzle-orm';
-import type { SpecimenRow, SpecimenRows, StudySettings } from '../../shared/schemas';
+import type { SpecimenRow, SpecimenRows, StudySettings } from '@shared/schemas';
 import { recordAudit } from '../audit/audit';
 import { actorOf, SignedInUser } from '../auth/session-user';
 import type { Database, Tx } from '../db/client';
 import { analytes, specimens } from '../db/schema';
-import { repeatedLabels, repeatedLabelsSentence } from '../../shared/types/repeated-labels';
-import { plural } from '../../shared/types/plural';
+import { repeatedLabels, repeatedLabelsSentence } from '@shared/types/repeated-labels';
+import { plural } from '@shared/types/plural';
 import { AppError } from '../http/app-error';
 import { bumpVersion, findStudy, StudyRow } from '../studies/studies.repository';
 import { assertEditable, assertPlanApproved } from '../studies/study-rules';

@@ -1,4 +1,4 @@
-import { CreateStudyBody, IdParams, StudyListQuery, UpdateStudyBody } from '../../shared/schemas';
+import { CreateStudyBody, IdParams, StudyListQuery, UpdateStudyBody } from '@shared/schemas';
 import type { AppContext } from '../context';
 import { parseRequest } from '../http/parse-request';
 import type { RouteSpec } from '../http/routes';

@@ -1,7 +1,7 @@
 import { randomBytes } from 'node:crypto';
-import { kindMeta } from '../../shared/kinds/kinds';
-import { parseKindSettings, type KindSettings } from '../../shared/kinds/settings';
-import type { StudyKind, StudySettingsPatch } from '../../shared/schemas';
+import { kindMeta } from '@shared/kinds/kinds';
+import { parseKindSettings, type KindSettings } from '@shared/kinds/settings';
+import type { StudyKind, StudySettingsPatch } from '@shared/schemas';
 import type { analytes } from '../db/schema';
 import { serverKind } from '../kinds';
 

@@ -1,7 +1,7 @@
-import { kindMeta } from '../../shared/kinds/kinds';
-import { parseKindSettings } from '../../shared/kinds/settings';
+import { kindMeta } from '@shared/kinds/kinds';
+import { parseKindSettings } from '@shared/kinds/settings';
 import { eq, sql } from 'drizzle-orm';
-import { StudySettings, type FindingsStatus, type Study, type StudyKind, type StudyState, type StudySummary } from '../../shared/schemas';
+import { StudySettings, type FindingsStatus, type Study, type StudyKind, type StudyState, type StudySummary } from '@shared/schemas';
 import type { Executor } from '../db/client';
 import { analyses, analytes, instruments, releaseStudies, releases, users } from '../db/schema';
 import type { SignedInUser } from '../auth/session-user';

@@ -1,4 +1,4 @@
-import { ROLES, type Role } from '../../shared/schemas';
+import { ROLES, type Role } from '@shared/schemas';
 import { anonymous, Harness, signedIn, startHarness } from './harness';
 
 /**

@@ -1,6 +1,6 @@
-import { kindMeta } from '../../shared/kinds/kinds';
-import type { RowField } from '../../shared/kinds/kind';
-import { notMappedNotes } from '../../shared/types/mapping-notes';
+import { kindMeta } from '@shared/kinds/kinds';
+import type { RowField } from '@shared/kinds/kind';
+import { notMappedNotes } from '@shared/types/mapping-notes';
 
 /** Who or what a row is about, as files head the column: "Specimen", "Sample ID", "Subject no.", "Donor", "Barcode". */
 const LABEL_WORDS = 'specimen|sample|patient|individual|subject|donor|participant|person|volunteer|accession|case|tube|barcode|bar code';

@@ -1,5 +1,5 @@
-import type { LabelCheck } from '../../shared/schemas';
-import { labelKey, namedLabels, repeatsSentence } from '../../shared/types/repeated-labels';
+import type { LabelCheck } from '@shared/schemas';
+import { labelKey, namedLabels, repeatsSentence } from '@shared/types/repeated-labels';
 
 /** The study's distinct label keys (labelKey), empty labels left out. */
 export const studyKeys = (labels: readonly string[]): Set<string> => new Set(labels.map(labelKey).filter((k) => k !== ''));

@@ -1,6 +1,6 @@
 import type { MessagePort } from 'node:worker_threads';
 import { Piscina } from 'piscina';
-import type { LabelCheck } from '../../shared/schemas';
+import type { LabelCheck } from '@shared/schemas';
 import { labelChecks } from './label-checks';
 import { parseUpload } from './parse-file';
 import { Refusal } from './upload-limits';

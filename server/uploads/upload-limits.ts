@@ -1,4 +1,4 @@
-import { MAX_ROWS } from '../../shared/schemas';
+import { MAX_ROWS } from '@shared/schemas';
 
 /** What one upload may hold; each is checked while the file is read, and each refusal names its limit. */
 export const UPLOAD_LIMITS = {

@@ -1,6 +1,6 @@
 import multer from 'multer';
 import * as z from 'zod';
-import { ImportBody } from '../../shared/schemas';
+import { ImportBody } from '@shared/schemas';
 import type { AppContext } from '../context';
 import { refuseControlCharacters } from '../http/control-characters';
 import { parseRequest } from '../http/parse-request';

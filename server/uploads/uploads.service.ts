@@ -1,5 +1,5 @@
 import { and, eq, sql } from 'drizzle-orm';
-import { type ImportBody, type SpecimenRows, type UploadPreview } from '../../shared/schemas';
+import { type ImportBody, type SpecimenRows, type UploadPreview } from '@shared/schemas';
 import { recordAudit } from '../audit/audit';
 import { sha256Hex } from '../audit/canonical-json';
 import { actorOf, SignedInUser } from '../auth/session-user';
@@ -11,7 +11,7 @@ import { asClean, cleanRowsFor, writeRows } from '../specimens/specimens.service
 import { findStudy } from '../studies/studies.repository';
 import { assertEditable } from '../studies/study-rules';
 import { neededFields, suggestMapping, unmappedNotes } from './column-mapping';
-import { kindMeta } from '../../shared/kinds/kinds';
+import { kindMeta } from '@shared/kinds/kinds';
 import type { ParsedTable } from './parse-file';
 import { uploadParser } from './parse-pool';
 

@@ -1,6 +1,6 @@
 import { TestBed } from '@angular/core/testing';
 import { of, throwError } from 'rxjs';
-import type { Role, SessionUser } from '../../shared/schemas';
+import type { Role, SessionUser } from '@shared/schemas';
 import { AuthApi } from '../app/core/auth/auth-api';
 import { AuthStore } from '../app/core/auth/auth-store';
 import { ApiError } from '../app/core/http/api-error';

@@ -1,14 +1,14 @@
 import { sql } from 'drizzle-orm';
-import { intervalEstablishMeta } from '../../../shared/kinds/interval-establish/meta';
-import { StudySettings } from '../../../shared/schemas';
-import { analyzeInterval } from '../../../shared/stats/analyze-interval';
-import type { IntervalResult } from '../../../shared/stats';
+import { intervalEstablishMeta } from '@shared/kinds/interval-establish/meta';
+import { StudySettings } from '@shared/schemas';
+import { analyzeInterval } from '@shared/stats/analyze-interval';
+import type { IntervalResult } from '@shared/stats';
 import { has, toPositions, withRepeatedLabels } from '../../analyses/analysis-rows';
 import { establishColumns, establishLines } from '../../audit/results-sheet';
 import type { EstablishFindings } from '../../reports/report-model';
 import { establishReport } from '../../reports/sections/establish-report';
 import type { ServerKind } from '../kind';
-import { formatNumber, withUnit } from '../../../shared/types/findings-numbers';
+import { formatNumber, withUnit } from '@shared/types/findings-numbers';
 
 /** The outlier rule both reference-interval kinds start with. */
 export const INTERVAL_OUTLIER_RULE = 'Tukey fences and Dixon\'s D/R > 1/3 rule (flags only; exclusion needs a reason)';

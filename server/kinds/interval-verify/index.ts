@@ -1,16 +1,16 @@
 import { sql } from 'drizzle-orm';
-import { intervalVerifyMeta } from '../../../shared/kinds/interval-verify/meta';
-import { StudySettings } from '../../../shared/schemas';
-import { CAUTION } from '../../../shared/stats/comparison-types';
-import { engineInfo } from '../../../shared/stats/engine';
-import { verifyInterval } from '../../../shared/stats/verify-interval';
+import { intervalVerifyMeta } from '@shared/kinds/interval-verify/meta';
+import { StudySettings } from '@shared/schemas';
+import { CAUTION } from '@shared/stats/comparison-types';
+import { engineInfo } from '@shared/stats/engine';
+import { verifyInterval } from '@shared/stats/verify-interval';
 import { has, withRepeatedLabels } from '../../analyses/analysis-rows';
 import { valueColumns, verifyLines } from '../../audit/results-sheet';
 import type { VerifyFindings } from '../../reports/report-model';
 import { verifyReport } from '../../reports/sections/verify-report';
 import { INTERVAL_OUTLIER_RULE } from '../interval-establish';
 import type { ServerKind } from '../kind';
-import { formatNumber, withUnit } from '../../../shared/types/findings-numbers';
+import { formatNumber, withUnit } from '@shared/types/findings-numbers';
 
 const isObject = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
 

@@ -1,15 +1,15 @@
 import { sql } from 'drizzle-orm';
-import { methodComparisonMeta } from '../../../shared/kinds/method-comparison/meta';
-import { StudySettings } from '../../../shared/schemas';
-import { analyzeComparison } from '../../../shared/stats/analyze-comparison';
+import { methodComparisonMeta } from '@shared/kinds/method-comparison/meta';
+import { StudySettings } from '@shared/schemas';
+import { analyzeComparison } from '@shared/stats/analyze-comparison';
 import { comparisonColumns, comparisonLines } from '../../audit/results-sheet';
-import type { ComparisonResult } from '../../../shared/stats';
+import type { ComparisonResult } from '@shared/stats';
 import { has, toPositions, withRepeatedLabels } from '../../analyses/analysis-rows';
 import type { ComparisonFindings } from '../../reports/report-model';
 import { comparisonReport } from '../../reports/sections/comparison-report';
 import type { ServerKind } from '../kind';
-import { estimateWithCi, findingsDecimals, formatNumber, levelLabel, withUnit } from '../../../shared/types/findings-numbers';
-import { VERDICT_WORDS } from '../../../shared/types/findings-rows';
+import { estimateWithCi, findingsDecimals, formatNumber, levelLabel, withUnit } from '@shared/types/findings-numbers';
+import { VERDICT_WORDS } from '@shared/types/findings-rows';
 
 /** Method comparison on the server: the engine's comparison, the goals it needs before submission, its report. */
 export const methodComparisonKind: ServerKind = {

@@ -1,4 +1,4 @@
-import { dataStep } from '../../../shared/types/plot-axes';
+import { dataStep } from '@shared/types/plot-axes';
 import { clipped, dataWidth, drawAxes, makeFrame, type Frame } from '../../reports/plots/frame';
 import { band, dataLine, legend, legendRows, levelLine, points, type LegendItem } from '../../reports/plots/marks';
 import type { Box } from '../../reports/plots/plot-box';

@@ -1,14 +1,14 @@
 import { sql } from 'drizzle-orm';
-import { PRECISION_RULES, precisionMeta, PrecisionSettings } from '../../../shared/kinds/precision/meta';
-import { parseKindSettings, type KindSettings } from '../../../shared/kinds/settings';
-import { analyzePrecision } from '../../../shared/stats/analyze-precision';
-import type { PrecisionRow } from '../../../shared/stats/precision-types';
+import { PRECISION_RULES, precisionMeta, PrecisionSettings } from '@shared/kinds/precision/meta';
+import { parseKindSettings, type KindSettings } from '@shared/kinds/settings';
+import { analyzePrecision } from '@shared/stats/analyze-precision';
+import type { PrecisionRow } from '@shared/stats/precision-types';
 import type { ServerKind } from '../kind';
 import { PRECISION_DEMOS } from './demo';
 import { precisionReport } from './report';
 import { precisionSheet } from './results-sheet';
-import { materialSummary, overallSentence, precisionFormat } from '../../../shared/kinds/precision/words';
-import type { PrecisionResult } from '../../../shared/stats/precision-types';
+import { materialSummary, overallSentence, precisionFormat } from '@shared/kinds/precision/words';
+import type { PrecisionResult } from '@shared/stats/precision-types';
 
 export const PRECISION_OUTLIER_RULE = PRECISION_RULES.outlierRule;
 

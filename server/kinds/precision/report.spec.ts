@@ -1,8 +1,8 @@
 import { createHash } from 'node:crypto';
 import ExcelJS from 'exceljs';
-import { parseKindSettings } from '../../../shared/kinds/settings';
-import { analyzePrecision } from '../../../shared/stats/analyze-precision';
-import type { PrecisionMaterialResult, PrecisionMaterialSetting, PrecisionResult, PrecisionRow } from '../../../shared/stats/precision-types';
+import { parseKindSettings } from '@shared/kinds/settings';
+import { analyzePrecision } from '@shared/stats/analyze-precision';
+import type { PrecisionMaterialResult, PrecisionMaterialSetting, PrecisionResult, PrecisionRow } from '@shared/stats/precision-types';
 import { resultsSheet } from '../../audit/results-sheet';
 import { renderStudyReport } from '../../reports/render-report';
 import type { ReportRow, StudyReport } from '../../reports/report-model';

@@ -1,10 +1,10 @@
-import { PrecisionSettings, type PrecisionMaterial } from '../../../shared/kinds/precision/meta';
+import { PrecisionSettings, type PrecisionMaterial } from '@shared/kinds/precision/meta';
 import {
   alphaText, claimText, componentHeadings, componentRows, designRows, dfText, flaggedRows, givenText, materialSummary, overallSentence,
   precisionFormat, resultHeading, termsNote, truenessRows, truenessSentence, verdictLines, type PrecisionFormat,
-} from '../../../shared/kinds/precision/words';
-import type { PrecisionMaterialResult, PrecisionResult, PrecisionVerdict } from '../../../shared/stats/precision-types';
-import { nounFor, plural } from '../../../shared/types/plural';
+} from '@shared/kinds/precision/words';
+import type { PrecisionMaterialResult, PrecisionResult, PrecisionVerdict } from '@shared/stats/precision-types';
+import { nounFor, plural } from '@shared/types/plural';
 import { integer, NOT_AVAILABLE, num, orDash } from '../../reports/format';
 import type { Layout } from '../../reports/layout';
 import { plotRow } from '../../reports/plots/plot-box';

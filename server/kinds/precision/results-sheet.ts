@@ -1,10 +1,10 @@
 import {
   alphaSharing, claimVerdictSentence, dfDecimals, givenDecimals, judgedDecimals, precisionFormat, termsDecimals, termsOf, truenessSentence, typedDecimals,
   type ClaimedComponent, type PrecisionFormat,
-} from '../../../shared/kinds/precision/words';
-import type { PrecisionMaterialResult, PrecisionResult } from '../../../shared/stats/precision-types';
-import { levelLabel, numberFormat } from '../../../shared/types/findings-numbers';
-import { plural } from '../../../shared/types/plural';
+} from '@shared/kinds/precision/words';
+import type { PrecisionMaterialResult, PrecisionResult } from '@shared/stats/precision-types';
+import { levelLabel, numberFormat } from '@shared/types/findings-numbers';
+import { plural } from '@shared/types/plural';
 import { FRONT, WORDS } from '../../audit/results-sheet';
 import type { ServerKind, SheetCell, SheetColumn, SheetLine } from '../kind';
 

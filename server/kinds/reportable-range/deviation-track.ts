@@ -1,4 +1,4 @@
-import { formatNumber } from '../../../shared/types/findings-numbers';
+import { formatNumber } from '@shared/types/findings-numbers';
 import { drawText, measure, textWidth, type TextStyle } from '../../reports/text';
 import { COLOR, SIZE } from '../../reports/theme';
 
@@ -11,8 +11,8 @@ import { COLOR, SIZE } from '../../reports/theme';
  * left, the judgement in words and its numbers at the right. No colour carries meaning alone.
  */
 
-export type { DeviationMark } from '../../../shared/kinds/reportable-range/words';
-import type { DeviationMark } from '../../../shared/kinds/reportable-range/words';
+export type { DeviationMark } from '@shared/kinds/reportable-range/words';
+import type { DeviationMark } from '@shared/kinds/reportable-range/words';
 
 export interface DeviationTrack {
   /** The level's name, and its x in words ("32.0 mmol/L", "fraction 0.125") under it. */

@@ -1,8 +1,8 @@
 import { sql } from 'drizzle-orm';
-import { RANGE_LEVELS, RANGE_RULES, RangeSettings, reportableRangeMeta } from '../../../shared/kinds/reportable-range/meta';
-import { parseKindSettings, type KindSettings } from '../../../shared/kinds/settings';
-import { analyzeReportableRange } from '../../../shared/stats/analyze-reportable-range';
-import type { RangeResult, RangeRow } from '../../../shared/stats/reportable-range-types';
+import { RANGE_LEVELS, RANGE_RULES, RangeSettings, reportableRangeMeta } from '@shared/kinds/reportable-range/meta';
+import { parseKindSettings, type KindSettings } from '@shared/kinds/settings';
+import { analyzeReportableRange } from '@shared/stats/analyze-reportable-range';
+import type { RangeResult, RangeRow } from '@shared/stats/reportable-range-types';
 import type { ServerKind } from '../kind';
 import { RANGE_DEMOS } from './demo';
 import { rangeReport } from './report';

@@ -1,6 +1,6 @@
-import { allowableBiasAt } from '../../../shared/stats/decision-levels';
-import { polynomialAt } from '../../../shared/stats/polynomial-fit';
-import type { RangeFit, RangeResult } from '../../../shared/stats/reportable-range-types';
+import { allowableBiasAt } from '@shared/stats/decision-levels';
+import { polynomialAt } from '@shared/stats/polynomial-fit';
+import type { RangeFit, RangeResult } from '@shared/stats/reportable-range-types';
 import { clipped, dataWidth, drawAxes, makeFrame, type Frame } from '../../reports/plots/frame';
 import { area, dataLine, legend, legendRows, points, type LegendItem } from '../../reports/plots/marks';
 import type { Box } from '../../reports/plots/plot-box';

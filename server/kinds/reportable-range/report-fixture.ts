@@ -1,9 +1,9 @@
 import { createHash } from 'node:crypto';
-import { parseKindSettings } from '../../../shared/kinds/settings';
-import { analyzeReportableRange } from '../../../shared/stats/analyze-reportable-range';
-import type { RangeRow } from '../../../shared/stats/reportable-range-types';
+import { parseKindSettings } from '@shared/kinds/settings';
+import { analyzeReportableRange } from '@shared/stats/analyze-reportable-range';
+import type { RangeRow } from '@shared/stats/reportable-range-types';
 import type { ReportRow, StudyReport } from '../../reports/report-model';
-import { RANGE_RULES } from '../../../shared/kinds/reportable-range/meta';
+import { RANGE_RULES } from '@shared/kinds/reportable-range/meta';
 
 /*
  * An invented reportable-range study for the report's and the Results sheet's tests (the scenario is ours): urea in

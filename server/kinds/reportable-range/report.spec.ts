@@ -1,5 +1,5 @@
 import ExcelJS from 'exceljs';
-import type { RangeLevelResult, RangeResult } from '../../../shared/stats/reportable-range-types';
+import type { RangeLevelResult, RangeResult } from '@shared/stats/reportable-range-types';
 import { resultsSheet } from '../../audit/results-sheet';
 import { renderStudyReport } from '../../reports/render-report';
 import type { StudyReport } from '../../reports/report-model';

@@ -1,12 +1,12 @@
-import { RangeSettings, type RangeLevel } from '../../../shared/kinds/reportable-range/meta';
+import { RangeSettings, type RangeLevel } from '@shared/kinds/reportable-range/meta';
 import {
   bestFitSentence, claimText, designRows, fitRows, givenText, goalCaption, goalText, levelHeadings, levelRows, rangeFormat, rangeText, trackLegend, trackWords, verdictSentence,
   VERDICT_HEADLINES, type RangeFormat,
-} from '../../../shared/kinds/reportable-range/words';
-import { mixtureValue } from '../../../shared/stats/reportable-range-options';
-import type { RangeLevelResult, RangeResult } from '../../../shared/stats/reportable-range-types';
-import { levelLabel, withUnit } from '../../../shared/types/findings-numbers';
-import { plural } from '../../../shared/types/plural';
+} from '@shared/kinds/reportable-range/words';
+import { mixtureValue } from '@shared/stats/reportable-range-options';
+import type { RangeLevelResult, RangeResult } from '@shared/stats/reportable-range-types';
+import { levelLabel, withUnit } from '@shared/types/findings-numbers';
+import { plural } from '@shared/types/plural';
 import { integer, NOT_AVAILABLE, num, orDash } from '../../reports/format';
 import type { Layout } from '../../reports/layout';
 import { plotRow } from '../../reports/plots/plot-box';

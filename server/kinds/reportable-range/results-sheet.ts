@@ -1,9 +1,9 @@
 import {
   bestFitSentence, claimText, fitRows, givenText, goalText, levelHeadings, rangeFormat, rangeText, verdictSentence, VERDICT_HEADLINES, withinWord,
   type RangeFormat,
-} from '../../../shared/kinds/reportable-range/words';
-import type { RangeFit, RangeLevelResult, RangeResult } from '../../../shared/stats/reportable-range-types';
-import { numberFormat, P_VALUE_FORMAT } from '../../../shared/types/findings-numbers';
+} from '@shared/kinds/reportable-range/words';
+import type { RangeFit, RangeLevelResult, RangeResult } from '@shared/stats/reportable-range-types';
+import { numberFormat, P_VALUE_FORMAT } from '@shared/types/findings-numbers';
 import { FRONT, WORDS } from '../../audit/results-sheet';
 import type { ServerKind, SheetCell, SheetColumn, SheetLine } from '../kind';
 

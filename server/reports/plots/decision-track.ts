@@ -1,4 +1,4 @@
-import { along, type DecisionPicture, type DecisionTrack, type TrackMark } from '../../../shared/types/decision-track';
+import { along, type DecisionPicture, type DecisionTrack, type TrackMark } from '@shared/types/decision-track';
 import { drawText, measure, textWidth, type TextStyle } from '../text';
 import { COLOR, SIZE } from '../theme';
 

@@ -1,5 +1,5 @@
-import type { Estimate } from '../../../shared/stats';
-import { allowableBand, bandReach, type AllowableGoal } from '../../../shared/types/allowable-band';
+import type { Estimate } from '@shared/stats';
+import { allowableBand, bandReach, type AllowableGoal } from '@shared/types/allowable-band';
 import { COLOR } from '../theme';
 import { clipped, dataWidth, drawAxes, makeFrame, type Frame } from './frame';
 import { area, axisTriangle, band, legend, legendRows, levelLine, markerLine, points, type LegendItem } from './marks';

@@ -1,4 +1,4 @@
-import type { HistogramBin } from '../../../shared/stats';
+import type { HistogramBin } from '@shared/stats';
 import { COLOR } from '../theme';
 import { clipped, dataWidth, drawAxes, makeFrame, type Frame } from './frame';
 import { band, legend, legendRows, markerLine, type LegendItem } from './marks';

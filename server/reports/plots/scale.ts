@@ -1,4 +1,4 @@
-import { niceAxis as sharedNiceAxis, paddedAxis as sharedPaddedAxis } from '../../../shared/types/plot-axes';
+import { niceAxis as sharedNiceAxis, paddedAxis as sharedPaddedAxis } from '@shared/types/plot-axes';
 import { num } from '../format';
 
 /**

@@ -1,4 +1,4 @@
-import { dataStep } from '../../../shared/types/plot-axes';
+import { dataStep } from '@shared/types/plot-axes';
 import { COLOR } from '../theme';
 import { clipped, drawAxes, makeFrame, type Frame } from './frame';
 import { band, legend, markerLine } from './marks';

@@ -2,7 +2,7 @@ import { orDash } from '../format';
 import type { Layout } from '../layout';
 import type { StudyReport } from '../report-model';
 import { drawTable } from '../table';
-import { laboratoryTime } from '../../../shared/types/lab-time';
+import { laboratoryTime } from '@shared/types/lab-time';
 
 /** Criteria changed after the plan was approved: who, when, what, from what to what, and why. */
 export function amendments(layout: Layout, report: StudyReport): void {

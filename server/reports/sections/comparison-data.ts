@@ -1,7 +1,7 @@
-import { pairedDifferences } from '../../../shared/stats/differences';
-import { stepWords as wordsOfStep, type StepWords } from '../../../shared/types/resolution-words';
-import { findingsDecimals, type FindingsDecimals } from '../../../shared/types/findings-numbers';
-import { differenceUnitOf, type ComparisonUnits } from '../../../shared/types/findings-rows';
+import { pairedDifferences } from '@shared/stats/differences';
+import { stepWords as wordsOfStep, type StepWords } from '@shared/types/resolution-words';
+import { findingsDecimals, type FindingsDecimals } from '@shared/types/findings-numbers';
+import { differenceUnitOf, type ComparisonUnits } from '@shared/types/findings-rows';
 import type { Layout } from '../layout';
 import type { ComparisonFindings, EstablishFindings, ReportRow, StudyReport } from '../report-model';
 import { wrapAtSpaces } from '../text';

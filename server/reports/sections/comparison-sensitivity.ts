@@ -2,8 +2,8 @@ import { integer } from '../format';
 import type { Layout } from '../layout';
 import type { ComparisonFindings, StudyReport } from '../report-model';
 import { drawTable } from '../table';
-import { sensitivityLines } from '../../../shared/types/findings-rows';
-import { nounFor } from '../../../shared/types/plural';
+import { sensitivityLines } from '@shared/types/findings-rows';
+import { nounFor } from '@shared/types/plural';
 import { comparisonUnits, stepWords } from './comparison-data';
 
 /**

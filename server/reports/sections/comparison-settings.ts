@@ -1,10 +1,10 @@
-import { DEMING_RATIO_CONVENTION } from '../../../shared/stats';
+import { DEMING_RATIO_CONVENTION } from '@shared/stats';
 import { integer, num, orDash, percent } from '../format';
 import type { Layout } from '../layout';
 import type { ComparisonFindings, StudyReport } from '../report-model';
 import { CI_WORDS, DIFFERENCE_WORDS, REGRESSION_WORDS } from '../words';
-import { plural } from '../../../shared/types/plural';
-import { regressionCiWords } from '../../../shared/types/regression-words';
+import { plural } from '@shared/types/plural';
+import { regressionCiWords } from '@shared/types/regression-words';
 
 /**
  * How the numbers were made. The engine's resolved settings are printed when there are results (they

@@ -1,7 +1,7 @@
-import { agreementRows, BIAS_CI_WORDS, BIAS_P_WORDS, testRows, type FindingsRow } from '../../../shared/types/findings-rows';
-import { levelLabel } from '../../../shared/types/findings-numbers';
-import { regressionSection } from '../../../shared/types/regression-words';
-import { plural } from '../../../shared/types/plural';
+import { agreementRows, BIAS_CI_WORDS, BIAS_P_WORDS, testRows, type FindingsRow } from '@shared/types/findings-rows';
+import { levelLabel } from '@shared/types/findings-numbers';
+import { regressionSection } from '@shared/types/regression-words';
+import { plural } from '@shared/types/plural';
 import { integer, num, pValue, range, withUnit } from '../format';
 import type { Layout } from '../layout';
 import type { ComparisonFindings, StudyReport } from '../report-model';

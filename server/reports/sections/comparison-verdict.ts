@@ -1,5 +1,5 @@
-import { decisionPicture, PICTURE_TITLE, type DecisionPicture } from '../../../shared/types/decision-track';
-import { plural } from '../../../shared/types/plural';
+import { decisionPicture, PICTURE_TITLE, type DecisionPicture } from '@shared/types/decision-track';
+import { plural } from '@shared/types/plural';
 import { integer } from '../format';
 import type { Layout } from '../layout';
 import { decisionTrackParts, drawDecisionTrackPart, type TrackPart } from '../plots/decision-track';

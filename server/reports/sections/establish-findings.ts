@@ -1,4 +1,4 @@
-import type { LimitResult } from '../../../shared/stats';
+import type { LimitResult } from '@shared/stats';
 import { integer, num, orDash, percent, range, withUnit } from '../format';
 import type { Layout } from '../layout';
 import type { EstablishFindings, StudyReport } from '../report-model';

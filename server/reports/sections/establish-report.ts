@@ -1,5 +1,5 @@
-import { resolutionBins } from '../../../shared/types/plot-axes';
-import type { LimitResult } from '../../../shared/stats';
+import { resolutionBins } from '@shared/types/plot-axes';
+import type { LimitResult } from '@shared/stats';
 import type { Layout } from '../layout';
 import { histogramPlot } from '../plots/histogram-plot';
 import { plotRow } from '../plots/plot-box';
@@ -13,7 +13,7 @@ import { decimalsOf, isNumber } from './comparison-data';
 import { signatureBlock } from './signature';
 import { studyBlock } from './title';
 import { establishFindings } from './establish-findings';
-import { plural } from '../../../shared/types/plural';
+import { plural } from '@shared/types/plural';
 import { establishScreening } from './establish-screening';
 import { intervalPlan } from './interval-plan';
 import { intervalRows, exclusions } from './specimen-rows';

@@ -1,6 +1,6 @@
-import { ESTABLISH_GRID, planEstablish } from '../../../shared/stats/plan-establish';
-import { allowedOutside, planTransference } from '../../../shared/stats/plan-transference';
-import { binomialRankCi } from '../../../shared/stats/rank-ci';
+import { ESTABLISH_GRID, planEstablish } from '@shared/stats/plan-establish';
+import { allowedOutside, planTransference } from '@shared/stats/plan-transference';
+import { binomialRankCi } from '@shared/stats/rank-ci';
 import { integer, num, orDash, percent, withUnit } from '../format';
 import type { Layout } from '../layout';
 import type { StudyReport } from '../report-model';

@@ -1,7 +1,7 @@
 import { num, orDash, withUnit } from '../format';
 import type { Layout } from '../layout';
 import type { StudyReport } from '../report-model';
-import { laboratoryTime } from '../../../shared/types/lab-time';
+import { laboratoryTime } from '@shared/types/lab-time';
 import { decimalsOf } from './comparison-data';
 import { samplePlanSection } from './sample-plan';
 

@@ -1,6 +1,6 @@
-import { DEMING_RATIO_CONVENTION } from '../../../shared/stats';
-import type { ComparisonPlanResult, ResolvedComparisonPlan } from '../../../shared/stats/plan-comparison';
-import { laboratoryTime } from '../../../shared/types/lab-time';
+import { DEMING_RATIO_CONVENTION } from '@shared/stats';
+import type { ComparisonPlanResult, ResolvedComparisonPlan } from '@shared/stats/plan-comparison';
+import { laboratoryTime } from '@shared/types/lab-time';
 import { integer, num, orDash, percent, withUnit } from '../format';
 import type { Layout } from '../layout';
 import { plotRow } from '../plots/plot-box';

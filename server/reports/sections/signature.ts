@@ -2,7 +2,7 @@ import type { Layout } from '../layout';
 import type { StudyReport } from '../report-model';
 import { drawText, measure } from '../text';
 import { COLOR, SIZE } from '../theme';
-import { laboratoryTime } from '../../../shared/types/lab-time';
+import { laboratoryTime } from '@shared/types/lab-time';
 import { MEANING_WORDS } from '../words';
 
 const PAD = 8;

@@ -1,4 +1,4 @@
-import { kindMeta } from '../../../shared/kinds/kinds';
+import { kindMeta } from '@shared/kinds/kinds';
 import { num, orDash } from '../format';
 import type { Layout } from '../layout';
 import type { ReportRow, StudyReport } from '../report-model';

@@ -1,13 +1,13 @@
 import { integer, orDash } from '../format';
-import { plural } from '../../../shared/types/plural';
+import { plural } from '@shared/types/plural';
 import type { Layout } from '../layout';
 import type { InstrumentInfo, StudyReport } from '../report-model';
 import { drawTable } from '../table';
 import { drawText } from '../text';
 import { COLOR, SIZE } from '../theme';
-import { laboratoryTime } from '../../../shared/types/lab-time';
+import { laboratoryTime } from '@shared/types/lab-time';
 import { STATE_WORDS } from '../words';
-import { kindMeta } from '../../../shared/kinds/kinds';
+import { kindMeta } from '@shared/kinds/kinds';
 
 /** The first lines: laboratory, kind of study, title, identity and state. */
 export function titleBlock(layout: Layout, report: StudyReport): void {

@@ -7,7 +7,7 @@ import { amendments } from './amendments';
 import { cautionCallout } from './caution';
 import { decimalsOf, isNumber } from './comparison-data';
 import { intervalPlan } from './interval-plan';
-import { nounFor, plural } from '../../../shared/types/plural';
+import { nounFor, plural } from '@shared/types/plural';
 import { signatureBlock } from './signature';
 import { exclusions, intervalRows } from './specimen-rows';
 import { studyBlock } from './title';

@@ -1,8 +1,8 @@
 import { createHash } from 'node:crypto';
-import { StudySettings, type StudySettingsPatch } from '../../../shared/schemas';
-import { analyzeComparison, analyzeInterval, verifyInterval } from '../../../shared/stats';
-import { planOptionsFor, SamplePlan } from '../../../shared/kinds/method-comparison/sample-plan';
-import { planComparison } from '../../../shared/stats/plan-comparison';
+import { StudySettings, type StudySettingsPatch } from '@shared/schemas';
+import { analyzeComparison, analyzeInterval, verifyInterval } from '@shared/stats';
+import { planOptionsFor, SamplePlan } from '@shared/kinds/method-comparison/sample-plan';
+import { planComparison } from '@shared/stats/plan-comparison';
 import type { ReportRow, StudyReport } from '../report-model';
 
 /**

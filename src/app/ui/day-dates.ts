@@ -2,7 +2,7 @@ import { Directive, Injectable, NgModule, inject } from '@angular/core';
 import { DateAdapter, MAT_DATE_FORMATS, MatDateFormats } from '@angular/material/core';
 import { MatDatepickerModule } from '@angular/material/datepicker';
 import { MatInput } from '@angular/material/input';
-import { isCalendarDay, laboratoryDate } from '../../../shared/types/lab-time';
+import { isCalendarDay, laboratoryDate } from '@shared/types/lab-time';
 import { AuthStore } from '../core/auth/auth-store';
 
 /**

@@ -1,5 +1,5 @@
 import { Pipe, PipeTransform, Signal, computed, inject } from '@angular/core';
-import { laboratoryTime } from '../../../shared/types/lab-time';
+import { laboratoryTime } from '@shared/types/lab-time';
 import { AuthStore } from '../core/auth/auth-store';
 
 /** The signed-in laboratory's time zone (UTC until the session is known). */

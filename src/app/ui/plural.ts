@@ -1,5 +1,5 @@
 import { Pipe, PipeTransform } from '@angular/core';
-import { plural } from '../../../shared/types/plural';
+import { plural } from '@shared/types/plural';
 
 /** A count with its noun in a template: {{ n | plural: 'row' }} → "1 row", "3 rows" (see shared/types/plural). */
 @Pipe({ name: 'plural' })

@@ -1,6 +1,6 @@
 import { Pipe, PipeTransform } from '@angular/core';
-import type { Role } from '../../../shared/schemas';
-import { ROLE_LABELS, ROLES } from '../../../shared/schemas/role-names';
+import type { Role } from '@shared/schemas';
+import { ROLE_LABELS, ROLES } from '@shared/schemas/role-names';
 
 /** Role labels in the fixed order of ROLES, joined for reading: "Technologist, Laboratory director". */
 export function roleNames(roles: readonly Role[]): string {

@@ -1,6 +1,6 @@
 import { ValidatorFn } from '@angular/forms';
 import type { ZodType } from 'zod';
-import type { ApiIssue } from '../../../shared/schemas';
+import type { ApiIssue } from '@shared/schemas';
 
 /** A form validator that applies one shared zod schema, so a field says what the server would say. */
 export function schemaRule(schema: ZodType): ValidatorFn {

@@ -7,7 +7,7 @@ import type {
   PasswordResetAnswer,
   SessionUser,
   SignInBody,
-} from '../../../../shared/schemas';
+} from '@shared/schemas';
 
 /** The session and password routes of /api/v1 (relative URLs, so Angular adds the XSRF header). */
 @Injectable({ providedIn: 'root' })

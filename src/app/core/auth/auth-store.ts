@@ -1,6 +1,6 @@
 import { Injectable, computed, inject, signal } from '@angular/core';
 import { Observable, catchError, firstValueFrom, map, of, tap } from 'rxjs';
-import type { Role, SessionUser, SignInBody } from '../../../../shared/schemas';
+import type { Role, SessionUser, SignInBody } from '@shared/schemas';
 import { Notices } from '../notify/notices';
 import { AuthApi } from './auth-api';
 

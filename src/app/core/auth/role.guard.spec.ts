@@ -1,6 +1,6 @@
 import { TestBed } from '@angular/core/testing';
 import { ActivatedRouteSnapshot, RouterStateSnapshot, UrlTree, provideRouter } from '@angular/router';
-import type { Role } from '../../../../shared/schemas';
+import type { Role } from '@shared/schemas';
 import { provideSession, restoreSession, sessionUser } from '../../../testing/session-users';
 import { Notices } from '../notify/notices';
 import { authGuard } from './auth.guard';

@@ -1,6 +1,6 @@
 import { inject } from '@angular/core';
 import { CanActivateFn, Router } from '@angular/router';
-import type { Role } from '../../../../shared/schemas';
+import type { Role } from '@shared/schemas';
 import { Notices } from '../notify/notices';
 import { AuthStore } from './auth-store';
 

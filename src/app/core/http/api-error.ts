@@ -1,5 +1,5 @@
 import { HttpErrorResponse } from '@angular/common/http';
-import type { ApiErrorBody, ApiIssue } from '../../../../shared/schemas';
+import type { ApiErrorBody, ApiIssue } from '@shared/schemas';
 
 /** An API failure in the shape every page handles: the server's words, its field issues, the status. */
 export class ApiError extends Error {

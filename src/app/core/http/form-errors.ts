@@ -1,5 +1,5 @@
 import { AbstractControl, FormGroup } from '@angular/forms';
-import type { ApiIssue } from '../../../../shared/schemas';
+import type { ApiIssue } from '@shared/schemas';
 import { ApiError } from './api-error';
 
 /** Finds the control an issue path names: 'email', 'roles', 'decisionLevels.2' (falls back to 'decisionLevels'). */

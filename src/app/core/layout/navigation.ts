@@ -1,4 +1,4 @@
-import type { Role } from '../../../../shared/schemas';
+import type { Role } from '@shared/schemas';
 
 /** One entry of the side navigation. Features add theirs to NAVIGATION; the shell shows what roles allow. */
 export interface NavItem {

@@ -3,7 +3,7 @@ import { Injectable, inject } from '@angular/core';
 import { Observable } from 'rxjs';
 import type {
   Analyte, ArchivePage, Instrument, IntegrityReport, ReproduceReport, Signature, Study, Person,
-} from '../../../../shared/schemas';
+} from '@shared/schemas';
 import { ARCHIVE_URL, ArchiveFilter } from './archive-query';
 import { httpParams } from './query-params';
 

@@ -1,4 +1,4 @@
-import { ArchiveQuery } from '../../../../shared/schemas';
+import { ArchiveQuery } from '@shared/schemas';
 import { RawParams, httpParams, readQuery } from './query-params';
 
 /** The archive search as a page holds it: every field optional, empty ones left out of the address. */

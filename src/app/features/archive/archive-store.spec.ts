@@ -1,5 +1,5 @@
 import { TestBed } from '@angular/core/testing';
-import type { ArchiveItem } from '../../../../shared/schemas';
+import type { ArchiveItem } from '@shared/schemas';
 import { apiError, httpController, provideTestHttp } from '../../../testing/http';
 import { ArchiveStore } from './archive-store';
 

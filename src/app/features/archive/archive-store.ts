@@ -1,5 +1,5 @@
 import { Injectable, inject } from '@angular/core';
-import type { ArchiveItem } from '../../../../shared/schemas';
+import type { ArchiveItem } from '@shared/schemas';
 import { ArchiveApi } from './archive-api';
 import { ArchiveFilter } from './archive-query';
 import { PagedSearch } from './paged-search';

@@ -1,7 +1,7 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable } from 'rxjs';
-import type { AuditQuery, ChainCheckReport, HistoryEvent, HistoryPage } from '../../../../shared/schemas';
+import type { AuditQuery, ChainCheckReport, HistoryEvent, HistoryPage } from '@shared/schemas';
 import { studyUrl } from './archive-api';
 import { httpParams } from './query-params';
 

@@ -1,4 +1,4 @@
-import type { IntegrityReport, ReproduceReport } from '../../../../shared/schemas';
+import type { IntegrityReport, ReproduceReport } from '@shared/schemas';
 import { chainOutcome, engineLine, integrityOutcome, reproduceOutcome, showValue } from './recheck-words';
 
 const integrity = (passes: boolean[]): IntegrityReport => ({

@@ -1,5 +1,5 @@
-import type { ChainCheckReport, IntegrityReport, ReproduceReport } from '../../../../shared/schemas';
-import { plural } from '../../../../shared/types/plural';
+import type { ChainCheckReport, IntegrityReport, ReproduceReport } from '@shared/schemas';
+import { plural } from '@shared/types/plural';
 
 /** One line a re-check result opens with: an icon and words that say passed or failed on their own. */
 export interface Outcome {

@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
-import type { OverallVerdict } from '../../../../shared/schemas';
+import type { OverallVerdict } from '@shared/schemas';
 import { verdictView } from './verdict-view';
 
 /** A verdict as an icon and a word (the sentence on hover and for screen readers); the tint only repeats it. */

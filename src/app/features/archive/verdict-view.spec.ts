@@ -1,4 +1,4 @@
-import { VERDICTS } from '../../../../shared/schemas';
+import { VERDICTS } from '@shared/schemas';
 import { VERDICT_CHOICES, meaningWords, verdictView } from './verdict-view';
 
 describe('verdictView', () => {

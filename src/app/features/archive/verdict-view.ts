@@ -1,5 +1,5 @@
-import { VERDICTS, type OverallVerdict } from '../../../../shared/schemas';
-import { KIND_METAS } from '../../../../shared/kinds/kinds';
+import { VERDICTS, type OverallVerdict } from '@shared/schemas';
+import { KIND_METAS } from '@shared/kinds/kinds';
 
 /** How a study's overall verdict reads in the archive: an icon, a short word and a sentence; never colour alone. */
 export interface VerdictView {

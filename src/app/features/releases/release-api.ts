@@ -4,7 +4,7 @@ import { Observable } from 'rxjs';
 import type {
   ChangeType, CreateReleaseBody, DueItem, HistoryEvent, DueQuery, LinkStudyBody, Release, ReleaseIntegrityReport, ReleasePage, ReleaseQuery,
   ReleaseSignBody, ReleaseTemplate, StartFromDueBody, UpdateDueBody, UpdateReleaseBody, UpdateTemplateBody, WaiverBody,
-} from '../../../../shared/schemas';
+} from '@shared/schemas';
 
 /** Where a release's records are read and changed (relative URLs, so Angular adds the XSRF header to the writes). */
 export const releaseUrl = (id: number, rest = ''): string => `/api/v1/releases/${id}${rest}`;

@@ -1,5 +1,5 @@
-import type { BoardRequirement, ComponentStudy, DueItem, Release, ReleaseSummary, ReleaseTemplate } from '../../../../shared/schemas';
-import { RELEASE_CAUTION } from '../../../../shared/schemas';
+import type { BoardRequirement, ComponentStudy, DueItem, Release, ReleaseSummary, ReleaseTemplate } from '@shared/schemas';
+import { RELEASE_CAUTION } from '@shared/schemas';
 
 /** Invented records of the demo laboratory for the client's release tests, in the API's shapes. */
 

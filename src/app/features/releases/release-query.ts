@@ -1,4 +1,4 @@
-import { ReleaseQuery } from '../../../../shared/schemas';
+import { ReleaseQuery } from '@shared/schemas';
 import { RawParams, readQuery } from '../archive/query-params';
 
 /** The releases search as a page holds it: every field optional, empty ones left out of the address. */

@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
-import type { ReleaseState } from '../../../../shared/schemas';
+import type { ReleaseState } from '@shared/schemas';
 import { releaseStateBadge } from './release-words';
 
 /** A release's state as a chip: an icon and the words; the tint only repeats them. */

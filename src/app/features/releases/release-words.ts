@@ -1,7 +1,7 @@
 import {
   RELEASE_STATE_LABELS, REQUIREMENT_STATUS_LABELS, STUDY_KIND_LABELS, STUDY_STATE_LABELS,
   type ComponentStudy, type DueItem, type ReleaseState, type RequirementStatus, type StudyKind,
-} from '../../../../shared/schemas';
+} from '@shared/schemas';
 
 /** A state or status as the pages show it: an icon and words, never a colour alone (the tint only repeats it). */
 export interface Badge {

@@ -2,7 +2,7 @@ import { ChangeDetectionStrategy, Component, input, output } from '@angular/core
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatMenuModule } from '@angular/material/menu';
-import { STUDY_KIND_LABELS, type StudyKind } from '../../../../shared/schemas';
+import { STUDY_KIND_LABELS, type StudyKind } from '@shared/schemas';
 
 /** "Start study": one click when one kind of study fits, a choice of kinds when several do. */
 @Component({

@@ -1,4 +1,4 @@
-import type { Role } from '../../../../shared/schemas';
+import type { Role } from '@shared/schemas';
 import { StepStudy, mayDecide, nextStep, submitBlock } from './next-step';
 
 const draft: StepStudy = { state: 'draft', findings: 'current', supersededById: null, returnComment: null };

@@ -1,4 +1,4 @@
-import type { FindingsStatus, Role, Study } from '../../../../shared/schemas';
+import type { FindingsStatus, Role, Study } from '@shared/schemas';
 
 /**
  * Who may take which sign-off step, mirroring the server's rules: editors (technologist, director)

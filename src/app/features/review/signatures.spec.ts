@@ -1,4 +1,4 @@
-import type { Signature } from '../../../../shared/schemas';
+import type { Signature } from '@shared/schemas';
 import { analysisToShow, planApprovalOf, signOffOf } from './signatures';
 
 const sig = (id: number, meaning: Signature['meaning'], analysisId: number | null = null): Signature => ({

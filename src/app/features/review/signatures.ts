@@ -1,4 +1,4 @@
-import type { Signature, Study } from '../../../../shared/schemas';
+import type { Signature, Study } from '@shared/schemas';
 
 const lastWhere = (list: readonly Signature[], keep: (s: Signature) => boolean): Signature | null =>
   [...list].reverse().find(keep) ?? null;

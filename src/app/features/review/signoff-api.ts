@@ -1,7 +1,7 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable } from 'rxjs';
-import type { AmendBody, PlanApprovalBody, ReturnBody, SignBody, Signature, Study, SubmitBody } from '../../../../shared/schemas';
+import type { AmendBody, PlanApprovalBody, ReturnBody, SignBody, Signature, Study, SubmitBody } from '@shared/schemas';
 
 /** Where a study's PDF is: the signed one's exact bytes, or a fresh preview marked DRAFT. */
 export const reportUrl = (studyId: number): string => `/api/v1/studies/${studyId}/report.pdf`;

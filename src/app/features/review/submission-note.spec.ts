@@ -1,5 +1,5 @@
 import { TestBed } from '@angular/core/testing';
-import type { Study } from '../../../../shared/schemas';
+import type { Study } from '@shared/schemas';
 import { provideTestHttp } from '../../../testing/http';
 import { provideSession, restoreSession, sessionUser } from '../../../testing/session-users';
 import { SubmissionNote } from './submission-note';

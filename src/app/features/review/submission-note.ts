@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
-import type { Study } from '../../../../shared/schemas';
+import type { Study } from '@shared/schemas';
 import { ZonedPipe, labZone } from '../../ui/lab-time';
 
 /** The note the technologist sent with the submission, near the top of the review page; nothing without one. */

@@ -1,5 +1,5 @@
-import type { FindingsStatus, StudySettings, StudySummary } from '../../../../shared/schemas';
-import { STUDY_KIND_LABELS, STUDY_STATE_LABELS } from '../../../../shared/schemas';
+import type { FindingsStatus, StudySettings, StudySummary } from '@shared/schemas';
+import { STUDY_KIND_LABELS, STUDY_STATE_LABELS } from '@shared/schemas';
 
 export const DIFFERENCE_LABELS: Record<StudySettings['differenceType'], string> = {
   absolute: 'Absolute: y − x',

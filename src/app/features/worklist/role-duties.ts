@@ -1,5 +1,5 @@
-import type { Role } from '../../../../shared/schemas';
-import { ROLE_LABELS, ROLES } from '../../../../shared/schemas/roles';
+import type { Role } from '@shared/schemas';
+import { ROLE_LABELS, ROLES } from '@shared/schemas/roles';
 
 /** What each role is for in a laboratory using Parallax, in one sentence. */
 export const ROLE_DUTIES: Record<Role, string> = {

@@ -1,5 +1,5 @@
 import { AbstractControl, FormControl, FormGroup, ValidatorFn, Validators } from '@angular/forms';
-import { NewPassword } from '../../../../shared/schemas/common.schema';
+import { NewPassword } from '@shared/schemas/common.schema';
 import { schemaRule } from '../schema-rule';
 
 export type NewPasswordGroup = FormGroup<{ password: FormControl<string>; repeat: FormControl<string> }>;

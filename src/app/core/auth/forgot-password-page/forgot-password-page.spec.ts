@@ -2,7 +2,7 @@ import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { TestBed } from '@angular/core/testing';
 import { MatButtonHarness } from '@angular/material/button/testing';
 import { MatInputHarness } from '@angular/material/input/testing';
-import { PASSWORD_RESET_ANSWER } from '../../../../../shared/schemas';
+import { PASSWORD_RESET_ANSWER } from '@shared/schemas';
 import { apiError, httpController, provideTestHttp } from '../../../../testing/http';
 import { ForgotPasswordPage } from './forgot-password-page';
 

@@ -4,7 +4,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatCardModule } from '@angular/material/card';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { Router, RouterLink } from '@angular/router';
-import type { PasswordLinkInfo } from '../../../../../shared/schemas';
+import type { PasswordLinkInfo } from '@shared/schemas';
 import { ErrorBanner } from '../../../ui/error-banner';
 import { ZonedPipe } from '../../../ui/lab-time';
 import { NewPasswordFields } from '../../../ui/new-password/new-password-fields';

@@ -1,7 +1,7 @@
 import { TestBed } from '@angular/core/testing';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { Router, provideRouter } from '@angular/router';
-import type { Role } from '../../../../../shared/schemas';
+import type { Role } from '@shared/schemas';
 import { httpController, noAnimations, provideTestHttp } from '../../../../testing/http';
 import { provideSession, restoreSession, sessionUser } from '../../../../testing/session-users';
 import { AuthStore } from '../../auth/auth-store';

@@ -1,4 +1,4 @@
-import type { Analyte } from '../../../../../shared/schemas';
+import type { Analyte } from '@shared/schemas';
 
 /** The allowable bias in words: "± 0.3 mmol/L", "± 5 %", or both joined with "or". */
 export function allowableBiasText(analyte: Pick<Analyte, 'allowableBiasAbsolute' | 'allowableBiasPercent' | 'unit'>): string {

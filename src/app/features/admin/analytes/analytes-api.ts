@@ -1,5 +1,5 @@
 import { Injectable } from '@angular/core';
-import type { Analyte, AnalyteBody } from '../../../../../shared/schemas';
+import type { Analyte, AnalyteBody } from '@shared/schemas';
 import { CatalogApi } from '../catalog/catalog-api';
 
 @Injectable({ providedIn: 'root' })

@@ -1,5 +1,5 @@
 import { Injectable, inject } from '@angular/core';
-import type { Analyte, AnalyteBody } from '../../../../../shared/schemas';
+import type { Analyte, AnalyteBody } from '@shared/schemas';
 import { CatalogStore } from '../catalog/catalog-store';
 import { AnalytesApi } from './analytes-api';
 

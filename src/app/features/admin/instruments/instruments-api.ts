@@ -1,5 +1,5 @@
 import { Injectable } from '@angular/core';
-import type { Instrument, InstrumentBody } from '../../../../../shared/schemas';
+import type { Instrument, InstrumentBody } from '@shared/schemas';
 import { CatalogApi } from '../catalog/catalog-api';
 
 @Injectable({ providedIn: 'root' })

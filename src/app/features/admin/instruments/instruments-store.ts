@@ -1,5 +1,5 @@
 import { Injectable, inject } from '@angular/core';
-import type { Instrument, InstrumentBody } from '../../../../../shared/schemas';
+import type { Instrument, InstrumentBody } from '@shared/schemas';
 import { CatalogStore } from '../catalog/catalog-store';
 import { InstrumentsApi } from './instruments-api';
 

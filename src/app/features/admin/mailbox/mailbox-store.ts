@@ -1,7 +1,7 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable } from 'rxjs';
-import type { MailMessage } from '../../../../../shared/schemas';
+import type { MailMessage } from '@shared/schemas';
 import { ListStore } from '../catalog/list-store';
 
 /** GET /api/v1/mailbox: the e-mails Parallax has sent, newest first. */

@@ -3,7 +3,7 @@ import { FormGroup, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { CHANGE_TYPE_LABELS, type ChangeType, type ReleaseTemplate } from '../../../../../shared/schemas';
+import { CHANGE_TYPE_LABELS, type ChangeType, type ReleaseTemplate } from '@shared/schemas';
 import { ApiError } from '../../../core/http/api-error';
 import { showApiError } from '../../../core/http/form-errors';
 import { Notices } from '../../../core/notify/notices';

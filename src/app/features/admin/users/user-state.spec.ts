@@ -1,4 +1,4 @@
-import type { User } from '../../../../../shared/schemas';
+import type { User } from '@shared/schemas';
 import { userState } from './user-state';
 
 const base: User = {

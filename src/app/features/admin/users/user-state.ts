@@ -1,5 +1,5 @@
-import type { User } from '../../../../../shared/schemas';
-import { laboratoryTime } from '../../../../../shared/types/lab-time';
+import type { User } from '@shared/schemas';
+import { laboratoryTime } from '@shared/types/lab-time';
 
 export type UserStateKind = 'active' | 'invited' | 'locked' | 'deactivated';
 

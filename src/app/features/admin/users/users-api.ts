@@ -1,7 +1,7 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable } from 'rxjs';
-import type { InviteUserBody, UpdateUserBody, User } from '../../../../../shared/schemas';
+import type { InviteUserBody, UpdateUserBody, User } from '@shared/schemas';
 
 /** /api/v1/users: the laboratory's accounts. */
 @Injectable({ providedIn: 'root' })

@@ -1,6 +1,6 @@
 import { Injectable, inject } from '@angular/core';
 import { Observable } from 'rxjs';
-import type { InviteUserBody, UpdateUserBody, User } from '../../../../../shared/schemas';
+import type { InviteUserBody, UpdateUserBody, User } from '@shared/schemas';
 import { ListStore } from '../catalog/list-store';
 import { UsersApi } from './users-api';
 

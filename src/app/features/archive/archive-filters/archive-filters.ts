@@ -2,7 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, inject, input, output } f
 import { toSignal } from '@angular/core/rxjs-interop';
 import { FormBuilder } from '@angular/forms';
 import { catchError, of } from 'rxjs';
-import { STUDY_KIND_LABELS, STUDY_STATE_LABELS } from '../../../../../shared/schemas';
+import { STUDY_KIND_LABELS, STUDY_STATE_LABELS } from '@shared/schemas';
 import { ArchiveApi } from '../archive-api';
 import { ArchiveFilter } from '../archive-query';
 import { datesInOrder } from '../date-range';

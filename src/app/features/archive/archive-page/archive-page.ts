@@ -6,7 +6,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSortModule } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { Router, RouterLink } from '@angular/router';
-import { ArchiveQuery, STUDY_KIND_LABELS, STUDY_STATE_LABELS, type ArchiveItem } from '../../../../../shared/schemas';
+import { ArchiveQuery, STUDY_KIND_LABELS, STUDY_STATE_LABELS, type ArchiveItem } from '@shared/schemas';
 import { ApiError } from '../../../core/http/api-error';
 import { ErrorBanner } from '../../../ui/error-banner';
 import { ARCHIVE_KEYS, ARCHIVE_PAGE_SIZE, archiveExportUrl, archiveFilterFrom } from '../archive-query';

@@ -1,6 +1,6 @@
 import { DestroyRef, Injectable, computed, inject, signal } from '@angular/core';
 import { Subject, catchError, forkJoin, map, of, switchMap, tap } from 'rxjs';
-import type { Signature, Study } from '../../../../../shared/schemas';
+import type { Signature, Study } from '@shared/schemas';
 import { ApiError } from '../../../core/http/api-error';
 import { ArchiveApi } from '../archive-api';
 

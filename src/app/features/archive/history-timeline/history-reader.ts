@@ -1,7 +1,7 @@
 import { Signal, computed, signal } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { Observable, catchError, map, of, startWith, switchMap } from 'rxjs';
-import type { HistoryEvent } from '../../../../../shared/schemas';
+import type { HistoryEvent } from '@shared/schemas';
 import { ApiError } from '../../../core/http/api-error';
 
 /** A history as read so far: its events, whether a read is under way, and the server's words when it failed. */

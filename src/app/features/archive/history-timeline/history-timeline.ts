@@ -2,7 +2,7 @@ import { ChangeDetectionStrategy, Component, input, signal } from '@angular/core
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
-import type { HistoryEvent } from '../../../../../shared/schemas';
+import type { HistoryEvent } from '@shared/schemas';
 import { actionIcon } from '../history-actions';
 import { ZonedPipe, labZone } from '../../../ui/lab-time';
 

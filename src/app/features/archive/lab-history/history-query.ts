@@ -1,4 +1,4 @@
-import { AuditQuery } from '../../../../../shared/schemas';
+import { AuditQuery } from '@shared/schemas';
 import type { HistoryFilter } from '../history-api';
 import { RawParams, readQuery } from '../query-params';
 

@@ -10,7 +10,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatPaginatorModule, PageEvent } from '@angular/material/paginator';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
-import type { AuditQuery } from '../../../../../shared/schemas';
+import type { AuditQuery } from '@shared/schemas';
 import { DayDates } from '../../../ui/day-dates';
 import { ErrorBanner } from '../../../ui/error-banner';
 import { labZone } from '../../../ui/lab-time';

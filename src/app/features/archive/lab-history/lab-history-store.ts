@@ -1,5 +1,5 @@
 import { Injectable, inject } from '@angular/core';
-import type { HistoryEvent } from '../../../../../shared/schemas';
+import type { HistoryEvent } from '@shared/schemas';
 import { HistoryApi, HistoryFilter } from '../history-api';
 import { PagedSearch } from '../paged-search';
 

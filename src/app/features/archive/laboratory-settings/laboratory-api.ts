@@ -1,7 +1,7 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable } from 'rxjs';
-import type { LaboratorySettings } from '../../../../../shared/schemas';
+import type { LaboratorySettings } from '@shared/schemas';
 
 /** The laboratory's rules as the server keeps them, with its name. */
 export type Laboratory = LaboratorySettings & { name: string };

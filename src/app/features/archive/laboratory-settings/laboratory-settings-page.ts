@@ -15,7 +15,7 @@ import { showApiError } from '../../../core/http/form-errors';
 import { Notices } from '../../../core/notify/notices';
 import { ErrorBanner } from '../../../ui/error-banner';
 import { FieldErrorPipe } from '../../../ui/field-error';
-import { laboratoryTime } from '../../../../../shared/types/lab-time';
+import { laboratoryTime } from '@shared/types/lab-time';
 import { LaboratoryApi, type Laboratory } from './laboratory-api';
 import { isTimeZone, knownTimeZones, matchingZones, timeZoneRule } from './time-zones';
 

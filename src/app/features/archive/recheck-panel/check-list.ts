@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
-import type { CheckResult } from '../../../../../shared/schemas';
+import type { CheckResult } from '@shared/schemas';
 
 /** The checks of a re-check, one per line: an icon and "passed" or "failed" in words, then the detail. */
 @Component({

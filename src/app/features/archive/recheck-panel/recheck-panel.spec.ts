@@ -1,5 +1,5 @@
 import { TestBed } from '@angular/core/testing';
-import type { IntegrityReport, ReproduceReport } from '../../../../../shared/schemas';
+import type { IntegrityReport, ReproduceReport } from '@shared/schemas';
 import { apiError, httpController, provideTestHttp } from '../../../../testing/http';
 import { RecheckPanel } from './recheck-panel';
 

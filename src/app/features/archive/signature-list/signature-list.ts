@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
-import type { Signature } from '../../../../../shared/schemas';
+import type { Signature } from '@shared/schemas';
 import { ZonedPipe, labZone } from '../../../ui/lab-time';
 
 const ICONS: Record<Signature['meaning'], string> = { accepted: 'verified', 'not-accepted': 'block', 'plan-approved': 'task_alt' };

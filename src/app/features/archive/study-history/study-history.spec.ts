@@ -1,5 +1,5 @@
 import { TestBed } from '@angular/core/testing';
-import type { HistoryEvent } from '../../../../../shared/schemas';
+import type { HistoryEvent } from '@shared/schemas';
 import { apiError, httpController, provideTestHttp } from '../../../../testing/http';
 import { provideSession, restoreSession, sessionUser } from '../../../../testing/session-users';
 import { StudyHistory } from './study-history';

@@ -1,7 +1,7 @@
 import { ChangeDetectionStrategy, Component, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
-import { STUDY_KIND_LABELS, STUDY_STATE_LABELS, type Study } from '../../../../../shared/schemas';
+import { STUDY_KIND_LABELS, STUDY_STATE_LABELS, type Study } from '@shared/schemas';
 import { ZonedPipe, labZone } from '../../../ui/lab-time';
 
 /** What a study is, read-only: kind, analyte, instruments, state, and the amendments it belongs to. */

@@ -3,7 +3,7 @@ import { TestBed } from '@angular/core/testing';
 import { MAT_DIALOG_DATA, MatDialogRef } from '@angular/material/dialog';
 import { MatInputHarness } from '@angular/material/input/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
-import type { Role } from '../../../../../shared/schemas';
+import type { Role } from '@shared/schemas';
 import { apiError, httpController, noAnimations, provideTestHttp } from '../../../../testing/http';
 import { provideSession, restoreSession, sessionUser } from '../../../../testing/session-users';
 import { release, templates } from '../release-fixtures.testing';

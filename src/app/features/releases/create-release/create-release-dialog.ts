@@ -10,7 +10,7 @@ import { MatSelectModule } from '@angular/material/select';
 import { catchError, map, of, startWith } from 'rxjs';
 import {
   CHANGE_TYPE_LABELS, CreateReleaseBody, type ChangeType, type Release, type ReleaseTemplate,
-} from '../../../../../shared/schemas';
+} from '@shared/schemas';
 import { AuthStore } from '../../../core/auth/auth-store';
 import { ErrorBanner } from '../../../ui/error-banner';
 import { FieldErrorPipe } from '../../../ui/field-error';

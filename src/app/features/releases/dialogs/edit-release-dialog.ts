@@ -5,7 +5,7 @@ import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/materia
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
-import { UpdateReleaseBody, type Release } from '../../../../../shared/schemas';
+import { UpdateReleaseBody, type Release } from '@shared/schemas';
 import { ErrorBanner } from '../../../ui/error-banner';
 import { FieldErrorPipe } from '../../../ui/field-error';
 import { schemaRule } from '../../../ui/schema-rule';

@@ -7,7 +7,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatRadioModule } from '@angular/material/radio';
 import { catchError, map, of, startWith } from 'rxjs';
-import { STUDY_KIND_LABELS, STUDY_STATE_LABELS, type Release, type StudyKind, type StudySummary } from '../../../../../shared/schemas';
+import { STUDY_KIND_LABELS, STUDY_STATE_LABELS, type Release, type StudyKind, type StudySummary } from '@shared/schemas';
 import { ApiError } from '../../../core/http/api-error';
 import { ErrorBanner } from '../../../ui/error-banner';
 import { DialogSend } from '../../review/dialogs/dialog-send';

@@ -1,7 +1,7 @@
 import { TestBed } from '@angular/core/testing';
 import { Router } from '@angular/router';
-import type { Role } from '../../../../../shared/schemas';
-import { laboratoryDate } from '../../../../../shared/types/lab-time';
+import type { Role } from '@shared/schemas';
+import { laboratoryDate } from '@shared/types/lab-time';
 import { apiError, httpController, noAnimations, provideTestHttp } from '../../../../testing/http';
 import { provideSession, restoreSession, sessionUser } from '../../../../testing/session-users';
 import { dueItem, templates } from '../release-fixtures.testing';

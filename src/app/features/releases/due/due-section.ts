@@ -6,7 +6,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { Router, RouterLink } from '@angular/router';
 import { catchError, filter, map, of, startWith } from 'rxjs';
-import { STUDY_KINDS, type DueItem, type Release, type StudyKind } from '../../../../../shared/schemas';
+import { STUDY_KINDS, type DueItem, type Release, type StudyKind } from '@shared/schemas';
 import { AuthStore } from '../../../core/auth/auth-store';
 import { ApiError } from '../../../core/http/api-error';
 import { Notices } from '../../../core/notify/notices';

@@ -1,6 +1,6 @@
 import { TestBed } from '@angular/core/testing';
 import { Router } from '@angular/router';
-import type { Release, Role } from '../../../../../shared/schemas';
+import type { Release, Role } from '@shared/schemas';
 import { apiError, httpController, noAnimations, provideTestHttp } from '../../../../testing/http';
 import { provideSession, restoreSession, sessionUser } from '../../../../testing/session-users';
 import { boardRequirement, componentStudy, dueItem, release } from '../release-fixtures.testing';

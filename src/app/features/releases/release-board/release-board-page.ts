@@ -5,7 +5,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { Router, RouterLink } from '@angular/router';
 import { Observable, filter } from 'rxjs';
-import { CHANGE_TYPE_LABELS, type BoardRequirement, type ComponentStudy, type DueItem, type Release, type StudyKind } from '../../../../../shared/schemas';
+import { CHANGE_TYPE_LABELS, type BoardRequirement, type ComponentStudy, type DueItem, type Release, type StudyKind } from '@shared/schemas';
 import { AuthStore } from '../../../core/auth/auth-store';
 import { Notices } from '../../../core/notify/notices';
 import { ConfirmData, ConfirmDialog } from '../../../ui/confirm-dialog/confirm-dialog';

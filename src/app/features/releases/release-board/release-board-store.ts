@@ -1,6 +1,6 @@
 import { DestroyRef, Injectable, computed, inject, signal } from '@angular/core';
 import { Observable, Subject, catchError, map, of, switchMap, tap } from 'rxjs';
-import type { Release } from '../../../../../shared/schemas';
+import type { Release } from '@shared/schemas';
 import { ApiError } from '../../../core/http/api-error';
 import { ReleaseApi } from '../release-api';
 

@@ -1,5 +1,5 @@
 import { TestBed } from '@angular/core/testing';
-import type { ReleaseIntegrityReport } from '../../../../../shared/schemas';
+import type { ReleaseIntegrityReport } from '@shared/schemas';
 import { httpController, provideTestHttp } from '../../../../testing/http';
 import { boardRequirement } from '../release-fixtures.testing';
 import { ReleaseIntegrity, releaseIntegrityOutcome } from './release-integrity';

@@ -2,8 +2,8 @@ import { ChangeDetectionStrategy, Component, computed, inject, input, output } f
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import type { BoardRequirement, ReleaseIntegrityReport } from '../../../../../shared/schemas';
-import { plural } from '../../../../../shared/types/plural';
+import type { BoardRequirement, ReleaseIntegrityReport } from '@shared/schemas';
+import { plural } from '@shared/types/plural';
 import { ErrorBanner } from '../../../ui/error-banner';
 import { ZonedPipe, labZone } from '../../../ui/lab-time';
 import { CheckList } from '../../archive/recheck-panel/check-list';

@@ -2,7 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, input, output } from '@an
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
-import { STUDY_KIND_LABELS, type BoardRequirement, type ComponentStudy, type StudyKind } from '../../../../../shared/schemas';
+import { STUDY_KIND_LABELS, type BoardRequirement, type ComponentStudy, type StudyKind } from '@shared/schemas';
 import { ZonedPipe, labZone } from '../../../ui/lab-time';
 import { meaningWords } from '../../archive/verdict-view';
 import { kindsWords, requirementBadge, studyLink, studyStateWord } from '../release-words';

@@ -2,7 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, inject, input, output } f
 import { toSignal } from '@angular/core/rxjs-interop';
 import { FormBuilder } from '@angular/forms';
 import { catchError, of } from 'rxjs';
-import { CHANGE_TYPE_LABELS, RELEASE_STATE_LABELS } from '../../../../../shared/schemas';
+import { CHANGE_TYPE_LABELS, RELEASE_STATE_LABELS } from '@shared/schemas';
 import { datesInOrder } from '../../archive/date-range';
 import { syncForm } from '../../archive/form-sync';
 import { DayRange, SearchChoice, SearchFilters } from '../../archive/search-filters/search-filters';

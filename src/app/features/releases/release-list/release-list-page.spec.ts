@@ -1,7 +1,7 @@
 import { TestBed } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
 import { RouterTestingHarness } from '@angular/router/testing';
-import type { Role } from '../../../../../shared/schemas';
+import type { Role } from '@shared/schemas';
 import { httpController, noAnimations, provideTestHttp } from '../../../../testing/http';
 import { provideSession, restoreSession, sessionUser } from '../../../../testing/session-users';
 import { releaseSummary } from '../release-fixtures.testing';

@@ -8,7 +8,7 @@ import { MatSortModule } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { Router, RouterLink } from '@angular/router';
 import { filter } from 'rxjs';
-import { CHANGE_TYPE_LABELS, RELEASE_CAUTION, ReleaseQuery, type Release, type ReleaseSummary } from '../../../../../shared/schemas';
+import { CHANGE_TYPE_LABELS, RELEASE_CAUTION, ReleaseQuery, type Release, type ReleaseSummary } from '@shared/schemas';
 import { AuthStore } from '../../../core/auth/auth-store';
 import { ApiError } from '../../../core/http/api-error';
 import { ErrorBanner } from '../../../ui/error-banner';

@@ -1,5 +1,5 @@
 import { Injectable, inject } from '@angular/core';
-import type { ReleaseSummary } from '../../../../../shared/schemas';
+import type { ReleaseSummary } from '@shared/schemas';
 import { PagedSearch } from '../../archive/paged-search';
 import { ReleaseApi } from '../release-api';
 import { ReleaseFilter } from '../release-query';

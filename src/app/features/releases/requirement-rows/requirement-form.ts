@@ -1,5 +1,5 @@
 import { FormArray, FormControl, FormGroup } from '@angular/forms';
-import { DueRule, keyFrom, Requirement, type StudyKind } from '../../../../../shared/schemas';
+import { DueRule, keyFrom, Requirement, type StudyKind } from '@shared/schemas';
 
 export { keyFrom };
 import { schemaRule } from '../../../ui/schema-rule';

@@ -5,7 +5,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
-import { STUDY_KIND_LABELS } from '../../../../../shared/schemas';
+import { STUDY_KIND_LABELS } from '@shared/schemas';
 import { FieldErrorPipe } from '../../../ui/field-error';
 import { RequirementGroup, requirementGroup } from './requirement-form';
 

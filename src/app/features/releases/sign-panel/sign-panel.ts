@@ -7,7 +7,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatRadioModule } from '@angular/material/radio';
 import { startWith } from 'rxjs';
-import { RELEASE_MEANING_WORDS, type Release, type ReleaseMeaning } from '../../../../../shared/schemas';
+import { RELEASE_MEANING_WORDS, type Release, type ReleaseMeaning } from '@shared/schemas';
 import { AuthStore } from '../../../core/auth/auth-store';
 import { ApiError } from '../../../core/http/api-error';
 import { showApiError } from '../../../core/http/form-errors';

@@ -5,7 +5,7 @@ import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/materia
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
-import { SUBMISSION_NOTE_MAX, SubmitBody } from '../../../../../shared/schemas';
+import { SUBMISSION_NOTE_MAX, SubmitBody } from '@shared/schemas';
 import { FieldErrorPipe } from '../../../ui/field-error';
 import { schemaRule } from '../../../ui/schema-rule';
 

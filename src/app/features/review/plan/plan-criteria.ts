@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
-import type { HistoryEvent, Signature, Study } from '../../../../../shared/schemas';
+import type { HistoryEvent, Signature, Study } from '@shared/schemas';
 import { ZonedPipe, labZone } from '../../../ui/lab-time';
 import { planRows } from './plan-rows';
 

@@ -1,4 +1,4 @@
-import type { Study, StudySettings } from '../../../../../shared/schemas';
+import type { Study, StudySettings } from '@shared/schemas';
 import { formatNumber, levelLabel } from '../../studies/findings/comparison/number-format';
 import { INTERVAL_LABELS } from '../../studies/study-text';
 

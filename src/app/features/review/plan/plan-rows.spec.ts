@@ -1,4 +1,4 @@
-import { StudySettings, type Study } from '../../../../../shared/schemas';
+import { StudySettings, type Study } from '@shared/schemas';
 import { allowableBiasText, planRows } from './plan-rows';
 
 const settings = (patch: Partial<StudySettings> = {}): StudySettings => ({ ...StudySettings.parse({}), unit: 'mmol/L', decimals: 1, ...patch });

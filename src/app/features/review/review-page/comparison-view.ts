@@ -1,4 +1,4 @@
-import type { Analysis, Study } from '../../../../../shared/schemas';
+import type { Analysis, Study } from '@shared/schemas';
 import { PlotPoint, plotPoints } from '../../studies/findings/charts/plot-points';
 import { ComparisonFindingsResult, Units, asComparison, unitsOf } from '../../studies/findings/comparison/comparison-result';
 import type { GridRow } from '../../studies/specimens/specimen-layout';

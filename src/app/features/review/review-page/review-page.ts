@@ -6,7 +6,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
 import { filter } from 'rxjs';
-import type { Study } from '../../../../../shared/schemas';
+import type { Study } from '@shared/schemas';
 import { AuthStore } from '../../../core/auth/auth-store';
 import { Notices } from '../../../core/notify/notices';
 import { ErrorBanner } from '../../../ui/error-banner';

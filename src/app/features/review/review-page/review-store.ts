@@ -1,7 +1,7 @@
 import { Injectable, computed, effect, inject, signal, untracked } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { Observable, Subject, catchError, forkJoin, map, of, switchMap } from 'rxjs';
-import type { Analysis, HistoryEvent, Signature, Study } from '../../../../../shared/schemas';
+import type { Analysis, HistoryEvent, Signature, Study } from '@shared/schemas';
 import { ApiError } from '../../../core/http/api-error';
 import { HistoryApi } from '../../archive/history-api';
 import { AnalysesApi } from '../../studies/api/analyses-api';

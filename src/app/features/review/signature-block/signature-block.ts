@@ -1,7 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
-import type { Signature } from '../../../../../shared/schemas';
+import type { Signature } from '@shared/schemas';
 import { SignatureList } from '../../archive/signature-list/signature-list';
 import { reportUrl } from '../signoff-api';
 

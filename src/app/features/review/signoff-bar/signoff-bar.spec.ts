@@ -1,8 +1,8 @@
 import { TestBed } from '@angular/core/testing';
-import { StudySettings, type Study } from '../../../../../shared/schemas';
+import { StudySettings, type Study } from '@shared/schemas';
 import { apiError, httpController, noAnimations, provideTestHttp } from '../../../../testing/http';
 import { provideSession, restoreSession, sessionUser } from '../../../../testing/session-users';
-import type { Role } from '../../../../../shared/schemas';
+import type { Role } from '@shared/schemas';
 import { StudyStore } from '../../studies/study/study-store';
 import { SignoffBar } from './signoff-bar';
 

@@ -1,7 +1,7 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable } from 'rxjs';
-import type { Analysis } from '../../../../../shared/schemas';
+import type { Analysis } from '@shared/schemas';
 
 /** Queue an analysis of a study, and read one analysis (its state, progress and results). */
 @Injectable({ providedIn: 'root' })

@@ -1,7 +1,7 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable, forkJoin } from 'rxjs';
-import type { Analyte, Instrument } from '../../../../../shared/schemas';
+import type { Analyte, Instrument } from '@shared/schemas';
 
 export interface StudyCatalog {
   analytes: Analyte[];

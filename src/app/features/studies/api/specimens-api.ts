@@ -1,7 +1,7 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable } from 'rxjs';
-import type { ImportBody, SpecimenRows, UploadPreview } from '../../../../../shared/schemas';
+import type { ImportBody, SpecimenRows, UploadPreview } from '@shared/schemas';
 
 /** What PUT /specimens takes: the whole list of rows, with the version they were edited from. */
 export interface PutSpecimens {

@@ -3,7 +3,7 @@ import { Injectable, inject } from '@angular/core';
 import { Observable } from 'rxjs';
 import type {
   CreateStudyBody, Study, StudyListQuery, StudyPage, UpdateStudyBody, Worklist,
-} from '../../../../../shared/schemas';
+} from '@shared/schemas';
 
 /** A list query as the page holds it: every field optional, empty ones left out of the URL. */
 export type StudyQuery = Partial<StudyListQuery>;

@@ -1,6 +1,6 @@
 import { TestBed } from '@angular/core/testing';
 import { of, throwError } from 'rxjs';
-import type { Analysis } from '../../../../../shared/schemas';
+import type { Analysis } from '@shared/schemas';
 import { ApiError } from '../../../core/http/api-error';
 import { AnalysesApi } from '../api/analyses-api';
 import { AnalysisStore, POLL_MS } from './analysis-store';

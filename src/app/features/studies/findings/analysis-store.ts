@@ -1,6 +1,6 @@
 import { DestroyRef, Injectable, computed, inject, signal } from '@angular/core';
 import { Observable, Subscription, retry, switchMap, takeWhile, tap, timer } from 'rxjs';
-import type { Analysis } from '../../../../../shared/schemas';
+import type { Analysis } from '@shared/schemas';
 import { ApiError } from '../../../core/http/api-error';
 import { AnalysesApi } from '../api/analyses-api';
 import { StudyStore } from '../study/study-store';

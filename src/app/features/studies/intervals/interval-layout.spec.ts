@@ -1,4 +1,4 @@
-import { INTERVAL_FIELDS } from '../../../../../shared/schemas';
+import { INTERVAL_FIELDS } from '@shared/schemas';
 import { blankRow, toInput } from '../specimens/specimen-layout';
 import { mappableFields } from '../specimens/upload-dialog/upload-mapping';
 import { INTERVAL_LAYOUT } from './interval-layout';

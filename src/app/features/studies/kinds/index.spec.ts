@@ -1,4 +1,4 @@
-import { KIND_METAS } from '../../../../../shared/kinds/kinds';
+import { KIND_METAS } from '@shared/kinds/kinds';
 import { KIND_VIEWS, SUPPORTED_KINDS, hasKindView, kindView } from '.';
 
 describe('the client registry of study kinds', () => {

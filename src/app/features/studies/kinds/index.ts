@@ -1,4 +1,4 @@
-import type { StudyKind } from '../../../../../shared/schemas';
+import type { StudyKind } from '@shared/schemas';
 import type { KindView } from './kind-view';
 import { methodComparisonView } from './method-comparison';
 import { intervalEstablishView } from './interval-establish';

@@ -1,6 +1,6 @@
 import { DestroyRef, effect, inject, untracked, type Signal } from '@angular/core';
 import type { AbstractControl } from '@angular/forms';
-import { StudySettings } from '../../../../../shared/schemas';
+import { StudySettings } from '@shared/schemas';
 import type { OpenSettingsGroup, SetupGroup } from './setup-form-group';
 
 /** The settings group with the kind's own settings in it. */

@@ -1,8 +1,8 @@
 import { AbstractControl, FormControl, FormGroup, ValidationErrors, ValidatorFn, Validators } from '@angular/forms';
 import type { ZodType } from 'zod';
-import { kindMeta } from '../../../../../shared/kinds/kinds';
-import type { StudyKind } from '../../../../../shared/schemas';
-import { CreateStudyBody, StudySettings } from '../../../../../shared/schemas';
+import { kindMeta } from '@shared/kinds/kinds';
+import type { StudyKind } from '@shared/schemas';
+import { CreateStudyBody, StudySettings } from '@shared/schemas';
 import { parseDecisionLevels } from '../../admin/analytes/decision-levels';
 import { schemaRule } from '../../../ui/schema-rule';
 import { SettingsValues, SetupValues } from './setup-model';

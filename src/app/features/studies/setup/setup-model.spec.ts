@@ -1,5 +1,5 @@
-import type { Analyte, Study } from '../../../../../shared/schemas';
-import { StudySettings } from '../../../../../shared/schemas';
+import type { Analyte, Study } from '@shared/schemas';
+import { StudySettings } from '@shared/schemas';
 import { createBody, randomSeed, settingsFromAnalyte, setupValues, updateBody } from './setup-model';
 
 const glucose: Analyte = {

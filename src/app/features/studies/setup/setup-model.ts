@@ -1,7 +1,7 @@
-import type { Analyte, CreateStudyBody, Study, StudyKind, StudySettings, UpdateStudyBody } from '../../../../../shared/schemas';
-import { StudySettings as SettingsSchema } from '../../../../../shared/schemas';
-import type { KindMeta } from '../../../../../shared/kinds/kind';
-import { kindMeta } from '../../../../../shared/kinds/kinds';
+import type { Analyte, CreateStudyBody, Study, StudyKind, StudySettings, UpdateStudyBody } from '@shared/schemas';
+import { StudySettings as SettingsSchema } from '@shared/schemas';
+import type { KindMeta } from '@shared/kinds/kind';
+import { kindMeta } from '@shared/kinds/kinds';
 import { formatDecisionLevels, parseDecisionLevels } from '../../admin/analytes/decision-levels';
 
 /**

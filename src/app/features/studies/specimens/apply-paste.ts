@@ -1,4 +1,4 @@
-import type { DecimalMark } from '../../../../../shared/schemas/result-text';
+import type { DecimalMark } from '@shared/schemas/result-text';
 import { hasHeader, splitClipboard, parseFlag } from './paste-parser';
 import { normaliseDecimal } from './result-number';
 import { GridRow, SpecimenField, SpecimenLayout, blankRow } from './specimen-layout';

@@ -1,4 +1,4 @@
-import { DecimalMark, looksLikeNumber, readResult } from '../../../../../shared/schemas/result-text';
+import { DecimalMark, looksLikeNumber, readResult } from '@shared/schemas/result-text';
 
 /**
  * Results in the grid, read by the parser the server uses (shared/schemas/result-text.ts) with the

@@ -1,4 +1,4 @@
-import type { DecimalMark } from '../../../../../shared/schemas/result-text';
+import type { DecimalMark } from '@shared/schemas/result-text';
 import { parseResult, resultProblem } from './result-number';
 import { GridRow, SpecimenLayout, isBlank } from './specimen-layout';
 

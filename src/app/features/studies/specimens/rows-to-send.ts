@@ -1,4 +1,4 @@
-import type { ApiIssue } from '../../../../../shared/schemas';
+import type { ApiIssue } from '@shared/schemas';
 import { GridRow, SpecimenLayout, isBlank, toInput } from './specimen-layout';
 
 /** The body rows of a PUT, and for each sent row the grid row it came from. */

@@ -1,5 +1,5 @@
 import type { CellClassParams, ColDef, ITooltipParams, RowClassRules } from 'ag-grid-community';
-import type { Study } from '../../../../../shared/schemas';
+import type { Study } from '@shared/schemas';
 import { GridRow, SpecimenLayout } from './specimen-layout';
 
 /** What the grid asks of the page for one cell: its problem in words, or null; and a row's repeated label. */

@@ -1,4 +1,4 @@
-import type { SpecimenRow } from '../../../../../shared/schemas';
+import type { SpecimenRow } from '@shared/schemas';
 import { COMPARISON_LAYOUT, blankRow, fromStored, isBlank, toInput } from './specimen-layout';
 
 const stored: SpecimenRow = {

@@ -1,4 +1,4 @@
-import type { SpecimenRow } from '../../../../../shared/schemas';
+import type { SpecimenRow } from '@shared/schemas';
 
 /** How a cell holds its value: free text, a measured result (typed text, checked as a number), or a yes/no flag. */
 export type CellKind = 'text' | 'result' | 'flag';

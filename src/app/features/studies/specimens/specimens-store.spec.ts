@@ -1,8 +1,8 @@
 import { signal } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { Subject, of } from 'rxjs';
-import type { SpecimenRow, SpecimenRows, Study } from '../../../../../shared/schemas';
-import type { DecimalMark } from '../../../../../shared/schemas/result-text';
+import type { SpecimenRow, SpecimenRows, Study } from '@shared/schemas';
+import type { DecimalMark } from '@shared/schemas/result-text';
 import { ApiError } from '../../../core/http/api-error';
 import { PutSpecimens, SpecimensApi } from '../api/specimens-api';
 import { StudyStore } from '../study/study-store';

@@ -1,8 +1,8 @@
 import { DestroyRef, Injectable, computed, effect, inject, signal, untracked } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { Observable, Subject, Subscription, debounceTime, map, tap, timer } from 'rxjs';
-import type { SpecimenRows } from '../../../../../shared/schemas';
-import type { DecimalMark } from '../../../../../shared/schemas/result-text';
+import type { SpecimenRows } from '@shared/schemas';
+import type { DecimalMark } from '@shared/schemas/result-text';
 import { ApiError } from '../../../core/http/api-error';
 import { SpecimensApi } from '../api/specimens-api';
 import { StudyStore } from '../study/study-store';

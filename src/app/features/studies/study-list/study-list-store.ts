@@ -1,6 +1,6 @@
 import { DestroyRef, Injectable, computed, inject, signal } from '@angular/core';
 import { Subject, catchError, map, of, switchMap, tap } from 'rxjs';
-import type { StudySummary } from '../../../../../shared/schemas';
+import type { StudySummary } from '@shared/schemas';
 import { ApiError } from '../../../core/http/api-error';
 import { StudiesApi, StudyQuery } from '../api/studies-api';
 

@@ -1,4 +1,4 @@
-import { StudyListQuery } from '../../../../../shared/schemas';
+import { StudyListQuery } from '@shared/schemas';
 import type { StudyQuery } from '../api/studies-api';
 
 const KEYS = ['kind', 'analyteId', 'instrumentId', 'state', 'from', 'to', 'q', 'sort', 'order', 'page', 'pageSize'] as const;

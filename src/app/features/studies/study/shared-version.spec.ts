@@ -1,6 +1,6 @@
 import { TestBed } from '@angular/core/testing';
 import { Subject, of } from 'rxjs';
-import type { SpecimenRows, Study } from '../../../../../shared/schemas';
+import type { SpecimenRows, Study } from '@shared/schemas';
 import { PutSpecimens, SpecimensApi } from '../api/specimens-api';
 import { StudiesApi } from '../api/studies-api';
 import { AUTOSAVE_DEBOUNCE_MS, SpecimensStore } from '../specimens/specimens-store';

@@ -1,6 +1,6 @@
 import { TestBed } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
-import type { Study } from '../../../../../shared/schemas';
+import type { Study } from '@shared/schemas';
 import { StudyRelease } from './study-release';
 
 async function show(release: Study['release']) {

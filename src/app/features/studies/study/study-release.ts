@@ -1,7 +1,7 @@
 import { ChangeDetectionStrategy, Component, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
-import type { Study } from '../../../../../shared/schemas';
+import type { Study } from '@shared/schemas';
 
 /** Under a study's heading (the study page, the review page): the release the study belongs to and the requirement it meets there. */
 @Component({

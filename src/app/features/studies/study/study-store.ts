@@ -1,6 +1,6 @@
 import { Injectable, computed, inject, signal } from '@angular/core';
 import { Observable, Subject, catchError, tap, throwError } from 'rxjs';
-import type { Study, UpdateStudyBody } from '../../../../../shared/schemas';
+import type { Study, UpdateStudyBody } from '@shared/schemas';
 import { AuthStore } from '../../../core/auth/auth-store';
 import { ApiError } from '../../../core/http/api-error';
 import { StudiesApi } from '../api/studies-api';

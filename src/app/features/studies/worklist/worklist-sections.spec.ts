@@ -1,5 +1,5 @@
 import { TestBed } from '@angular/core/testing';
-import type { Role, StudySummary, Worklist } from '../../../../../shared/schemas';
+import type { Role, StudySummary, Worklist } from '@shared/schemas';
 import { httpController, provideTestHttp } from '../../../../testing/http';
 import { provideSession, restoreSession, sessionUser } from '../../../../testing/session-users';
 import { WorklistSections } from './worklist-sections';

@@ -3,10 +3,10 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
-import type { StudySummary, Worklist } from '../../../../../shared/schemas';
+import type { StudySummary, Worklist } from '@shared/schemas';
 import { AuthStore } from '../../../core/auth/auth-store';
 import { ErrorBanner } from '../../../ui/error-banner';
-import { laboratoryTime } from '../../../../../shared/types/lab-time';
+import { laboratoryTime } from '@shared/types/lab-time';
 import { stateLabel } from '../study-text';
 import { WorklistStore } from './worklist-store';
 

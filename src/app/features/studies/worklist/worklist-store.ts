@@ -1,5 +1,5 @@
 import { Injectable, computed, inject, signal } from '@angular/core';
-import type { Worklist } from '../../../../../shared/schemas';
+import type { Worklist } from '@shared/schemas';
 import { ApiError } from '../../../core/http/api-error';
 import { StudiesApi } from '../api/studies-api';
 

@@ -1,6 +1,6 @@
 import { TestBed } from '@angular/core/testing';
-import type { Role } from '../../../../../shared/schemas';
-import { laboratoryDate } from '../../../../../shared/types/lab-time';
+import type { Role } from '@shared/schemas';
+import { laboratoryDate } from '@shared/types/lab-time';
 import { httpController, provideTestHttp } from '../../../../testing/http';
 import { provideSession, restoreSession, sessionUser } from '../../../../testing/session-users';
 import { navigationFor } from '../../../core/layout/navigation';

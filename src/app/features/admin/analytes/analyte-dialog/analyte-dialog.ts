@@ -5,7 +5,7 @@ import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatDialogModule } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
-import { AnalyteBody, type Analyte } from '../../../../../../shared/schemas/admin.schema';
+import { AnalyteBody, type Analyte } from '@shared/schemas/admin.schema';
 import { ErrorBanner } from '../../../../ui/error-banner';
 import { FieldErrorPipe } from '../../../../ui/field-error';
 import { CatalogDialog } from '../../catalog/catalog-dialog';

@@ -4,7 +4,7 @@ import { MatButtonHarness } from '@angular/material/button/testing';
 import { MatDialogHarness } from '@angular/material/dialog/testing';
 import { MatInputHarness } from '@angular/material/input/testing';
 import { MatTableHarness } from '@angular/material/table/testing';
-import type { Instrument } from '../../../../../../shared/schemas';
+import type { Instrument } from '@shared/schemas';
 import { apiError, httpController, noAnimations, provideTestHttp } from '../../../../../testing/http';
 import { InstrumentList } from './instrument-list';
 

@@ -1,5 +1,5 @@
 import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
-import type { Instrument, InstrumentBody } from '../../../../../../shared/schemas';
+import type { Instrument, InstrumentBody } from '@shared/schemas';
 import { CatalogPage } from '../../catalog/catalog-page';
 import { CatalogColumn, CatalogTable } from '../../catalog/catalog-table/catalog-table';
 import { InstrumentDialog } from '../instrument-dialog/instrument-dialog';

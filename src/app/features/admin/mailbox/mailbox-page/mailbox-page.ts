@@ -3,7 +3,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatListModule } from '@angular/material/list';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import type { MailMessage } from '../../../../../../shared/schemas';
+import type { MailMessage } from '@shared/schemas';
 import { ErrorBanner } from '../../../../ui/error-banner';
 import { ZonedPipe, labZone } from '../../../../ui/lab-time';
 import { linkify } from '../linkify';

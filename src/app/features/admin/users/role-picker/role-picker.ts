@@ -1,8 +1,8 @@
 import { ChangeDetectionStrategy, Component, forwardRef, signal } from '@angular/core';
 import { ControlValueAccessor, NG_VALUE_ACCESSOR } from '@angular/forms';
 import { MatCheckboxModule } from '@angular/material/checkbox';
-import type { Role } from '../../../../../../shared/schemas';
-import { ROLE_LABELS, ROLES } from '../../../../../../shared/schemas/roles';
+import type { Role } from '@shared/schemas';
+import { ROLE_LABELS, ROLES } from '@shared/schemas/roles';
 
 /** One checkbox per role, as a form control whose value is the chosen roles in ROLES order. */
 @Component({

@@ -5,7 +5,7 @@ import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/materia
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { Observable } from 'rxjs';
-import type { Role, User } from '../../../../../../shared/schemas';
+import type { Role, User } from '@shared/schemas';
 import { ApiError } from '../../../../core/http/api-error';
 import { showApiError } from '../../../../core/http/form-errors';
 import { ErrorBanner } from '../../../../ui/error-banner';

@@ -7,7 +7,7 @@ import { MatInputHarness } from '@angular/material/input/testing';
 import { MatMenuHarness } from '@angular/material/menu/testing';
 import { MatSortHarness } from '@angular/material/sort/testing';
 import { MatTableHarness } from '@angular/material/table/testing';
-import type { User } from '../../../../../../shared/schemas';
+import type { User } from '@shared/schemas';
 import { apiError, httpController, noAnimations, provideTestHttp } from '../../../../../testing/http';
 import { provideSession, restoreSession, sessionUser } from '../../../../../testing/session-users';
 import { Notices } from '../../../../core/notify/notices';

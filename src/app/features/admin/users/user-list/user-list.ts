@@ -7,7 +7,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSortModule } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { Observable, filter, switchMap } from 'rxjs';
-import type { User } from '../../../../../../shared/schemas';
+import type { User } from '@shared/schemas';
 import { AuthStore } from '../../../../core/auth/auth-store';
 import { ApiError } from '../../../../core/http/api-error';
 import { Notices } from '../../../../core/notify/notices';

@@ -1,5 +1,5 @@
 import type { ActiveElement, Chart } from 'chart.js';
-import type { PlotAxis } from '../../../../../../shared/types/plot-axes';
+import type { PlotAxis } from '@shared/types/plot-axes';
 import { formatNumber } from '../comparison/number-format';
 import type { Markers } from './markers-plugin';
 import type { PlotDatum } from './scatter-data';

@@ -1,5 +1,5 @@
-import { allowableBand, bandReach, type AllowableGoal } from '../../../../../../shared/types/allowable-band';
-import { paddedAxis, type PlotAxis } from '../../../../../../shared/types/plot-axes';
+import { allowableBand, bandReach, type AllowableGoal } from '@shared/types/allowable-band';
+import { paddedAxis, type PlotAxis } from '@shared/types/plot-axes';
 import type { ComparisonCore } from '../comparison/engine-types';
 import type { MarkerArea, MarkerLine, Markers } from './markers-plugin';
 import { markerRange } from './markers-plugin';

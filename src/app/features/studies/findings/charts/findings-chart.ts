@@ -1,7 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, input, output, signal, viewChild } from '@angular/core';
 import type { ActiveElement, Chart, ChartData, ChartEvent, ChartOptions, ChartType, TooltipModel } from 'chart.js';
 import { BaseChartDirective, provideCharts } from 'ng2-charts';
-import type { PlotAxis } from '../../../../../../shared/types/plot-axes';
+import type { PlotAxis } from '@shared/types/plot-axes';
 import { CHART_SETUP } from './chart-setup';
 import { keyOf, legendEntries, linearScale, tipOf } from './chart-options';
 import type { Markers } from './markers-plugin';

@@ -1,4 +1,4 @@
-import { niceAxis, paddedAxis, type PlotAxis } from '../../../../../../shared/types/plot-axes';
+import { niceAxis, paddedAxis, type PlotAxis } from '@shared/types/plot-axes';
 import type { HistogramBin, Interval, NullDistributionPlot } from '../comparison/engine-types';
 import { type Markers, markerRange } from './markers-plugin';
 import { PALETTE } from './palette';

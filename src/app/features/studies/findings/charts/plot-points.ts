@@ -1,4 +1,4 @@
-import type { StudySettings } from '../../../../../../shared/schemas';
+import type { StudySettings } from '@shared/schemas';
 import { gridNumber } from '../../specimens/result-number';
 import type { GridRow } from '../../specimens/specimen-layout';
 

@@ -1,5 +1,5 @@
 import type { ChartDataset } from 'chart.js';
-import { paddedAxis, type PlotAxis } from '../../../../../../shared/types/plot-axes';
+import { paddedAxis, type PlotAxis } from '@shared/types/plot-axes';
 import type { ComparisonRegression } from '../comparison/engine-types';
 import { REGRESSION_LABELS } from '../../study-text';
 import { formatNumber, levelLabel } from '../comparison/number-format';

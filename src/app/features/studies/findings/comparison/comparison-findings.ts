@@ -1,5 +1,5 @@
 import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal, untracked } from '@angular/core';
-import type { Analysis, Study } from '../../../../../../shared/schemas';
+import type { Analysis, Study } from '@shared/schemas';
 import { Notices } from '../../../../core/notify/notices';
 import { ErrorBanner } from '../../../../ui/error-banner';
 import { COMPARISON_LAYOUT } from '../../specimens/specimen-layout';

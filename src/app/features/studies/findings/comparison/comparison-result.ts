@@ -1,8 +1,8 @@
-import type { Study } from '../../../../../../shared/schemas';
+import type { Study } from '@shared/schemas';
 import type { ComparisonResult } from './engine-types';
-import { stepWords as wordsOfStep, type StepWords } from '../../../../../../shared/types/resolution-words';
-import { findingsDecimals } from '../../../../../../shared/types/findings-numbers';
-import type { ComparisonUnits } from '../../../../../../shared/types/findings-rows';
+import { stepWords as wordsOfStep, type StepWords } from '@shared/types/resolution-words';
+import { findingsDecimals } from '@shared/types/findings-numbers';
+import type { ComparisonUnits } from '@shared/types/findings-rows';
 
 /**
  * The results of a method-comparison analysis as the API returns them: the engine's result

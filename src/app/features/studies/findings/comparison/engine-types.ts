@@ -6,5 +6,5 @@
 export type {
   ComparisonCore, ComparisonResult, DecisionLevelResult, Estimate, Histogram, HistogramBin, Interval, NullDistributionPlot,
   TestedEstimate, Verdict,
-} from '../../../../../../shared/stats';
-export type { ComparisonRegression } from '../../../../../../shared/stats/comparison-types';
+} from '@shared/stats';
+export type { ComparisonRegression } from '@shared/stats/comparison-types';

@@ -1,9 +1,9 @@
 import type { ComparisonCore, ComparisonResult } from './engine-types';
 import { Units, sharedUnits } from './comparison-result';
 import { formatCi, formatNumber, formatP } from './number-format';
-import { withUnit } from '../../../../../../shared/types/findings-numbers';
-import { agreementRows as sharedAgreement, sensitivityLines, testRows as sharedTests, type FindingsRow } from '../../../../../../shared/types/findings-rows';
-import { regressionSection as sharedRegression, type RegressionSection } from '../../../../../../shared/types/regression-words';
+import { withUnit } from '@shared/types/findings-numbers';
+import { agreementRows as sharedAgreement, sensitivityLines, testRows as sharedTests, type FindingsRow } from '@shared/types/findings-rows';
+import { regressionSection as sharedRegression, type RegressionSection } from '@shared/types/regression-words';
 
 /** Words beside the estimates whose CI is narrower than one reporting step, keyed by path ('bias.median'); see narrowCiNotes. */
 export type StepNotes = Readonly<Partial<Record<string, string>>>;

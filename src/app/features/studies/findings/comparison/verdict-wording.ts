@@ -5,7 +5,7 @@
 import type { TestedEstimate } from './engine-types';
 import { formatCi, formatNumber, formatP, levelLabel } from './number-format';
 import { Units, withUnit } from './comparison-result';
-import { narrowCiSentence } from '../../../../../../shared/types/resolution-words';
+import { narrowCiSentence } from '@shared/types/resolution-words';
 
 /** The median bias with its CI and the shifted-null bootstrap test against zero; `narrowStep`, the step its CI is narrower than. */
 export function medianSentence(median: TestedEstimate, units: Units, level: number, resamples: number, narrowStep = ''): string {

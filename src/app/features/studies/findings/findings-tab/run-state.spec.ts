@@ -1,4 +1,4 @@
-import type { Analysis } from '../../../../../../shared/schemas';
+import type { Analysis } from '@shared/schemas';
 import { failureText, runStateText } from './run-state';
 
 const base: Analysis = {

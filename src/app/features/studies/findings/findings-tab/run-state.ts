@@ -1,4 +1,4 @@
-import type { Analysis } from '../../../../../../shared/schemas';
+import type { Analysis } from '@shared/schemas';
 
 /** The line beside the progress bar: "Waiting to start · 2 s" or "Running · 45 % · 12 s". */
 export function runStateText(analysis: Analysis, now: number): string {

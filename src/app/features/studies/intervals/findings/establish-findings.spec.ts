@@ -1,6 +1,6 @@
 import { TestBed } from '@angular/core/testing';
-import type { Analysis, Study } from '../../../../../../shared/schemas';
-import { StudySettings } from '../../../../../../shared/schemas';
+import type { Analysis, Study } from '@shared/schemas';
+import { StudySettings } from '@shared/schemas';
 import { httpController, noAnimations, provideTestHttp } from '../../../../../testing/http';
 import { sodiumInterval, storedBeforeResolution, fineGrained } from '../../../../../testing/coarse-results';
 import { SpecimensStore } from '../../specimens/specimens-store';

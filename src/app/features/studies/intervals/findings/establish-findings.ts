@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
-import type { Analysis, Study } from '../../../../../../shared/schemas';
+import type { Analysis, Study } from '@shared/schemas';
 import { Notices } from '../../../../core/notify/notices';
 import { ErrorBanner } from '../../../../ui/error-banner';
 import { levelLabel } from '../../findings/comparison/number-format';

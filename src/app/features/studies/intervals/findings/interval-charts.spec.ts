@@ -1,4 +1,4 @@
-import type { LimitResult } from '../../../../../../shared/stats/reference-interval';
+import type { LimitResult } from '@shared/stats/reference-interval';
 import { PALETTE } from '../../findings/charts/palette';
 import type { GridRow } from '../../specimens/specimen-layout';
 import { type PlacedValue, analysedValues, individualName, stripData, valueHistogram } from './interval-charts';

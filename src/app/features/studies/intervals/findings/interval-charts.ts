@@ -1,5 +1,5 @@
-import { niceAxis, paddedAxis, resolutionBins, type PlotAxis } from '../../../../../../shared/types/plot-axes';
-import type { LimitResult } from '../../../../../../shared/stats/reference-interval';
+import { niceAxis, paddedAxis, resolutionBins, type PlotAxis } from '@shared/types/plot-axes';
+import type { LimitResult } from '@shared/stats/reference-interval';
 import { binBars, histogramAxes, rangeWords } from '../../findings/charts/histogram-data';
 import { withUnit } from '../../findings/comparison/comparison-result';
 import type { MarkerLine, Markers } from '../../findings/charts/markers-plugin';

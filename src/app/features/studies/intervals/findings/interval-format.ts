@@ -1,4 +1,4 @@
-import type { Study } from '../../../../../../shared/schemas';
+import type { Study } from '@shared/schemas';
 import { formatNumber } from '../../findings/comparison/number-format';
 import { withUnit } from '../../findings/comparison/comparison-result';
 

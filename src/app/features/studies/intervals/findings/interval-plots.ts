@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import type { ChartData } from 'chart.js';
-import { dataStep, stepDecimals } from '../../../../../../shared/types/plot-axes';
+import { dataStep, stepDecimals } from '@shared/types/plot-axes';
 import { FindingsChart } from '../../findings/charts/findings-chart';
 import { formatNumber } from '../../findings/comparison/number-format';
 import type { GridRow } from '../../specimens/specimen-layout';

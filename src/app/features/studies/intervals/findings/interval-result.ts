@@ -1,6 +1,6 @@
-import type { IntervalResult } from '../../../../../../shared/stats/interval-types';
-import type { VerifyIntervalResult } from '../../../../../../shared/stats/verify-interval';
-import { stepWords, type StepWords } from '../../../../../../shared/types/resolution-words';
+import type { IntervalResult } from '@shared/stats/interval-types';
+import type { VerifyIntervalResult } from '@shared/stats/verify-interval';
+import { stepWords, type StepWords } from '@shared/types/resolution-words';
 
 /** An establishment's results as the API returns them: the engine's result plus the flagged rows' grid positions. */
 export type EstablishResult = IntervalResult & { outlierPositions?: number[] };

@@ -1,4 +1,4 @@
-import type { PartitionResult } from '../../../../../../shared/stats/interval-types';
+import type { PartitionResult } from '@shared/stats/interval-types';
 import { formatNumber } from '../../findings/comparison/number-format';
 import type { VerifyResult } from './interval-result';
 

@@ -1,5 +1,5 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
-import type { LimitResult } from '../../../../../../shared/stats/reference-interval';
+import type { LimitResult } from '@shared/stats/reference-interval';
 import { formatCi, formatNumber, levelLabel } from '../../findings/comparison/number-format';
 
 /** The limits of one interval: each percentile's estimate with its rank-based and bootstrap CIs, and a note under a CI narrower than the step. */

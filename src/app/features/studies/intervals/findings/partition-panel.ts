@@ -1,5 +1,5 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
-import type { PartitionResult } from '../../../../../../shared/stats/interval-types';
+import type { PartitionResult } from '@shared/stats/interval-types';
 import { formatNumber } from '../../findings/comparison/number-format';
 import { LimitsTable } from './limits-table';
 import { PARTITION_FIELD_WORDS, partitionWords } from './interval-wording';

@@ -1,5 +1,5 @@
 import { Signal, computed, effect, inject, untracked } from '@angular/core';
-import type { Analysis, Study } from '../../../../../../shared/schemas';
+import type { Analysis, Study } from '@shared/schemas';
 import type { SpecimenLayout } from '../../specimens/specimen-layout';
 import { SpecimensStore } from '../../specimens/specimens-store';
 

@@ -1,6 +1,6 @@
 import { TestBed } from '@angular/core/testing';
-import type { Analysis, SpecimenRow, Study } from '../../../../../../shared/schemas';
-import { StudySettings } from '../../../../../../shared/schemas';
+import type { Analysis, SpecimenRow, Study } from '@shared/schemas';
+import { StudySettings } from '@shared/schemas';
 import { httpController, noAnimations, provideTestHttp } from '../../../../../testing/http';
 import { SpecimensStore } from '../../specimens/specimens-store';
 import type { VerifyResult } from './interval-result';

@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import type { ChartData } from 'chart.js';
-import type { Analysis, Study } from '../../../../../../shared/schemas';
+import type { Analysis, Study } from '@shared/schemas';
 import { ErrorBanner } from '../../../../ui/error-banner';
 import { FindingsChart } from '../../findings/charts/findings-chart';
 import { formatP } from '../../findings/comparison/number-format';

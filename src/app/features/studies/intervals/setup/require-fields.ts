@@ -1,6 +1,6 @@
 import { DestroyRef, effect, inject, untracked } from '@angular/core';
 import { AbstractControl, Validators } from '@angular/forms';
-import { StudySettings } from '../../../../../../shared/schemas';
+import { StudySettings } from '@shared/schemas';
 import type { SetupGroup } from '../../setup/setup-form-group';
 
 /**

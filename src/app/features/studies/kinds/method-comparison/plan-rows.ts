@@ -1,7 +1,7 @@
 import { type PlanRow, type PlanStudy, allowableBiasText, bootstrapRow, orNone, specimensRow, unitOf, withUnit } from '../../../review/plan/plan-parts';
 import { formatNumber } from '../../findings/comparison/number-format';
 import { DIFFERENCE_LABELS, REGRESSION_LABELS, usesDemingRatio } from '../../study-text';
-import type { SamplePlan } from '../../../../../../shared/kinds/method-comparison/sample-plan';
+import type { SamplePlan } from '@shared/kinds/method-comparison/sample-plan';
 
 const SHAPE_WORDS: Record<SamplePlan['shape'], string> = { uniform: 'even across the range', 'log-uniform': 'even on a log scale', 'earlier-study': 'as in an earlier comparison' };
 

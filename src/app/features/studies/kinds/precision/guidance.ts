@@ -14,4 +14,4 @@ export const PRECISION_GUIDANCE: SetupGuidance = {
 };
 
 /** The rules a new precision study starts with in place of the comparison's (shared with the server). */
-export { PRECISION_RULES } from '../../../../../../shared/kinds/precision/meta';
+export { PRECISION_RULES } from '@shared/kinds/precision/meta';

@@ -1,4 +1,4 @@
-import { precisionMeta } from '../../../../../../shared/kinds/precision/meta';
+import { precisionMeta } from '@shared/kinds/precision/meta';
 import type { SpecimenLayout } from '../../specimens/specimen-layout';
 
 /** How the shared description heads a file's material and day columns (the import's own patterns). */

@@ -1,4 +1,4 @@
-import { PrecisionSettings, type PrecisionMaterial } from '../../../../../../shared/kinds/precision/meta';
+import { PrecisionSettings, type PrecisionMaterial } from '@shared/kinds/precision/meta';
 
 /** A precision study's own settings (shared/kinds/precision/meta.ts), stored beside the common ones. */
 export type PrecisionOwn = PrecisionSettings;

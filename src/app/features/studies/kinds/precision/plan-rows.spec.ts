@@ -1,5 +1,5 @@
-import { PrecisionSettings } from '../../../../../../shared/kinds/precision/meta';
-import { StudySettings, type Study } from '../../../../../../shared/schemas';
+import { PrecisionSettings } from '@shared/kinds/precision/meta';
+import { StudySettings, type Study } from '@shared/schemas';
 import { planRows } from '../../../review/plan/plan-rows';
 import { PRECISION_RULES } from './guidance';
 

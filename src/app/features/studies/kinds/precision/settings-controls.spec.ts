@@ -1,6 +1,6 @@
 import { FormArray, FormControl } from '@angular/forms';
-import { PrecisionSettings } from '../../../../../../shared/kinds/precision/meta';
-import { CreateStudyBody, StudySettings, UpdateStudyBody, type Study } from '../../../../../../shared/schemas';
+import { PrecisionSettings } from '@shared/kinds/precision/meta';
+import { CreateStudyBody, StudySettings, UpdateStudyBody, type Study } from '@shared/schemas';
 import { buildSetupForm, readSetup, resetSetupForm, type OpenSettingsGroup } from '../../setup/setup-form-group';
 import { createBody, setupValues, updateBody } from '../../setup/setup-model';
 import { type MaterialsArray, materialGroup, precisionControls } from './settings-controls';

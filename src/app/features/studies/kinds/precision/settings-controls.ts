@@ -1,5 +1,5 @@
 import { AbstractControl, FormArray, FormControl, FormGroup, ValidatorFn } from '@angular/forms';
-import { PrecisionMaterial, PrecisionSettings } from '../../../../../../shared/kinds/precision/meta';
+import { PrecisionMaterial, PrecisionSettings } from '@shared/kinds/precision/meta';
 import { ruleControl } from '../../setup/setup-form-group';
 import { precisionOwn } from './own-settings';
 

@@ -16,4 +16,4 @@ export const RANGE_GUIDANCE: SetupGuidance = {
 };
 
 /** The rules a new reportable-range study starts with in place of the comparison's (shared with the server). */
-export { RANGE_RULES } from '../../../../../../shared/kinds/reportable-range/meta';
+export { RANGE_RULES } from '@shared/kinds/reportable-range/meta';

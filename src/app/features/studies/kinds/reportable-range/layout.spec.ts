@@ -1,6 +1,6 @@
 import { applyPaste } from '../../specimens/apply-paste';
 import { blankRow, fromStored, toInput } from '../../specimens/specimen-layout';
-import type { SpecimenRow } from '../../../../../../shared/schemas';
+import type { SpecimenRow } from '@shared/schemas';
 import { RANGE_LAYOUT, wideRangeRows } from './layout';
 
 const cells = (text: string): string[][] => text.split('\n').map((line) => line.split('\t'));

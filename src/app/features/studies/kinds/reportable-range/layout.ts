@@ -1,4 +1,4 @@
-import { reportableRangeMeta } from '../../../../../../shared/kinds/reportable-range/meta';
+import { reportableRangeMeta } from '@shared/kinds/reportable-range/meta';
 import type { SpecimenLayout } from '../../specimens/specimen-layout';
 
 /** How the shared description heads a file's level column (the import's own pattern: Level, Sample, Pool, Dilution, Mixture). */

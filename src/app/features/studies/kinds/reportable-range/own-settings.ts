@@ -1,4 +1,4 @@
-import { RangeSettings, type RangeLevel } from '../../../../../../shared/kinds/reportable-range/meta';
+import { RangeSettings, type RangeLevel } from '@shared/kinds/reportable-range/meta';
 
 /** A reportable-range study's own settings (shared/kinds/reportable-range/meta.ts), stored beside the common ones. */
 export type RangeOwn = RangeSettings;
@@ -32,4 +32,4 @@ export function rangeOwn(settings: object): RangeOwn {
 }
 
 /** A level's value from the pools, for the Setup form's hint and the plan: the engine's own rule (null unless all three are given). */
-export { mixtureValue as pooledValue } from '../../../../../../shared/stats/reportable-range-options';
+export { mixtureValue as pooledValue } from '@shared/stats/reportable-range-options';

@@ -1,5 +1,5 @@
-import { RangeSettings } from '../../../../../../shared/kinds/reportable-range/meta';
-import { StudySettings, type Study } from '../../../../../../shared/schemas';
+import { RangeSettings } from '@shared/kinds/reportable-range/meta';
+import { StudySettings, type Study } from '@shared/schemas';
 import { planRows } from '../../../review/plan/plan-rows';
 import { RANGE_RULES } from './guidance';
 

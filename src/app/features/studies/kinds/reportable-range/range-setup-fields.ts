@@ -6,7 +6,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { scan, startWith, switchMap } from 'rxjs';
-import { formatNumber, withUnit } from '../../../../../../shared/types/findings-numbers';
+import { formatNumber, withUnit } from '@shared/types/findings-numbers';
 import { FieldErrorPipe } from '../../../../ui/field-error';
 import type { StudyCatalog } from '../../api/catalog-api';
 import { IntervalMeasurementFields } from '../../intervals/setup/measurement-fields';

@@ -1,6 +1,6 @@
 import { FormArray } from '@angular/forms';
-import { RangeSettings } from '../../../../../../shared/kinds/reportable-range/meta';
-import { CreateStudyBody, StudySettings, UpdateStudyBody, type Study } from '../../../../../../shared/schemas';
+import { RangeSettings } from '@shared/kinds/reportable-range/meta';
+import { CreateStudyBody, StudySettings, UpdateStudyBody, type Study } from '@shared/schemas';
 import { buildSetupForm, readSetup, resetSetupForm, type OpenSettingsGroup } from '../../setup/setup-form-group';
 import { createBody, setupValues, updateBody } from '../../setup/setup-model';
 import { type LevelsArray, evenFractions, levelGroup, rangeControls } from './settings-controls';

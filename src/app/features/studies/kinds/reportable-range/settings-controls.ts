@@ -1,5 +1,5 @@
 import { AbstractControl, FormArray, FormControl, FormGroup, ValidatorFn } from '@angular/forms';
-import { RANGE_LEVELS, RangeLevel, RangeSettings } from '../../../../../../shared/kinds/reportable-range/meta';
+import { RANGE_LEVELS, RangeLevel, RangeSettings } from '@shared/kinds/reportable-range/meta';
 import { settingsRule } from '../../setup/setup-form-group';
 import { rangeOwn } from './own-settings';
 

@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, inject, viewChild } from '@angular/core';
 import { Router } from '@angular/router';
-import type { Study } from '../../../../../../shared/schemas';
+import type { Study } from '@shared/schemas';
 import { Notices } from '../../../../core/notify/notices';
 import { SetupForm } from '../setup-form';
 import { HoldsSetup } from '../unsaved-setup.guard';

@@ -1,4 +1,4 @@
-import { repeatedLabels } from '../../../../../../shared/types/repeated-labels';
+import { repeatedLabels } from '@shared/types/repeated-labels';
 import type { GridRow } from '../specimen-layout';
 
 /** "rows 3 and 17", "rows 3, 9 and 17" (row numbers as the grid shows them). */

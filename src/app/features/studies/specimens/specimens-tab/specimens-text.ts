@@ -1,6 +1,6 @@
 import type { PasteOutcome } from '../apply-paste';
 import type { CellProblem } from '../row-validation';
-import { plural } from '../../../../../../shared/types/plural';
+import { plural } from '@shared/types/plural';
 
 /** What a paste did, in one sentence: "Pasted 40 rows (39 new); the header line was left out." */
 export function pasteSummary(outcome: PasteOutcome): string {

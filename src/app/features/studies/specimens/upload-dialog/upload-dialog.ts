@@ -6,7 +6,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatRadioModule } from '@angular/material/radio';
 import { MatSelectModule } from '@angular/material/select';
-import type { SpecimenRows, UploadPreview } from '../../../../../../shared/schemas';
+import type { SpecimenRows, UploadPreview } from '@shared/schemas';
 import { ApiError } from '../../../../core/http/api-error';
 import { ErrorBanner } from '../../../../ui/error-banner';
 import { PluralPipe } from '../../../../ui/plural';

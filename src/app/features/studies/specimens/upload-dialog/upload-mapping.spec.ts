@@ -1,4 +1,4 @@
-import type { UploadPreview } from '../../../../../../shared/schemas';
+import type { UploadPreview } from '@shared/schemas';
 import { COMPARISON_LAYOUT } from '../specimen-layout';
 import { defaultMode, importWarnings, labelCheckOf, mappableFields, mappingProblems, startingMapping } from './upload-mapping';
 

@@ -1,5 +1,5 @@
-import type { LabelCheck, UploadPreview } from '../../../../../../shared/schemas';
-import { notMappedNotes } from '../../../../../../shared/types/mapping-notes';
+import type { LabelCheck, UploadPreview } from '@shared/schemas';
+import { notMappedNotes } from '@shared/types/mapping-notes';
 import type { SpecimenLayout } from '../specimen-layout';
 
 /** A field a file column can be mapped to; results must be mapped, the others may be. */

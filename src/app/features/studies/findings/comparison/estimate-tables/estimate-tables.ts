@@ -3,7 +3,7 @@ import { DIFFERENCE_LABELS } from '../../../study-text';
 import { ComparisonFindingsResult, Units, stepWords } from '../comparison-result';
 import { levelLabel } from '../number-format';
 import { agreementRows, regressionView, testRows } from '../summary-rows';
-import { BIAS_CI_WORDS, BIAS_P_WORDS } from '../../../../../../../shared/types/findings-rows';
+import { BIAS_CI_WORDS, BIAS_P_WORDS } from '@shared/types/findings-rows';
 import { PluralPipe } from '../../../../../ui/plural';
 
 /**

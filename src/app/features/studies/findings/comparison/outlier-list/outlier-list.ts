@@ -4,7 +4,7 @@ import { MatDialog } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
 import type { GridRow } from '../../../specimens/specimen-layout';
 import { ComparisonFindingsResult } from '../comparison-result';
-import { FLAG_IS_NOT_A_REASON, outlierRuleWords } from '../../../../../../../shared/types/findings-rows';
+import { FLAG_IS_NOT_A_REASON, outlierRuleWords } from '@shared/types/findings-rows';
 import { askExclusionReason } from './exclude-dialog';
 
 /** A row to exclude, by its grid position (1-based), with the reason the user gave. */

@@ -1,4 +1,4 @@
-import type { StudySettings } from '../../../../../../../shared/schemas';
+import type { StudySettings } from '@shared/schemas';
 import { difference, type PlotPoint } from '../../charts/plot-points';
 import type { GridRow } from '../../../specimens/specimen-layout';
 import type { ComparisonFindingsResult } from '../comparison-result';

@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
-import { decisionPicture, PICTURE_TITLE } from '../../../../../../../shared/types/decision-track';
+import { decisionPicture, PICTURE_TITLE } from '@shared/types/decision-track';
 import { ComparisonFindingsResult, Units, stepWords } from '../comparison-result';
 import { NOT_EQUIVALENCE, medianSentence } from '../verdict-wording';
 import { DecisionTrackFigure } from './decision-track/decision-track';

@@ -1,5 +1,5 @@
-import { ESTABLISH_GRID, planEstablish, type PopulationShape } from '../../../../../../../shared/stats/plan-establish';
-import { binomialRankCi } from '../../../../../../../shared/stats/rank-ci';
+import { ESTABLISH_GRID, planEstablish, type PopulationShape } from '@shared/stats/plan-establish';
+import { binomialRankCi } from '@shared/stats/rank-ci';
 import { formatNumber, levelLabel } from '../../../findings/comparison/number-format';
 import { CURVE_MARKERS, type Curves } from '../../../findings/charts/curves';
 import { PALETTE } from '../../../findings/charts/palette';

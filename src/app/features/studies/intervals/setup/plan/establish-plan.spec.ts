@@ -2,7 +2,7 @@ import { TestBed } from '@angular/core/testing';
 import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { MatInputHarness } from '@angular/material/input/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
-import { StudySettings } from '../../../../../../../shared/schemas';
+import { StudySettings } from '@shared/schemas';
 import { noAnimations } from '../../../../../../testing/http';
 import { buildSetupForm, type SetupGroup } from '../../../setup/setup-form-group';
 import { setupValues } from '../../../setup/setup-model';

@@ -6,7 +6,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { map, startWith } from 'rxjs';
-import type { Study } from '../../../../../../../shared/schemas';
+import type { Study } from '@shared/schemas';
 import { CurveChart } from '../../../findings/charts/curve-chart';
 import type { SetupGroup } from '../../../setup/setup-form-group';
 import { establishPlan, type Population } from './establish-data';

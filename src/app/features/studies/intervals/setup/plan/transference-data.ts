@@ -1,4 +1,4 @@
-import { TRANSFERENCE_OUTSIDE, allowedOutside, planTransference } from '../../../../../../../shared/stats/plan-transference';
+import { TRANSFERENCE_OUTSIDE, allowedOutside, planTransference } from '@shared/stats/plan-transference';
 import type { Curves } from '../../../findings/charts/curves';
 import { PALETTE } from '../../../findings/charts/palette';
 

@@ -1,5 +1,5 @@
 import { TestBed } from '@angular/core/testing';
-import { StudySettings } from '../../../../../../../shared/schemas';
+import { StudySettings } from '@shared/schemas';
 import { buildSetupForm, type SetupGroup } from '../../../setup/setup-form-group';
 import { setupValues } from '../../../setup/setup-model';
 import { TransferencePlan } from './transference-plan';

@@ -1,5 +1,5 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
-import type { Study } from '../../../../../../../shared/schemas';
+import type { Study } from '@shared/schemas';
 import { CurveChart } from '../../../findings/charts/curve-chart';
 import type { SetupGroup } from '../../../setup/setup-form-group';
 import { settingSignal } from './setting-signal';

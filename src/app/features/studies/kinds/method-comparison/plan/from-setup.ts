@@ -1,4 +1,4 @@
-import type { Study } from '../../../../../../../shared/schemas';
+import type { Study } from '@shared/schemas';
 import { allowableBiasText, unitOf } from '../../../../review/plan/plan-parts';
 import { formatNumber, levelLabel } from '../../../findings/comparison/number-format';
 import { REGRESSION_LABELS, usesDemingRatio } from '../../../study-text';

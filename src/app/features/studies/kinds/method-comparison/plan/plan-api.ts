@@ -1,7 +1,7 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable } from 'rxjs';
-import type { StudyPlan } from '../../../../../../../shared/schemas';
+import type { StudyPlan } from '@shared/schemas';
 
 /** A method comparison's plan by simulation: read it (GET /studies/:id/plan), run it (POST /studies/:id/plan-runs). */
 @Injectable({ providedIn: 'root' })

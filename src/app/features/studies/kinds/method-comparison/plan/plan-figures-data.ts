@@ -1,4 +1,4 @@
-import type { ComparisonPlanResult, PlanLevelFigures } from '../../../../../../../shared/stats/plan-comparison';
+import type { ComparisonPlanResult, PlanLevelFigures } from '@shared/stats/plan-comparison';
 import { findingsDecimals, formatNumber } from '../../../findings/comparison/number-format';
 import { CURVE_MARKERS, type Curves } from '../../../findings/charts/curves';
 import { PALETTE } from '../../../findings/charts/palette';

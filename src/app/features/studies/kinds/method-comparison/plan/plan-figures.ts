@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
-import type { ComparisonPlanResult } from '../../../../../../../shared/stats/plan-comparison';
+import type { ComparisonPlanResult } from '@shared/stats/plan-comparison';
 import { DecisionCaution } from '../../../../archive/decision-caution';
 import { CurveChart } from '../../../findings/charts/curve-chart';
 import { REGRESSION_LABELS } from '../../../study-text';

@@ -1,4 +1,4 @@
-import { SamplePlan } from '../../../../../../../shared/kinds/method-comparison/sample-plan';
+import { SamplePlan } from '@shared/kinds/method-comparison/sample-plan';
 import { buildPlanForm, planBody, planValues, samePlan, suggested } from './plan-form';
 import { parseGrid } from './plan-grid';
 import { issuePlace, withoutPath } from './plan-words';

@@ -1,7 +1,7 @@
 import { FormControl, FormGroup, type ValidatorFn } from '@angular/forms';
 import type { ZodType } from 'zod';
-import { SamplePlan } from '../../../../../../../shared/kinds/method-comparison/sample-plan';
-import type { ImprecisionSuggestion } from '../../../../../../../shared/schemas';
+import { SamplePlan } from '@shared/kinds/method-comparison/sample-plan';
+import type { ImprecisionSuggestion } from '@shared/schemas';
 import { ruleControl } from '../../../setup/setup-form-group';
 import { gridText, parseGrid } from './plan-grid';
 

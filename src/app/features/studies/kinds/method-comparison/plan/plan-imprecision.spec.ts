@@ -1,4 +1,4 @@
-import type { ImprecisionSuggestion } from '../../../../../../../shared/schemas';
+import type { ImprecisionSuggestion } from '@shared/schemas';
 import { buildPlanForm, planValues } from './plan-form';
 import { fillEmpty, followModel, imprecisionLabel, suggestionsOf, suggestionText } from './plan-imprecision';
 

@@ -1,5 +1,5 @@
-import type { Study, StudyPlan } from '../../../../../../../shared/schemas';
-import type { SamplePlan } from '../../../../../../../shared/kinds/method-comparison/sample-plan';
+import type { Study, StudyPlan } from '@shared/schemas';
+import type { SamplePlan } from '@shared/kinds/method-comparison/sample-plan';
 import { suggested, type PlanGroup } from './plan-form';
 
 export type Side = 'comparative' | 'candidate';

@@ -1,4 +1,4 @@
-import type { ApiIssue } from '../../../../../../../shared/schemas';
+import type { ApiIssue } from '@shared/schemas';
 import type { PlanGroup } from './plan-form';
 import { issuePlace, withoutPath } from './plan-words';
 

@@ -1,4 +1,4 @@
-import { planComparison, type ComparisonPlanOptions, type ComparisonPlanResult } from '../../../../../../../shared/stats/plan-comparison';
+import { planComparison, type ComparisonPlanOptions, type ComparisonPlanResult } from '@shared/stats/plan-comparison';
 
 /**
  * Plan runs of invented glucose comparisons for the client's tests, made by the real engine (shared/stats) so the panel

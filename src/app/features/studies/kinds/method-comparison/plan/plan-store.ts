@@ -1,7 +1,7 @@
 import { Injectable, computed, effect, inject, signal, untracked } from '@angular/core';
 import { Observable, tap } from 'rxjs';
-import type { StudyPlan } from '../../../../../../../shared/schemas';
-import type { ComparisonPlanResult } from '../../../../../../../shared/stats/plan-comparison';
+import type { StudyPlan } from '@shared/schemas';
+import type { ComparisonPlanResult } from '@shared/stats/plan-comparison';
 import { ApiError } from '../../../../../core/http/api-error';
 import { AnalysisStore, isWorking } from '../../../findings/analysis-store';
 import { PlanApi } from './plan-api';

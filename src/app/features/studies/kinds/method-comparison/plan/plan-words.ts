@@ -1,4 +1,4 @@
-import type { ApiIssue } from '../../../../../../../shared/schemas';
+import type { ApiIssue } from '@shared/schemas';
 import type { PlanValues } from './plan-form';
 
 /** A probability as the plan's table and sentences write it: 0.677 → "67.7%". */

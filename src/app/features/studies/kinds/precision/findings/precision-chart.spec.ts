@@ -1,5 +1,5 @@
 import { dayPlot, dayPlotOptions, dayPlotSummary, dayTick, flaggedIndices, spreadOffset } from './precision-chart';
-import { LEVEL_1, LEVEL_2 } from '../../../../../../../shared/kinds/precision/words-fixture';
+import { LEVEL_1, LEVEL_2 } from '@shared/kinds/precision/words-fixture';
 import { precisionFormat } from './precision-result';
 
 const F = precisionFormat({ settings: { decimals: 2, unit: 'mmol/L' }, analyteUnit: 'mmol/L' } as never);

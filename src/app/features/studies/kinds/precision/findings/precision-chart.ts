@@ -1,8 +1,8 @@
 import type { Scale } from 'chart.js';
-import { resultText, statText, type PrecisionFormat } from '../../../../../../../shared/kinds/precision/words';
-import type { PrecisionMaterialResult } from '../../../../../../../shared/stats/precision-types';
-import { plural } from '../../../../../../../shared/types/plural';
-import { paddedAxis, type PlotAxis } from '../../../../../../../shared/types/plot-axes';
+import { resultText, statText, type PrecisionFormat } from '@shared/kinds/precision/words';
+import type { PrecisionMaterialResult } from '@shared/stats/precision-types';
+import { plural } from '@shared/types/plural';
+import { paddedAxis, type PlotAxis } from '@shared/types/plot-axes';
 import { linearScale, tipOf } from '../../../findings/charts/chart-options';
 import type { Markers } from '../../../findings/charts/markers-plugin';
 import { PALETTE } from '../../../findings/charts/palette';

@@ -1,8 +1,8 @@
 import { TestBed } from '@angular/core/testing';
-import type { Analysis, Study } from '../../../../../../../shared/schemas';
-import { StudySettings } from '../../../../../../../shared/schemas';
+import type { Analysis, Study } from '@shared/schemas';
+import { StudySettings } from '@shared/schemas';
 import { noAnimations } from '../../../../../../testing/http';
-import { precisionResult } from '../../../../../../../shared/kinds/precision/words-fixture';
+import { precisionResult } from '@shared/kinds/precision/words-fixture';
 import { PrecisionFindings } from './precision-findings';
 
 const STUDY = {

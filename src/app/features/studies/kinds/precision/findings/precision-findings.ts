@@ -1,12 +1,12 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
-import type { Analysis, Study } from '../../../../../../../shared/schemas';
-import { CAUTION } from '../../../../../../../shared/stats/comparison-types';
+import type { Analysis, Study } from '@shared/schemas';
+import { CAUTION } from '@shared/stats/comparison-types';
 import {
   anyNotVerified, componentHeadings, componentRows, designRows, flaggedRows, materialSummary, overallSentence, resultHeading, termsNote,
   truenessRows, verdictLines, type VerdictLine,
-} from '../../../../../../../shared/kinds/precision/words';
-import type { PrecisionVerdict } from '../../../../../../../shared/stats/precision-types';
+} from '@shared/kinds/precision/words';
+import type { PrecisionVerdict } from '@shared/stats/precision-types';
 import { ErrorBanner } from '../../../../../ui/error-banner';
 import { dayPlot } from './precision-chart';
 import { PrecisionDayPlot } from './precision-day-plot';

@@ -1,4 +1,4 @@
-import { precisionResult } from '../../../../../../../shared/kinds/precision/words-fixture';
+import { precisionResult } from '@shared/kinds/precision/words-fixture';
 import { asPrecision, precisionFormat } from './precision-result';
 
 describe('precision results on the Findings panel', () => {

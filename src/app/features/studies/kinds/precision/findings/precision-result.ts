@@ -1,6 +1,6 @@
-import { precisionFormat as formatOf, type PrecisionFormat } from '../../../../../../../shared/kinds/precision/words';
-import type { Study } from '../../../../../../../shared/schemas';
-import type { PrecisionResult } from '../../../../../../../shared/stats/precision-types';
+import { precisionFormat as formatOf, type PrecisionFormat } from '@shared/kinds/precision/words';
+import type { Study } from '@shared/schemas';
+import type { PrecisionResult } from '@shared/stats/precision-types';
 
 /** A precision verification's results as the API returns them, or null for results of another kind. */
 export function asPrecision(results: unknown): PrecisionResult | null {

@@ -1,4 +1,4 @@
-import { levelRows, rangeFormat } from '../../../../../../../shared/kinds/reportable-range/words';
+import { levelRows, rangeFormat } from '@shared/kinds/reportable-range/words';
 import { along, deviationPicture } from './deviation-picture';
 import { fractionRange, straightRange, tightRange } from './range-results.testing';
 

@@ -1,9 +1,9 @@
-import { goalCaption, trackLegend, trackWords, type DeviationMark, type RangeFormat } from '../../../../../../../shared/kinds/reportable-range/words';
-import type { Interval } from '../../../../../../../shared/stats/confidence-interval';
-import type { RangeResult } from '../../../../../../../shared/stats/reportable-range-types';
-import { formatNumber, levelLabel } from '../../../../../../../shared/types/findings-numbers';
-import { niceAxis } from '../../../../../../../shared/types/plot-axes';
-import { NARROW_CI_SHORT } from '../../../../../../../shared/types/resolution-words';
+import { goalCaption, trackLegend, trackWords, type DeviationMark, type RangeFormat } from '@shared/kinds/reportable-range/words';
+import type { Interval } from '@shared/stats/confidence-interval';
+import type { RangeResult } from '@shared/stats/reportable-range-types';
+import { formatNumber, levelLabel } from '@shared/types/findings-numbers';
+import { niceAxis } from '@shared/types/plot-axes';
+import { NARROW_CI_SHORT } from '@shared/types/resolution-words';
 
 /**
  * The deviation at each level as a picture against the goal, in the visual language of the decision-level picture
@@ -14,7 +14,7 @@ import { NARROW_CI_SHORT } from '../../../../../../../shared/types/resolution-wo
  * number is the engine's (the deviation, its CI, the goal at the level, within), written by the study's words
  * (shared/kinds/reportable-range/words.ts).
  */
-export type { DeviationMark } from '../../../../../../../shared/kinds/reportable-range/words';
+export type { DeviationMark } from '@shared/kinds/reportable-range/words';
 
 export interface DeviationTrack {
   key: string;

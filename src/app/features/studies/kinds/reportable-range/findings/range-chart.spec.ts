@@ -1,5 +1,5 @@
-import { rangeFormat } from '../../../../../../../shared/kinds/reportable-range/words';
-import { polynomialAt } from '../../../../../../../shared/stats/polynomial-fit';
+import { rangeFormat } from '@shared/kinds/reportable-range/words';
+import { polynomialAt } from '@shared/stats/polynomial-fit';
 import { curveXs, goalAt, rangePlot } from './range-chart';
 import { fractionRange, shortenedRange, straightRange } from './range-results.testing';
 

@@ -1,10 +1,10 @@
-import { goalText, percentText, statText, xText, type RangeFormat } from '../../../../../../../shared/kinds/reportable-range/words';
-import { allowableBiasAt } from '../../../../../../../shared/stats/decision-levels';
-import { polynomialAt } from '../../../../../../../shared/stats/polynomial-fit';
-import type { RangeResult } from '../../../../../../../shared/stats/reportable-range-types';
-import { formatNumber, withUnit } from '../../../../../../../shared/types/findings-numbers';
-import { plural } from '../../../../../../../shared/types/plural';
-import { paddedAxis, type PlotAxis } from '../../../../../../../shared/types/plot-axes';
+import { goalText, percentText, statText, xText, type RangeFormat } from '@shared/kinds/reportable-range/words';
+import { allowableBiasAt } from '@shared/stats/decision-levels';
+import { polynomialAt } from '@shared/stats/polynomial-fit';
+import type { RangeResult } from '@shared/stats/reportable-range-types';
+import { formatNumber, withUnit } from '@shared/types/findings-numbers';
+import { plural } from '@shared/types/plural';
+import { paddedAxis, type PlotAxis } from '@shared/types/plot-axes';
 import type { MarkerArea, Markers } from '../../../findings/charts/markers-plugin';
 import { PALETTE } from '../../../findings/charts/palette';
 import type { PlotDatum, PointDataset } from '../../../findings/charts/scatter-data';

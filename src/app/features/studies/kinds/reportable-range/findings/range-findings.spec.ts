@@ -1,10 +1,10 @@
 import { TestBed } from '@angular/core/testing';
 import {
   bestFitSentence, claimText, designRows, fitRows, levelHeadings, levelRows, rangeFormat as formatOf, rangeText, verdictSentence,
-} from '../../../../../../../shared/kinds/reportable-range/words';
-import type { Analysis, Study } from '../../../../../../../shared/schemas';
-import { StudySettings } from '../../../../../../../shared/schemas';
-import { CAUTION } from '../../../../../../../shared/stats/comparison-types';
+} from '@shared/kinds/reportable-range/words';
+import type { Analysis, Study } from '@shared/schemas';
+import { StudySettings } from '@shared/schemas';
+import { CAUTION } from '@shared/stats/comparison-types';
 import { noAnimations } from '../../../../../../testing/http';
 import { RangeFindings } from './range-findings';
 import { asRange, rangeFormat } from './range-result';

@@ -1,12 +1,12 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
-import { reportableRangeMeta } from '../../../../../../../shared/kinds/reportable-range/meta';
+import { reportableRangeMeta } from '@shared/kinds/reportable-range/meta';
 import {
   VERDICT_HEADLINES, bestFitSentence, claimText, designRows, fitRows, levelHeadings, levelRows, rangeText, verdictSentence,
-} from '../../../../../../../shared/kinds/reportable-range/words';
-import type { Analysis, Study } from '../../../../../../../shared/schemas';
-import { CAUTION } from '../../../../../../../shared/stats/comparison-types';
-import { resolutionRule } from '../../../../../../../shared/types/resolution-words';
+} from '@shared/kinds/reportable-range/words';
+import type { Analysis, Study } from '@shared/schemas';
+import { CAUTION } from '@shared/stats/comparison-types';
+import { resolutionRule } from '@shared/types/resolution-words';
 import { ErrorBanner } from '../../../../../ui/error-banner';
 import { FindingsChart } from '../../../findings/charts/findings-chart';
 import { rangeOwn } from '../own-settings';

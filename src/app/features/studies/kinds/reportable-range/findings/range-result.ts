@@ -1,6 +1,6 @@
-import { rangeFormat as formatOf, type RangeFormat } from '../../../../../../../shared/kinds/reportable-range/words';
-import type { Study } from '../../../../../../../shared/schemas';
-import type { RangeResult } from '../../../../../../../shared/stats/reportable-range-types';
+import { rangeFormat as formatOf, type RangeFormat } from '@shared/kinds/reportable-range/words';
+import type { Study } from '@shared/schemas';
+import type { RangeResult } from '@shared/stats/reportable-range-types';
 
 /** A reportable-range study's results as the API returns them, or null for results of another kind. */
 export function asRange(results: unknown): RangeResult | null {

@@ -1,5 +1,5 @@
-import { analyzeReportableRange } from '../../../../../../../shared/stats/analyze-reportable-range';
-import type { RangeOptions, RangeResult } from '../../../../../../../shared/stats/reportable-range-types';
+import { analyzeReportableRange } from '@shared/stats/analyze-reportable-range';
+import type { RangeOptions, RangeResult } from '@shared/stats/reportable-range-types';
 
 /**
  * Results of invented reportable-range studies for the client's tests, made by the real engine (shared/stats) so the

@@ -1,5 +1,5 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
-import { along, type DecisionPicture, type DecisionTrack, type TrackMark } from '../../../../../../../../shared/types/decision-track';
+import { along, type DecisionPicture, type DecisionTrack, type TrackMark } from '@shared/types/decision-track';
 
 let figures = 0;
 
