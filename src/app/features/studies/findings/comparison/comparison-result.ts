@@ -6,7 +6,7 @@ import type { ComparisonUnits } from '@shared/types/findings-rows';
 
 /**
  * The results of a method-comparison analysis as the API returns them: the engine's result
- * (shared/stats, types only: the browser computes nothing authoritative) plus the grid positions
+ * (shared/stats types; the figures are the server's stored run, never recomputed here) plus the grid positions
  * of the flagged outliers, which the server adds.
  */
 export type ComparisonFindingsResult = ComparisonResult & { outlierPositions?: number[] };
