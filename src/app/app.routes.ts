@@ -68,7 +68,7 @@ export const routes: Routes = [
         title: 'Laboratory · Parallax',
         canActivate: [roleGuard('admin')],
         loadComponent: () =>
-          import('./features/archive/laboratory-settings/laboratory-settings-page').then((m) => m.LaboratorySettingsPage),
+          import('./features/admin/laboratory-settings/laboratory-settings-page').then((m) => m.LaboratorySettingsPage),
       },
       {
         path: 'admin',

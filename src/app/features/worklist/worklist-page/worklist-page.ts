@@ -5,7 +5,7 @@ import { RouterLink } from '@angular/router';
 import { AuthStore } from '../../../core/auth/auth-store';
 import { navigationFor } from '../../../core/layout/navigation';
 import { DueSection } from '../../releases/due/due-section';
-import { WorklistSections } from '../../studies/worklist/worklist-sections';
+import { WorklistSections } from '../sections/worklist-sections';
 import { dutiesOf } from '../role-duties';
 
 /** The home page: who you are, what your roles are for, and the pages open to you now. */

@@ -7,7 +7,7 @@ import type { StudySummary, Worklist } from '@shared/schemas';
 import { AuthStore } from '../../../core/auth/auth-store';
 import { ErrorBanner } from '../../../ui/error-banner';
 import { laboratoryTime } from '@shared/types/lab-time';
-import { stateLabel } from '../study-text';
+import { stateLabel } from '../../studies/study-text';
 import { WorklistStore } from './worklist-store';
 
 interface Section {

@@ -1,7 +1,7 @@
 import { Injectable, computed, inject, signal } from '@angular/core';
 import type { Worklist } from '@shared/schemas';
 import { ApiError } from '../../../core/http/api-error';
-import { StudiesApi } from '../api/studies-api';
+import { StudiesApi } from '../../studies/api/studies-api';
 
 interface WorklistState {
   worklist: Worklist | null;
