@@ -2,7 +2,7 @@ import { expect, test } from '@playwright/test';
 import { execFileSync } from 'node:child_process';
 import { mkdirSync, readdirSync, statSync } from 'node:fs';
 import path from 'node:path';
-import { RANGE_DEMO_ROWS } from '../server/kinds/reportable-range/demo-data';
+import { RANGE_DEMO_ROWS } from '@shared/kinds/reportable-range/demo-data';
 import { cell, choose, closeNotice, fullShot, SCREENSHOTS, signIn } from './fixtures/pages';
 
 const OUT = path.resolve(__dirname, '../.test-output');

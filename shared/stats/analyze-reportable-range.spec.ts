@@ -1,9 +1,9 @@
-import { RANGE_DEMOS } from '../../server/kinds/reportable-range/demo';
+import { RANGE_DEMO_ROWS, RANGE_DEMO_SETTINGS } from '../kinds/reportable-range/demo-data';
 import { analyzeReportableRange, longestRun } from './analyze-reportable-range';
 import { fitPolynomial } from './polynomial-fit';
 import type { RangeOptions, RangeRow } from './reportable-range-types';
 
-const demo = RANGE_DEMOS[0];
+const demo = { rows: RANGE_DEMO_ROWS, settings: RANGE_DEMO_SETTINGS };
 const demoRows = (): RangeRow[] => demo.rows.map((r) => ({ level: String(r.level), replicate: Number(r.replicate), value: Number(r.value) }));
 const demoOptions = (): RangeOptions => ({ ...(demo.settings as unknown as RangeOptions), unit: 'mmol/L', resamples: 2000 });
 

@@ -1,6 +1,6 @@
 import { percentileInterval } from './confidence-interval';
 import { CAUTION } from './comparison-types';
-import { RANGE_LEVELS } from '../kinds/reportable-range/meta';
+import { RANGE_LEVELS } from './reportable-range-types';
 import { cochranC } from './cochran-c';
 import { allowableBiasAt } from './decision-levels';
 import { engineInfo } from './engine';
@@ -14,7 +14,7 @@ import type { RangeFit, RangeLevelResult, RangeOptions, RangeResult, RangeRow, R
 import { streamFor } from './rng';
 import { mean as meanOf, sampleSd, sampleVariance } from './summation';
 import { decimalPlace } from './precision';
-import { givenText, rangeFormat, verdictSentence } from '../kinds/reportable-range/words';
+import { givenText, rangeFormat, verdictSentence } from './reportable-range-words';
 import { withUnit } from '../types/findings-numbers';
 
 /** Cochran's test of the replicate scatter at ISO 5725-2's "outlier" level (from memory). */

@@ -1,6 +1,6 @@
 import { DEFAULT_RESAMPLES, MAX_RESAMPLES, MIN_RESAMPLES } from './bootstrap';
 import { decimalsOption, integerOption, isLevel, LEVEL_RULE, numberOption, OptionError, optionalNumber, seedOption } from './options';
-import { RANGE_LEVELS } from '../kinds/reportable-range/meta';
+import { RANGE_LEVELS } from './reportable-range-types';
 import { roundSignificant } from './precision';
 import type { RangeBasis, RangeOptions } from './reportable-range-types';
 

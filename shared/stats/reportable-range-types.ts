@@ -9,6 +9,9 @@ import type { Resolution } from './resolution';
  */
 
 /** One row of a reportable-range study as the engine reads it (excluded rows are counted, never used). */
+/** CLSI EP06 practice (DOMAIN.md "Reportable range", from memory): 5 to 11 levels; a study is submitted with at least the fewest. */
+export const RANGE_LEVELS = { fewest: 5, most: 11 } as const;
+
 export interface RangeRow {
   level: string;
   replicate: number | null;

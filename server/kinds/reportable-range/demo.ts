@@ -1,5 +1,5 @@
 import type { DemoStudy } from '../kind';
-import { RANGE_DEMO_ROWS, RANGE_DEMO_SETTINGS } from './demo-data';
+import { RANGE_DEMO_ROWS, RANGE_DEMO_SETTINGS } from '@shared/kinds/reportable-range/demo-data';
 
 /**
  * The demo laboratory's reportable-range study on the new chemistry line (an invented scenario): nine mixtures

@@ -1,8 +1,8 @@
 import * as z from 'zod';
 import type { KindMeta } from '../kind';
 
-/** CLSI EP06 practice (DOMAIN.md "Reportable range", from memory): 5 to 11 levels; a study is submitted with at least the fewest. */
-export const RANGE_LEVELS = { fewest: 5, most: 11 } as const;
+import { RANGE_LEVELS } from '../../stats/reportable-range-types';
+export { RANGE_LEVELS };
 
 const num = (what: string) => z.number({ error: `${what} must be a number` }).finite(`${what} must be a finite number`);
 

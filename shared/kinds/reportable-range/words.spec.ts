@@ -1,4 +1,4 @@
-import { RANGE_DEMO_ROWS, RANGE_DEMO_SETTINGS } from '../../../server/kinds/reportable-range/demo-data';
+import { RANGE_DEMO_ROWS, RANGE_DEMO_SETTINGS } from './demo-data';
 import { analyzeReportableRange } from '../../stats/analyze-reportable-range';
 import type { RangeOptions } from '../../stats/reportable-range-types';
 import {

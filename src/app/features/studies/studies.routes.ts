@@ -42,7 +42,7 @@ export const STUDIES_ROUTES: Routes = [
       {
         path: 'history',
         title: 'History · Parallax',
-        loadComponent: () => import('../review/history-tab').then((m) => m.HistoryTab),
+        loadComponent: () => import('./study/history-tab').then((m) => m.HistoryTab),
       },
     ],
   },

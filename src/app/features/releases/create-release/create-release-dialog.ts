@@ -15,7 +15,7 @@ import { AuthStore } from '../../../core/auth/auth-store';
 import { ErrorBanner } from '../../../ui/error-banner';
 import { FieldErrorPipe } from '../../../ui/field-error';
 import { schemaRule } from '../../../ui/schema-rule';
-import { DialogSend } from '../../review/dialogs/dialog-send';
+import { DialogSend } from '../../signoff/dialogs/dialog-send';
 import { StudyCatalogApi } from '../../studies/api/catalog-api';
 import { ReleaseApi } from '../release-api';
 import { kindsWords } from '../release-words';

@@ -9,7 +9,7 @@ import { UpdateReleaseBody, type Release } from '@shared/schemas';
 import { ErrorBanner } from '../../../ui/error-banner';
 import { FieldErrorPipe } from '../../../ui/field-error';
 import { schemaRule } from '../../../ui/schema-rule';
-import { DialogSend } from '../../review/dialogs/dialog-send';
+import { DialogSend } from '../../signoff/dialogs/dialog-send';
 import { ReleaseApi } from '../release-api';
 import { requirementArray, requirementsOf } from '../requirement-rows/requirement-form';
 import { RequirementRows } from '../requirement-rows/requirement-rows';

@@ -10,7 +10,7 @@ import { catchError, map, of, startWith } from 'rxjs';
 import { STUDY_KIND_LABELS, STUDY_STATE_LABELS, type Release, type StudyKind, type StudySummary } from '@shared/schemas';
 import { ApiError } from '../../../core/http/api-error';
 import { ErrorBanner } from '../../../ui/error-banner';
-import { DialogSend } from '../../review/dialogs/dialog-send';
+import { DialogSend } from '../../signoff/dialogs/dialog-send';
 import { StudiesApi } from '../../studies/api/studies-api';
 import { ReleaseApi } from '../release-api';
 import { kindsWords } from '../release-words';

@@ -9,8 +9,8 @@ import type { DueItem, Release } from '@shared/schemas';
 import { DayDates } from '../../../ui/day-dates';
 import { ErrorBanner } from '../../../ui/error-banner';
 import { FieldErrorPipe } from '../../../ui/field-error';
-import { DialogSend } from '../../review/dialogs/dialog-send';
-import { notBlank } from '../../review/dialogs/not-blank';
+import { DialogSend } from '../../signoff/dialogs/dialog-send';
+import { notBlank } from '../../signoff/dialogs/not-blank';
 import { ReleaseApi } from '../release-api';
 
 /**

@@ -2,7 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, input } from '@angular/co
 import { MatIconModule } from '@angular/material/icon';
 import type { HistoryEvent, Signature, Study } from '@shared/schemas';
 import { ZonedPipe, labZone } from '../../../ui/lab-time';
-import { planRows } from './plan-rows';
+import { planRows } from '../../studies/kinds/plan-rows';
 
 /**
  * The plan and acceptance criteria as they stand, the director's plan approval if any, and — standing

@@ -8,8 +8,8 @@ import { AnalysesApi } from '../../studies/api/analyses-api';
 import { SpecimensStore } from '../../studies/specimens/specimens-store';
 import { hasKindView, kindView } from '../../studies/kinds';
 import { StudyStore } from '../../studies/study/study-store';
-import { SignoffApi } from '../signoff-api';
-import { analysisToShow, planApprovalOf, signOffOf } from '../signatures';
+import { SignoffApi } from '../../signoff/signoff-api';
+import { analysisToShow, planApprovalOf, signOffOf } from '../../signoff/signatures';
 
 interface ReviewState {
   /** "id:version" of the study these were read for; a new version reads them again. */

@@ -3,7 +3,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import type { Signature } from '@shared/schemas';
 import { SignatureList } from '../../archive/signature-list/signature-list';
-import { reportUrl } from '../signoff-api';
+import { reportUrl } from '../../signoff/signoff-api';
 
 /** The director's signature on a signed study, as it was given, with the signed PDF beside it. */
 @Component({

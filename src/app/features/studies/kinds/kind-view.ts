@@ -1,6 +1,6 @@
 import type { Type } from '@angular/core';
 import type { StudyKind } from '@shared/schemas';
-import type { PlanRow, PlanStudy } from '../../review/plan/plan-parts';
+import type { PlanRow, PlanStudy } from './plan-parts';
 import type { OwnSettingsControls } from '../setup/setup-form-group';
 import type { SetupGuidance } from '../setup/setup-guidance';
 import type { SpecimenLayout } from '../specimens/specimen-layout';

@@ -4,7 +4,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatTabsModule } from '@angular/material/tabs';
 import { RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
 import { ErrorBanner } from '../../../ui/error-banner';
-import { SignoffBar } from '../../review/signoff-bar/signoff-bar';
+import { SignoffBar } from './signoff-bar/signoff-bar';
 import { PrintLayout } from '../print-layout';
 import { AnalysisStore } from '../findings/analysis-store';
 import { SpecimensStore } from '../specimens/specimens-store';

@@ -1,4 +1,4 @@
-import { type PlanRow, type PlanStudy, bootstrapRow, orNone, specimensRow } from '../../../review/plan/plan-parts';
+import { type PlanRow, type PlanStudy, bootstrapRow, orNone, specimensRow } from '../plan-parts';
 import { METHOD_WORDS } from '../../intervals/findings/interval-wording';
 import { percentileWords } from '../../intervals/setup/percentile-choices';
 

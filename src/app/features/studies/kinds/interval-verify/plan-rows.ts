@@ -1,4 +1,4 @@
-import { type PlanRow, type PlanStudy, bootstrapRow, orNone, specimensRow, unitOf, withUnit } from '../../../review/plan/plan-parts';
+import { type PlanRow, type PlanStudy, bootstrapRow, orNone, specimensRow, unitOf, withUnit } from '../plan-parts';
 
 /** A verification's plan: the stated interval and its source, the population, the acceptance rule and the count. */
 export function verifyRows(study: PlanStudy): PlanRow[] {

@@ -1,4 +1,4 @@
-import { type PlanRow, type PlanStudy, allowableBiasText, bootstrapRow, orNone, specimensRow, unitOf, withUnit } from '../../../review/plan/plan-parts';
+import { type PlanRow, type PlanStudy, allowableBiasText, bootstrapRow, orNone, specimensRow, unitOf, withUnit } from '../plan-parts';
 import { formatNumber } from '../../findings/comparison/number-format';
 import { DIFFERENCE_LABELS, REGRESSION_LABELS, usesDemingRatio } from '../../study-text';
 import type { SamplePlan } from '@shared/kinds/method-comparison/sample-plan';

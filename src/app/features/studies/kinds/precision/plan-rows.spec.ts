@@ -1,6 +1,6 @@
 import { PrecisionSettings } from '@shared/kinds/precision/meta';
 import { StudySettings, type Study } from '@shared/schemas';
-import { planRows } from '../../../review/plan/plan-rows';
+import { planRows } from '../plan-rows';
 import { PRECISION_RULES } from './guidance';
 
 const LEVEL_1 = { name: 'Level 1', claimRepeatability: 0.12, claimWithinLab: 0.2, claimAs: 'sd' as const, assignedValue: 5.2, assignedUncertainty: 0.05, assignedSource: 'certificate, lot C-88' };

@@ -1,6 +1,6 @@
 import type { PrecisionMaterial } from '@shared/kinds/precision/meta';
 import { plural } from '@shared/types/plural';
-import { type PlanRow, type PlanStudy, orNone, unitOf, withUnit } from '../../../review/plan/plan-parts';
+import { type PlanRow, type PlanStudy, orNone, unitOf, withUnit } from '../plan-parts';
 import { PRECISION_RULES } from './guidance';
 import { precisionOwn } from './own-settings';
 

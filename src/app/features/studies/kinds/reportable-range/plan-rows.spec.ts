@@ -1,6 +1,6 @@
 import { RangeSettings } from '@shared/kinds/reportable-range/meta';
 import { StudySettings, type Study } from '@shared/schemas';
-import { planRows } from '../../../review/plan/plan-rows';
+import { planRows } from '../plan-rows';
 import { RANGE_RULES } from './guidance';
 
 const FRACTIONS = [0, 0.25, 0.5, 0.75, 1].map((fraction, i) => ({ name: `Level ${i + 1}`, assigned: null, fraction }));

@@ -1,7 +1,7 @@
 import type { RangeLevel } from '@shared/kinds/reportable-range/meta';
 import { levelLabel } from '@shared/types/findings-numbers';
 import { plural } from '@shared/types/plural';
-import { type PlanRow, type PlanStudy, orNone, unitOf, withUnit } from '../../../review/plan/plan-parts';
+import { type PlanRow, type PlanStudy, orNone, unitOf, withUnit } from '../plan-parts';
 import { RANGE_RULES } from './guidance';
 import { type RangeOwn, pooledValue, rangeOwn } from './own-settings';
 import { MIN_LEVELS } from './settings-controls';

@@ -1,5 +1,5 @@
 import type { Study } from '@shared/schemas';
-import { allowableBiasText, unitOf } from '../../../../review/plan/plan-parts';
+import { allowableBiasText, unitOf } from '../../plan-parts';
 import { formatNumber, levelLabel } from '../../../findings/comparison/number-format';
 import { REGRESSION_LABELS, usesDemingRatio } from '../../../study-text';
 

@@ -1,9 +1,9 @@
 import { TestBed } from '@angular/core/testing';
 import { StudySettings, type Study } from '@shared/schemas';
-import { apiError, httpController, noAnimations, provideTestHttp } from '../../../../testing/http';
-import { provideSession, restoreSession, sessionUser } from '../../../../testing/session-users';
+import { apiError, httpController, noAnimations, provideTestHttp } from '../../../../../testing/http';
+import { provideSession, restoreSession, sessionUser } from '../../../../../testing/session-users';
 import type { Role } from '@shared/schemas';
-import { StudyStore } from '../../studies/study/study-store';
+import { StudyStore } from '../study-store';
 import { SignoffBar } from './signoff-bar';
 
 function study(patch: Partial<Study> = {}): Study {

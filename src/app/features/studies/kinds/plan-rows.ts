@@ -1,4 +1,4 @@
-import { kindView } from '../../studies/kinds';
+import { kindView } from '.';
 import type { PlanRow, PlanStudy } from './plan-parts';
 
 export { allowableBiasText, type PlanRow, type PlanStudy } from './plan-parts';

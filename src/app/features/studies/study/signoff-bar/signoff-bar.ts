@@ -6,17 +6,17 @@ import { MatIconModule } from '@angular/material/icon';
 import { Router, RouterLink } from '@angular/router';
 import { catchError, distinctUntilChanged, filter, map, of, switchMap } from 'rxjs';
 import type { Signature, Study, SubmitBody } from '@shared/schemas';
-import { AuthStore } from '../../../core/auth/auth-store';
-import { ApiError } from '../../../core/http/api-error';
-import { Notices } from '../../../core/notify/notices';
-import { ZonedPipe, labZone } from '../../../ui/lab-time';
-import { StudyStore } from '../../studies/study/study-store';
-import { ReasonData, ReasonDialog } from '../dialogs/reason-dialog';
-import { SignatureData, SignatureDialog } from '../dialogs/signature-dialog';
-import { SubmitData, SubmitDialog } from '../dialogs/submit-dialog';
-import { StepId, nextStep } from '../next-step';
-import { planApprovalOf, signOffOf } from '../signatures';
-import { SignoffApi, reportUrl } from '../signoff-api';
+import { AuthStore } from '../../../../core/auth/auth-store';
+import { ApiError } from '../../../../core/http/api-error';
+import { Notices } from '../../../../core/notify/notices';
+import { ZonedPipe, labZone } from '../../../../ui/lab-time';
+import { StudyStore } from '../study-store';
+import { ReasonData, ReasonDialog } from '../../../signoff/dialogs/reason-dialog';
+import { SignatureData, SignatureDialog } from '../../../signoff/dialogs/signature-dialog';
+import { SubmitData, SubmitDialog } from '../../../signoff/dialogs/submit-dialog';
+import { StepId, nextStep } from '../../../signoff/next-step';
+import { planApprovalOf, signOffOf } from '../../../signoff/signatures';
+import { SignoffApi, reportUrl } from '../../../signoff/signoff-api';
 
 /**
  * Above the study's tabs: its sign-off state in words and the next step this user may take — submit,

@@ -1,6 +1,6 @@
 import type { Study, StudySettings } from '@shared/schemas';
-import { formatNumber, levelLabel } from '../../studies/findings/comparison/number-format';
-import { INTERVAL_LABELS } from '../../studies/study-text';
+import { formatNumber, levelLabel } from '../findings/comparison/number-format';
+import { INTERVAL_LABELS } from '../study-text';
 
 /** One line of the plan: what was fixed before the data, in words; `missing` marks what sign-off needs but is not set. */
 export interface PlanRow {

@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
-import { StudyHistory } from '../archive/study-history';
-import { StudyStore } from '../studies/study/study-store';
+import { StudyHistory } from '../../archive/study-history';
+import { StudyStore } from './study-store';
 
 /** The study page's History tab: the study's history in words (a child route of the study page, sharing its StudyStore). */
 @Component({
