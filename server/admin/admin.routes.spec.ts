@@ -73,20 +73,42 @@ describe('users', () => {
     expect((await admin.agent.get('/api/v1/users')).body.length).toBe(before);
   });
 
-  it('assigns roles and deactivates with before and after in the audit trail; a deactivated user cannot sign in', async () => {
+  it('assigns roles and deactivates with before and after in the audit trail; a deactivated user\'s live session ends and signing in again is refused', async () => {
     const admin = await signedIn(h, 'admin@valeharbor.example');
     const email = uniqueEmail('roles');
     const created = (await admin.agent.post('/api/v1/users').set('X-XSRF-TOKEN', admin.xsrf).send({ name: 'Role Person', email, roles: ['technologist'] })).body;
     const changed = await admin.agent.patch(`/api/v1/users/${created.id}`).set('X-XSRF-TOKEN', admin.xsrf).send({ roles: ['technologist', 'director'] }).expect(200);
     expect(changed.body.roles).toEqual(['technologist', 'director']);
     await admin.agent.patch(`/api/v1/users/${created.id}`).set('X-XSRF-TOKEN', admin.xsrf).send({ roles: ['chief'] }).expect(400);
+    // The user sets a password from the invitation and signs in: a live session, and the password works.
+    const token = /\/set-password\/([A-Za-z0-9_-]+)/.exec((await mailTo(email)).text)![1];
+    const visitor = await anonymous(h);
+    await visitor.agent.post(`/api/v1/password-links/${token}`).set('X-XSRF-TOKEN', visitor.xsrf).send({ password: 'role-person-password' }).expect(204);
+    const live = await signedIn(h, email, 'role-person-password');
+    await live.agent.get('/api/v1/worklist').expect(200);
+
     await admin.agent.patch(`/api/v1/users/${created.id}`).set('X-XSRF-TOKEN', admin.xsrf).send({ active: false }).expect(200);
-    // In the order they were written: the role change comes before the deactivation.
+    // The live session is refused at its next request, and signing in again with the right password is refused.
+    await live.agent.get('/api/v1/worklist').expect(401);
+    await live.agent.get('/api/v1/session').expect(401);
+    const again = await anonymous(h);
+    const refused = await again.agent.post('/api/v1/session').set('X-XSRF-TOKEN', again.xsrf).send({ email, password: 'role-person-password' }).expect(401);
+    expect(refused.body.error).toBe('E-mail or password is wrong, or the account is locked or inactive');
+    await again.agent.get('/api/v1/session').expect(401);
+
+    // In the order they were written: the role change, the deactivation, the refused sign-in.
     const events = await h.database.db.select().from(auditEvents)
       .where(and(eq(auditEvents.entity, 'user'), eq(auditEvents.entityId, String(created.id)))).orderBy(asc(auditEvents.id));
-    const update = events.find((e) => e.action === 'user.updated')!;
-    expect(update.before).toMatchObject({ roles: ['technologist'] });
-    expect(update.after).toMatchObject({ roles: ['technologist', 'director'] });
+    const updates = events.filter((e) => e.action === 'user.updated');
+    expect(updates).toHaveLength(2);
+    expect(updates[0].before).toMatchObject({ roles: ['technologist'], active: true });
+    expect(updates[0].after).toMatchObject({ roles: ['technologist', 'director'], active: true });
+    expect(updates[1].before).toMatchObject({ active: true });
+    expect(updates[1].after).toMatchObject({ active: false });
+    const refusal = events.filter((e) => e.action === 'sign-in.refused');
+    expect(refusal).toHaveLength(1);
+    expect(refusal[0].after).toMatchObject({ why: 'inactive' });
+    expect(refusal[0].id).toBeGreaterThan(updates[1].id);
   });
 });
 
@@ -124,8 +146,21 @@ describe('laboratory isolation', () => {
     await cedar.agent.patch(`/api/v1/users/${valeUser.id}`).set('X-XSRF-TOKEN', cedar.xsrf).send({ active: false }).expect(404);
     await cedar.agent.post(`/api/v1/users/${valeUser.id}/unlock`).set('X-XSRF-TOKEN', cedar.xsrf).expect(404);
     const cedarUsers = (await cedar.agent.get('/api/v1/users')).body.map((u: { email: string }) => u.email);
-    expect(cedarUsers.every((e: string) => e.endsWith('@cedarpoint.example'))).toBe(true);
-    const cedarMail = (await cedar.agent.get('/api/v1/mailbox')).body;
-    expect(cedarMail.every((m: { to: string[] }) => m.to.some((t) => t.endsWith('@cedarpoint.example')))).toBe(true);
+    expect(cedarUsers).toContain('admin@cedarpoint.example');
+    expect(cedarUsers.filter((e: string) => !e.endsWith('@cedarpoint.example'))).toEqual([]);
+    // Each laboratory invites someone; each mailbox holds its own invitation and not the other's (never empty here).
+    const cedarEmail = uniqueEmail('iso-cedar').replace('@valeharbor.example', '@cedarpoint.example');
+    const valeEmail = uniqueEmail('iso-vale');
+    await cedar.agent.post('/api/v1/users').set('X-XSRF-TOKEN', cedar.xsrf).send({ name: 'Cedar Invitee', email: cedarEmail, roles: ['technologist'] }).expect(201);
+    await vale.agent.post('/api/v1/users').set('X-XSRF-TOKEN', vale.xsrf).send({ name: 'Vale Invitee', email: valeEmail, roles: ['technologist'] }).expect(201);
+    await mailTo(cedarEmail);
+    await mailTo(valeEmail);
+    const recipients = async (s: typeof vale) => ((await s.agent.get('/api/v1/mailbox').expect(200)).body as { to: string[] }[]).map((m) => m.to);
+    const cedarMail = await recipients(cedar);
+    expect(cedarMail).toContainEqual([cedarEmail]);
+    expect(cedarMail.filter((to) => !to.some((t) => t.endsWith('@cedarpoint.example')))).toEqual([]);
+    const valeMail = await recipients(vale);
+    expect(valeMail).toContainEqual([valeEmail]);
+    expect(valeMail).not.toContainEqual([cedarEmail]);
   });
 });

@@ -61,7 +61,9 @@ describe('the Results sheet of the full record', () => {
     const slope = line(ws, 'Slope');
     expect(slope['Value'].type).toBe(ExcelJS.ValueType.Number);
     expect(slope['Value'].numFmt).toBe('0.000');
-    expect(String(slope['In words'].value)).toMatch(/^The candidate reads [0-9.]+% (higher|lower) per unit|^The candidate reads neither/);
+    // inventedPairs(40) is y = x + 0.1 with a small noise, so Passing–Bablok's slope is exactly 1 (its rank-based CI too).
+    expect(slope['Value'].value).toBeCloseTo(1, 12);
+    expect(slope['In words'].value).toBe('The candidate reads neither higher nor lower per unit (slope 1.000, 95% CI 1.000 to 1.000, that is 0.0% to 0.0%). The CI includes 1: a proportional difference is not shown.');
     expect(line(ws, 'Pearson r (for reference only)')['Value'].numFmt).toBe('0.0000');
     expect(line(ws, 'Pairs analysed')['Value'].value).toBe(40);
     expect(line(ws, 'CIs of slope and intercept')['In words'].value).toBe('rank-based (Passing & Bablok 1983)');
@@ -69,7 +71,9 @@ describe('the Results sheet of the full record', () => {
     expect(line(ws, 'Findings')['In words'].value).toBe('Current: they match the rows and settings as they are now');
     const level = line(ws, 'Predicted bias at 7.0 mmol/L');
     expect(level['Value'].type).toBe(ExcelJS.ValueType.Number);
-    expect(String(level['In words'].value)).toMatch(/^(Within the allowable bias|Inconclusive: the CI crosses the allowable bias|Exceeds the allowable bias|No verdict) \(/);
+    // Bias 0.1 mmol/L at 7.0 against an allowable max(0.2, 4 % of 7.0) = 0.28 mmol/L: the whole CI lies inside.
+    expect(level['Value'].value).toBeCloseTo(0.1, 10);
+    expect(level['In words'].value).toBe('Within the allowable bias (allowable ±0.28 mmol/L)');
   });
 
   it('gives an establishment its two CIs per limit and no p column', async () => {

@@ -14,7 +14,7 @@ it('keeps a message when SMTP is down and delivers it on a later attempt', async
   expect(await deliverOutbox(h.database.db, down, 'test@parallax')).toBe(0);
   const [waiting] = await h.database.db.select().from(mailOutbox).where(eq(mailOutbox.subject, subject));
   expect(waiting).toMatchObject({ sentAt: null, attempts: 1 });
-  expect(waiting.lastError).toBeTruthy();
+  expect(waiting.lastError).toMatch(/ECONNREFUSED|connect/i);
   await h.database.db.update(mailOutbox).set({ nextAttemptAt: new Date(0) }).where(eq(mailOutbox.id, waiting.id));
   expect(await deliverOutbox(h.database.db, smtpTransport(h.smtpUrl), 'test@parallax')).toBeGreaterThanOrEqual(1);
   for (let i = 0; i < 50 && !(await h.database.db.select().from(mailMessages).where(eq(mailMessages.subject, subject))).length; i++) {

@@ -48,8 +48,9 @@ describe('the sample size by simulation of a method comparison', () => {
     expect(printed).toContain('Run Plan run 311, finished 2026-11-02 07:48 America/Halifax (UTC−04:00)');
     expect(results.reason.length).toBeGreaterThan(40);
     expect(printed).toContain(results.reason);
-    expect(results.warnings.length).toBeGreaterThan(0);
-    for (const w of results.warnings) expect(printed).toContain(w);
+    // 100 simulated studies of 100 resamples each: the engine warns of both, in one sentence.
+    expect(results.warnings).toEqual(['Each simulated study uses 100 bootstrap resamples (a real analysis uses more); the figures carry a Monte Carlo error of up to 5% (one SE).']);
+    expect(printed).toContain(results.warnings[0]);
     // In reading order: the plan's criteria, the truth, the table, the recommendation, the warnings, the curves; then the amendments.
     const order = ['Plan approval Approved by', 'Sample size by simulation', 'Imprecision CV 2%', 'True bias 0', results.reason,
       'Warnings on the plan', 'Sample size by simulation: share of simulated studies within the allowable bias, by n', 'Criteria changed after approval'];
@@ -68,7 +69,7 @@ describe('the sample size by simulation of a method comparison', () => {
   it('sets the recommended n in semibold and says so, when the grid has one', async () => {
     const recommended = comparisonPlanReport({}, { allowableBiasPercent: 5 });
     const r = recommended.samplePlan!.results;
-    expect(r.recommendedN).not.toBeNull();
+    expect(r.recommendedN).toBe(80);
     const out = await text(recommended);
     expect(out).toContain(`Rows in semibold: the recommended n (${r.recommendedN}).`);
     expect(out).toContain(r.reason);
@@ -163,9 +164,10 @@ describe('what more reference values buy in an establishment', () => {
     const out = await text(establishReport(130));
     expect(out).toContain('What more reference values buy');
     // n = 120: the 90% CI of the 2.5th percentile runs from the 1st to the 7th value, of the 97.5th from the 114th to the 120th;
-    // coverage P(1 ≤ B ≤ 6), B ~ Binomial(120, 0.025) = 92.05%; span (7 − 1)/121 = 4.96 percentile points.
-    expect(out).toContain('120 1–7 92.05% 5.0 114–120 92.05% 5.0');
-    for (const n of [150, 200, 240, 300, 400]) expect(out).toMatch(new RegExp(` ${n} \\d+–\\d+ \\d+(\\.\\d+)?% \\d\\.\\d \\d+–\\d+ \\d+(\\.\\d+)?% \\d\\.\\d `));
+    // coverage P(1 ≤ B ≤ 6), B ~ Binomial(120, 0.025) = 0.920467 (computed here with Python's math.comb), printed as a computed
+    // chance to one decimal (shared/format/number-format.ts formatChance), as the Setup panel shows it: 92.0%; span (7 − 1)/121 = 4.96 percentile points.
+    expect(out).toContain('120 1–7 92.0% 5.0 114–120 92.0% 5.0');
+    for (const n of [150, 200, 240, 300, 400]) expect(out).toMatch(new RegExp(` ${n} \\d+–\\d+ \\d+\\.\\d% \\d\\.\\d \\d+–\\d+ \\d+\\.\\d% \\d\\.\\d `));
     expect(out).toContain('n below 119 gives no 90% CI of the 2.5th or 97.5th percentile from ranks.');
     expect(out).not.toContain('the planned n');
   });

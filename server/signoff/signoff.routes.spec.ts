@@ -54,19 +54,24 @@ describe('submission and review', () => {
 
   it('submits, locks the rows, mails the directors, and the director returns it with a required comment', async () => {
     const tech = await signedIn(h, 'tech@valeharbor.example');
-    const study = await analysedComparison(h, tech, `Review ${Date.now()}`);
+    const title = `Review ${Date.now()}`;
+    const study = await analysedComparison(h, tech, title);
     const submitted = await post(tech, `/studies/${study.id}/submit`).expect(200);
     expect(submitted.body.state).toBe('awaiting-signoff');
     await tech.agent.put(`/api/v1/studies/${study.id}/specimens`).set('X-XSRF-TOKEN', tech.xsrf).send({ version: submitted.body.version, rows: [] }).expect(409);
-    const mails = await mailsTo('director@valeharbor.example', /Awaiting your signature/);
-    expect(mails.some((m) => m.text.includes(`/studies/${study.id}/review`))).toBe(true);
-    expect((await mailsTo('lead@valeharbor.example', /Awaiting your signature/)).length).toBeGreaterThan(0);
+    // This study's mails (by its unique title), not any earlier study's: one to each director.
+    const mails = await mailsTo('director@valeharbor.example', new RegExp(`^Awaiting your signature: ${title}$`));
+    expect(mails).toHaveLength(1);
+    expect(mails[0].text).toContain(`/studies/${study.id}/review`);
+    expect(await mailsTo('lead@valeharbor.example', new RegExp(`^Awaiting your signature: ${title}$`))).toHaveLength(1);
     const director = await signedIn(h, 'director@valeharbor.example');
     expect((await director.agent.get('/api/v1/worklist')).body.awaitingSignature.map((s: { id: number }) => s.id)).toContain(study.id);
     await post(director, `/studies/${study.id}/return`, { comment: '' }).expect(400);
     const returned = await post(director, `/studies/${study.id}/return`, { comment: 'Add the specimens above 20 mmol/L' }).expect(200);
     expect(returned.body).toMatchObject({ state: 'draft', returnComment: 'Add the specimens above 20 mmol/L' });
-    expect((await mailsTo('tech@valeharbor.example', /Returned to you/)).some((m) => m.text.includes('Add the specimens above 20 mmol/L'))).toBe(true);
+    const returnedMails = await mailsTo('tech@valeharbor.example', new RegExp(`^Returned to you: ${title}$`));
+    expect(returnedMails).toHaveLength(1);
+    expect(returnedMails[0].text).toContain('Add the specimens above 20 mmol/L');
     expect((await tech.agent.get('/api/v1/worklist')).body.returned.map((s: { id: number }) => s.id)).toContain(study.id);
   });
 });
@@ -74,14 +79,18 @@ describe('submission and review', () => {
 describe('electronic signature', () => {
   it('refuses a wrong password and audits it, then signs with the right one and binds the PDF to the content hash', async () => {
     const tech = await signedIn(h, 'tech@valeharbor.example');
-    const study = await analysedComparison(h, tech);
+    const title = `Signed with the right password ${Date.now()}`;
+    const study = await analysedComparison(h, tech, title);
     await post(tech, `/studies/${study.id}/submit`).expect(200);
     const director = await signedIn(h, 'director@valeharbor.example');
     await post(tech, `/studies/${study.id}/sign`, { meaning: 'accepted', password: 'parallax-demo' }).expect(403);
     const wrong = await post(director, `/studies/${study.id}/sign`, { meaning: 'accepted', password: 'not-mine' }).expect(400);
     expect(wrong.body.issues[0].path).toBe('password');
     const [me] = await h.database.db.select().from(users).where(eq(users.email, 'director@valeharbor.example'));
-    expect((await h.database.db.select().from(auditEvents).where(eq(auditEvents.userId, me.id))).map((e) => e.action)).toContain('signature.refused');
+    const refusals = await h.database.db.select().from(auditEvents)
+      .where(sql`${auditEvents.userId} = ${me.id} AND ${auditEvents.studyId} = ${study.id} AND ${auditEvents.action} = 'signature.refused'`);
+    expect(refusals).toHaveLength(1);
+    expect(refusals[0].after).toMatchObject({ why: 'wrong password', meaning: 'accepted' });
     const signed = await post(director, `/studies/${study.id}/sign`, { meaning: 'accepted', comment: 'Fit for use', password: 'parallax-demo' }).expect(200);
     expect(signed.body.state).toBe('signed');
     const [sig] = await h.database.db.select().from(signatures).where(eq(signatures.studyId, study.id));
@@ -92,7 +101,9 @@ describe('electronic signature', () => {
     expect(Buffer.compare(first.body, second.body)).toBe(0);
     expect(require('node:crypto').createHash('sha256').update(first.body).digest('hex')).toBe(sig.pdfSha256);
     expect(first.body.subarray(0, 5).toString()).toBe('%PDF-');
-    expect((await mailsTo('tech@valeharbor.example', /^Signed:/)).length).toBeGreaterThan(0);
+    const signedMails = await mailsTo('tech@valeharbor.example', new RegExp(`^Signed: ${title}$`));
+    expect(signedMails).toHaveLength(1);
+    expect(signedMails[0].text).toContain('Comment: Fit for use');
   });
 
   it('locks the account after five wrong signing passwords', async () => {
@@ -108,6 +119,40 @@ describe('electronic signature', () => {
     for (let i = 0; i < 5; i++) await post(d2, `/studies/${study.id}/sign`, { meaning: 'accepted', password: `nope-${i}` }).expect(400);
     await post(d2, `/studies/${study.id}/sign`, { meaning: 'accepted', password: 'director-password-2' }).expect(423);
     expect((await admin.agent.get('/api/v1/users')).body.find((u: { email: string }) => u.email === email).lockedUntil).not.toBeNull();
+  });
+
+  it('counts wrong signing passwords from zero again after the right one', async () => {
+    const tech = await signedIn(h, 'tech@valeharbor.example');
+    const first = await analysedComparison(h, tech);
+    const second = await analysedComparison(h, tech);
+    for (const study of [first, second]) await post(tech, `/studies/${study.id}/submit`).expect(200);
+    const email = `signer.reset.${Date.now()}@valeharbor.example`;
+    const [lab] = await h.database.db.select().from(laboratories).where(eq(laboratories.name, 'Vale Harbor Regional Laboratory'));
+    const { hashPassword } = await import('../auth/passwords');
+    const [d] = await h.database.db.insert(users).values({ laboratoryId: lab.id, name: 'Resetting Director', email, roles: ['director'], passwordHash: await hashPassword('director-password-3') }).returning();
+    const signer = await signedIn(h, email, 'director-password-3');
+    const account = async () => (await h.database.db.select().from(users).where(eq(users.id, d.id)))[0];
+
+    // Four wrong, then the right one: signed, and the count is back to 0.
+    for (let i = 0; i < 4; i++) await post(signer, `/studies/${first.id}/sign`, { meaning: 'accepted', password: `nope-${i}` }).expect(400);
+    expect((await account()).failedSignIns).toBe(4);
+    await post(signer, `/studies/${first.id}/sign`, { meaning: 'accepted', password: 'director-password-3' }).expect(200);
+    expect(await account()).toMatchObject({ failedSignIns: 0, lockedUntil: null });
+
+    // Four more wrong ones do not lock (without the reset the first of them would be the fifth); the fifth does.
+    for (let i = 0; i < 4; i++) await post(signer, `/studies/${second.id}/sign`, { meaning: 'accepted', password: `again-${i}` }).expect(400);
+    expect(await account()).toMatchObject({ failedSignIns: 4, lockedUntil: null });
+    await post(signer, `/studies/${second.id}/sign`, { meaning: 'accepted', password: 'again-4' }).expect(400);
+    expect((await account()).lockedUntil).not.toBeNull();
+    await post(signer, `/studies/${second.id}/sign`, { meaning: 'accepted', password: 'director-password-3' }).expect(423);
+
+    const refusals = await h.database.db.select().from(auditEvents)
+      .where(sql`${auditEvents.userId} = ${d.id} AND ${auditEvents.action} = 'signature.refused'`).orderBy(auditEvents.id);
+    expect(refusals.map((e) => [e.studyId, (e.after as { why: string; failures?: number }).why, (e.after as { failures?: number }).failures ?? null])).toEqual([
+      ...[1, 2, 3, 4].map((k) => [first.id, 'wrong password', k]),
+      ...[1, 2, 3, 4, 5].map((k) => [second.id, 'wrong password', k]),
+      [second.id, 'account locked', null],
+    ]);
   });
 
   it('keeps a director from signing rows they entered unless the laboratory allows it, and audits that', async () => {

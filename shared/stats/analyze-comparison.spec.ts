@@ -55,6 +55,33 @@ describe('analyzeComparison', () => {
     expect(result.decisionLevels.every((d) => d.verdict === 'within')).toBe(true);
   });
 
+  it('says exceeds where the whole CI lies beyond the allowable bias and inconclusive where it straddles it, on either side', () => {
+    // y = x + bias with a wobble of at most ±0.05 (mean 0), 80 pairs over 2–41.5 given to 2 decimals (step 0.01): the
+    // predicted bias is the same at every level, and its CI is a few hundredths wide around it. The goal is 10 % of
+    // the level: 0.5 at 5 (the CI lies wholly beyond it), 1.0 at 10 (the CI straddles it), 4.0 at 40 (wholly inside).
+    const shifted = (bias: number) => Array.from({ length: 80 }, (_, i) => {
+      const x = 2 + i * 0.5;
+      return { x, y: Number((x + bias + (((i * 7) % 11) - 5) * 0.01).toFixed(2)) };
+    });
+    for (const bias of [1, -1]) {
+      const result = analyzeComparison(shifted(bias), { ...fast, decisionLevels: [5, 10, 40], allowableBiasPercent: 10 });
+      expect(result.decisionLevels.map((d) => d.allowable)).toEqual([0.5, 1, 4]);
+      expect(result.decisionLevels.map((d) => d.verdict)).toEqual(['exceeds', 'inconclusive', 'within']);
+      expect(result.decisionLevels.map((d) => d.judgedOn)).toEqual([null, null, null]);
+      for (const d of result.decisionLevels) {
+        expect(d.bias.estimate).toBeCloseTo(bias, 10);
+        const [lo, hi] = d.bias.ci!;
+        expect(hi - lo).toBeGreaterThan(0.01);
+        expect(hi - lo).toBeLessThan(0.1);
+      }
+      // the reasons, read off the CIs: at 10 one end lies on each side of the limit
+      const [atFive, atTen] = result.decisionLevels.map((d) => d.bias.ci!.map(Math.abs).sort((a, b) => a - b));
+      expect(atFive[0]).toBeGreaterThan(0.5);
+      expect(atTen[0]).toBeLessThan(1);
+      expect(atTen[1]).toBeGreaterThan(1);
+    }
+  });
+
   it('reports null regression with a warning when x has no spread, and still the bias', () => {
     const result = analyzeComparison([1, 2, 3, 4, 5].map((k) => ({ x: 5, y: 5 + k / 10 })), fast);
     expect(result.regression.slope.estimate).toBeNull();

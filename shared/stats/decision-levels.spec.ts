@@ -15,6 +15,19 @@ describe('decision-level verdicts', () => {
     expect(verdict([-3, -2.5], 2)).toBe('exceeds');
     expect(verdict(null, 2)).toBeNull();
   });
+  it('counts a CI ending on the limit as within, and one starting on it as inconclusive, not exceeds', () => {
+    expect(verdict([-2, 2], 2)).toBe('within');
+    expect(verdict([0.5, 2], 2)).toBe('within');
+    expect(verdict([2, 3], 2)).toBe('inconclusive');
+    expect(verdict([-3, -2], 2)).toBe('inconclusive');
+    expect(verdict([2.000001, 3], 2)).toBe('exceeds');
+    expect(verdict([-3, 3], 2)).toBe('inconclusive'); // wider than the band on both sides
+    expect(verdict([-1, 1], null)).toBeNull();
+  });
+  it('takes the percent of a negative level by its size, and the absolute limit alone when no percent is given', () => {
+    expect(allowableBiasAt(-50, null, 10)).toBe(5);
+    expect(allowableBiasAt(50, 2, null)).toBe(2);
+  });
 });
 
 describe('result helpers', () => {
