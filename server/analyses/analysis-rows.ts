@@ -1,5 +1,6 @@
 import { kindMeta } from '@shared/kinds/kinds';
 import type { RowField } from '@shared/kinds/kind';
+import { emptyRequired, emptyRequiredWords } from '@shared/results/row-checks';
 import { magnitudeProblem } from '@shared/stats/magnitude';
 import { repeatedLabels, repeatedLabelsSentence } from '@shared/types/repeated-labels';
 import type { AnalysisInput } from '../specimens/input-hash';
@@ -14,17 +15,13 @@ export function fieldValue(r: Row, f: RowField): unknown {
   return r.extra?.[f.field] ?? null;
 }
 
-const empty = (v: unknown) => v === null || v === undefined || (typeof v === 'string' && v.trim() === '') || (typeof v === 'number' && !Number.isFinite(v));
-
-/** Rows that cannot enter an analysis: an included row with an empty result or another field the kind requires. */
+/**
+ * Rows that cannot enter an analysis: an included row with an empty result or another field the kind requires
+ * (the shared rule, shared/results/row-checks.ts, which the grid shows in the same words before it saves).
+ */
 export function missingResults(input: AnalysisInput): string[] {
-  const fields = kindMeta(input.kind).rowFields.filter((f) => f.required);
-  const out: string[] = [];
-  for (const r of input.rows) {
-    if (r.excluded) continue;
-    for (const f of fields) if (empty(fieldValue(r, f))) out.push(`row ${r.position}: the ${f.words} is empty; fill it or exclude the row with a reason`);
-  }
-  return out;
+  const fields = kindMeta(input.kind).rowFields;
+  return input.rows.flatMap((r) => emptyRequired(fields, (f) => fieldValue(r, f), r.excluded).map((f) => `row ${r.position}: ${emptyRequiredWords(f)}`));
 }
 
 /** Results (excluded ones too: the sensitivity run uses them) the engine cannot compute with (magnitude.ts), named by grid row and field. */

@@ -1,3 +1,5 @@
+import { readResult } from '@shared/schemas/result-text';
+
 /**
  * A small strict CSV reader for the analyze command (RFC 4180: comma-separated, fields may be quoted with
  * "..." and "" for a quote inside, CRLF or LF line ends, an optional UTF-8 byte-order mark).
@@ -69,11 +71,16 @@ export function numberColumn(table: CsvTable, name: string): number[] {
   return table.rows.map((r) => parseNumber(r.cells[k], `row ${r.row} (line ${r.line}), column ${name}`));
 }
 
+/**
+ * A value read as the server reads a result in a study that detects the decimal mark, its default
+ * (shared/schemas/result-text.ts): "<0.5" (censored), "1e309" (too large), "1.2.3" and a quoted "1,234" (unclear)
+ * are refused with the server's words.
+ */
 export function parseNumber(text: string, where: string): number {
-  const t = text.trim();
-  if (t === '') throw new CsvError(`${where}: the value is empty`);
-  if (!/^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(t)) throw new CsvError(`${where}: "${t}" is not a number`);
-  return Number(t);
+  const read = readResult(text, 'auto');
+  if ('error' in read) throw new CsvError(`${where}: ${read.error}`);
+  if (read.value === null) throw new CsvError(`${where}: the value is empty`);
+  return read.value;
 }
 
 /** An optional text column's values ('' where absent). */

@@ -1,4 +1,6 @@
-import { num, percent, pValue, range, withCi } from './format';
+import * as shared from '@shared/format/number-format';
+import { chance, integer, num, percent, pValue, range, withCi } from './format';
+import { share } from './sections/sample-plan';
 import { laboratoryTime, utcOffset } from '@shared/types/lab-time';
 
 describe('report number formats', () => {
@@ -20,6 +22,14 @@ describe('report number formats', () => {
     expect(pValue(0.0431)).toBe('0.043');
     expect(percent(0.95)).toBe('95%');
     expect(percent(0.975)).toBe('97.5%');
+  });
+
+  it('writes shares, chances and counts by the one shared rule the screen uses (shared/format/number-format.ts)', () => {
+    expect([percent(0.0125), percent(0.9995), percent(null)]).toEqual(['1.25%', '99.95%', '—']);
+    expect([chance(0.677), chance(0.37), chance(0.9996), chance(0.0004)]).toEqual(['67.7%', '37.0%', '> 99.9%', '< 0.1%']);
+    expect([integer(2000), integer(19.6), integer(null)]).toEqual(['2,000', '20', '—']);
+    for (const p of [0.677, 0.9996, 0.0004, 0.92049]) expect([share(p), chance(p)]).toEqual([shared.formatChance(p), shared.formatChance(p)]);
+    for (const f of [0.95, 0.0125, 0.12345]) expect(percent(f)).toBe(shared.formatPercent(f));
   });
 });
 

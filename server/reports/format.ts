@@ -1,10 +1,10 @@
 /**
- * Number formats of the report: the findings' one rule (shared/types/findings-numbers.ts), so the PDF
+ * Number formats of the report: the one rule of shared/format/number-format.ts, so the PDF
  * prints what the findings page shows: a fixed number of decimals, a true minus sign (U+2212), an em dash
  * for a value that is not available, "not available" for a CI that could not be formed, p-values to three
  * decimals with a floor of "< 0.001".
  */
-import { estimateWithCi, formatCi, formatNumber, formatP, NOT_AVAILABLE, withUnit as unitAfter } from '@shared/types/findings-numbers';
+import { estimateWithCi, formatChance, formatCi, formatCount, formatNumber, formatP, formatPercent, NOT_AVAILABLE, withUnit as unitAfter } from '@shared/format/number-format';
 
 export { NOT_AVAILABLE };
 
@@ -15,19 +15,17 @@ export const range = (interval: readonly [number, number] | null | undefined, de
 
 export const pValue = (p: number | null | undefined): string => formatP(p);
 
-/** A fraction as a percentage without trailing zeros: 0.95 → "95%", 0.975 → "97.5%". */
-export function percent(fraction: number | null | undefined): string {
-  if (fraction === null || fraction === undefined || !Number.isFinite(fraction)) return NOT_AVAILABLE;
-  return `${Number((fraction * 100).toFixed(2))}%`;
-}
+/** A share set by a person as a percentage without trailing zeros: 0.95 → "95%", 0.975 → "97.5%" (formatPercent). */
+export const percent = (fraction: number | null | undefined): string => formatPercent(fraction);
+
+/** A computed chance to one decimal, never a rounded certainty: 0.677 → "67.7%", 0.9996 → "> 99.9%" (formatChance). */
+export const chance = (p: number | null | undefined): string => formatChance(p);
 
 /** A value and its unit, or the value alone when the unit is empty. */
 export const withUnit = (text: string, unit: string): string => unitAfter(text, unit);
 
-export function integer(value: number | null | undefined): string {
-  if (value === null || value === undefined || !Number.isFinite(value)) return NOT_AVAILABLE;
-  return Math.round(value).toLocaleString('en-US');
-}
+/** A count with a comma between thousands: 2000 → "2,000" (formatCount). */
+export const integer = (value: number | null | undefined): string => formatCount(value);
 
 export const orDash = (text: string | null | undefined): string => (text && text.trim() ? text : NOT_AVAILABLE);
 

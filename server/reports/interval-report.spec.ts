@@ -1,6 +1,9 @@
+import { kindMeta } from '@shared/kinds/kinds';
 import { renderStudyReport } from './render-report';
 import type { EstablishFindings, StudyReport, VerifyFindings } from './report-model';
-import { comparisonReport, establishReport, verifyReport } from './testing/fixtures';
+import { valueBins } from '@shared/types/plot-axes';
+import { referenceBins } from './sections/establish-report';
+import { comparisonReport, establishReport, intervalRows, verifyReport } from './testing/fixtures';
 import { flat, pdfPages } from './testing/pdf-text';
 
 describe('the reports of reference-interval studies', () => {
@@ -23,6 +26,21 @@ describe('the reports of reference-interval studies', () => {
     expect(text).toContain('On diuretics (questionnaire)');
   });
 
+  it('bins the reference values by the shared rule the findings page draws with (valueBins): exact edges, excluded rows left out', () => {
+    const values = [138, 139, 139, 140, 140, 140, 141, 143, 150];
+    const rows = intervalRows(values.length).map((r, k) => ({ ...r, value: values[k], excluded: k === 8, exclusionReason: k === 8 ? 'On diuretics' : null }));
+    const report = establishReport(values.length, rows);
+    const results = report.results as EstablishFindings;
+    expect(referenceBins(report, results)).toEqual({
+      step: 1,
+      bins: [[137.5, 138.5, 1], [138.5, 139.5, 2], [139.5, 140.5, 3], [140.5, 141.5, 1], [141.5, 142.5, 0], [142.5, 143.5, 1]].map(([from, to, count]) => ({ from, to, count })),
+    });
+    // A stated step finer than the values (0.1 on whole numbers) bins and ticks in the values' own step, as on the page.
+    const finer = { ...results, resolution: { ...results.resolution!, increment: 0.1 } };
+    expect(referenceBins(report, finer)).toEqual(valueBins(values.slice(0, 8), 0.1));
+    expect(referenceBins(report, finer).step).toBe(1);
+  });
+
   it('prints a failed verification in words with the binomial probability and the advice', async () => {
     const report = verifyReport(20, { lower: 137, upper: 143 });
     const results = report.results as VerifyFindings;
@@ -33,6 +51,15 @@ describe('the reports of reference-interval studies', () => {
     expect(text).toContain('test 20 more reference individuals');
     expect(text).toContain(`${results.n} local values`);
     expect(text.split('Outside the stated interval').length - 1).toBe(results.outside);
+  });
+
+  it("prints the stated interval's source the study gives, on results the app's analysis made (record-only, so not an input of the engine)", async () => {
+    const report = verifyReport(20, { lower: 130, upper: 150 });
+    // The analysis never sees the source (input-hash.ts analysedSettings leaves it out); the PDF must still name it.
+    expect(report.settings.statedSource).toBe('Manufacturer’s insert, rev. 2025-06');
+    const text = flat(pdfPages(await renderStudyReport(report)));
+    expect(text).toContain('Source of the stated interval Manufacturer’s insert, rev. 2025-06 Values tested (n)');
+    expect(text).not.toContain('Source of the stated interval — Values tested');
   });
 
   it('prints an accepted verification as accepted', async () => {
@@ -54,11 +81,12 @@ describe('the reports of reference-interval studies', () => {
   });
 
   it.each([
-    ['method-comparison', comparisonReport(12), 'comparison'],
-    ['interval-establish', establishReport(30), 'interval'],
-    ['interval-verify', verifyReport(20), 'verify-interval'],
-  ] as const)('renders a %s study whose stored results lack fields without failing', async (_kind, report, kind) => {
-    const partial = { kind } as unknown as StudyReport['results'];
+    ['method-comparison', comparisonReport(12)],
+    ['interval-establish', establishReport(30)],
+    ['interval-verify', verifyReport(20)],
+  ] as const)('renders a %s study whose stored results lack fields without failing', async (_kind, report) => {
+    // Results of the study's own kind (the registry's result name), with none of their fields.
+    const partial = { kind: kindMeta(report.study.kind).resultKind } as unknown as StudyReport['results'];
     const pages = pdfPages(await renderStudyReport({ ...report, results: partial }));
     expect(flat(pages[0])).toContain(`Page 1 of ${pages.length}`);
     expect(flat(pages[pages.length - 1])).toContain('Decision support only.');

@@ -1,5 +1,6 @@
 import { eq } from 'drizzle-orm';
 import { auditEvents, studies } from '../db/schema';
+import { RESULT_CASES, emptyMessage, refusedMessage, type ResultCase } from '@shared/results/result-cases.testing';
 import { createComparison, inventedPairs } from '../test/fixtures';
 import { Harness, signedIn, startHarness } from '../test/harness';
 import { studyInputHash } from './input-hash';
@@ -27,6 +28,27 @@ async function expectNothingSaved(s: Session, studyId: number) {
   const events = await h.database.db.select().from(auditEvents).where(eq(auditEvents.studyId, studyId));
   expect(events.filter((e) => e.action === 'specimens.saved')).toEqual([]);
 }
+
+describe('the shared row rule (shared/results/row-checks.ts): the cells the grid marks, the server refuses in the same words', () => {
+  it('refuses each refused cell of the shared table with its words, saves the rest, and refuses to analyse included rows left empty', async () => {
+    const tech = await signedIn(h, 'tech@valeharbor.example');
+    const study = await createComparison(h, tech, `Shared cells ${Date.now()}`);
+    // The fixture's analyte cannot be negative (analytes.can_be_negative defaults to false), as the table assumes.
+    const rowOf = (c: ResultCase, k: number) => ({ label: `C${k + 1}`, comparative: '4.1', candidate: c.input });
+    const res = await put(tech, study.id, 1, RESULT_CASES.map(rowOf)).expect(400);
+    const refused = RESULT_CASES.flatMap((c, k) => (c.error ? [{ path: `rows.${k}.candidate`, message: refusedMessage(k + 1, c) }] : []));
+    expect(res.body.issues).toEqual(refused);
+    await expectNothingSaved(tech, study.id);
+
+    const readable = RESULT_CASES.filter((c) => c.read);
+    const saved = await put(tech, study.id, 1, [...readable.map(rowOf), ...inventedPairs(3)]).expect(200);
+    expect(saved.body.rows.slice(0, readable.length).map((r: { candidate: number | null; candidateText: string | null }) => ({ value: r.candidate, text: r.candidateText })))
+      .toEqual(readable.map((c) => c.read));
+    const analysis = await tech.agent.post(`/api/v1/studies/${study.id}/analyses`).set('X-XSRF-TOKEN', tech.xsrf).expect(400);
+    const empty = readable.flatMap((c, k) => (c.read!.value === null ? [emptyMessage(k + 1)] : []));
+    expect(analysis.body.issues.map((i: { message: string }) => i.message)).toEqual(empty);
+  });
+});
 
 describe('values are never changed silently', () => {
   it('refuses "1,234" when the study detects the decimal mark, naming both readings, and saves nothing', async () => {

@@ -3,7 +3,7 @@ import type { ApiIssue } from '@shared/schemas';
 import type { DecimalMark } from '@shared/schemas/result-text';
 import { kindMeta } from '@shared/kinds/kinds';
 import type { RowField } from '@shared/kinds/kind';
-import { parseResult } from './parse-result';
+import { EXCLUDED_WITHOUT_REASON, fieldProblem, lacksReason, readField } from '@shared/results/row-checks';
 
 export interface CleanRow {
   label: string; comparative: number | null; candidate: number | null; value: number | null;
@@ -38,45 +38,22 @@ export function validateRows(
       sex: null, ageBand: null, excluded: Boolean(r.excluded), exclusionReason: ((r.exclusionReason as string | null) ?? '').trim() || null,
       note: String(r.note ?? ''), extra: null,
     };
-    const problem = (f: RowField, message: string) => issues.push({ path: `rows.${i}.${f.field}`, message: `${where}: ${f.words} ${message}` });
     const put = (f: RowField, v: string | number | null) => {
       if (f.column) (clean as unknown as Record<string, unknown>)[f.column] = v;
       else clean.extra = { ...(clean.extra ?? {}), [f.field]: v };
     };
+    // The shared checks (shared/results/row-checks.ts), which the grid applies to the same cells in the same words.
     for (const f of meta.rowFields) {
-      const v = r[f.field];
-      if (f.type === 'result') {
-        const parsed = parseResult(v, decimalMark);
-        if ('error' in parsed) problem(f, parsed.error);
-        else if (parsed.value !== null && parsed.value < 0 && !canBeNegative) problem(f, 'is negative, which this analyte cannot be');
-        else {
-          put(f, parsed.value);
-          (clean as unknown as Record<string, unknown>)[`${f.column}Text`] = parsed.text;
-        }
-      } else if (f.type === 'integer') {
-        const text = v === null || v === undefined ? '' : String(v).trim();
-        if (text === '') put(f, null);
-        else if (!/^\d{1,6}$/.test(text) || Number(text) < 1) problem(f, `"${text}" must be a whole number from 1`);
-        else put(f, Number(text));
-      } else if (f.type === 'sex') {
-        const sex = normaliseSex(v as string | null);
-        if (sex === 'invalid') issues.push({ path: `rows.${i}.${f.field}`, message: `${where}: sex must be F or M (or empty)` });
-        else put(f, sex);
-      } else {
-        const text = v === null || v === undefined ? '' : String(v).trim();
-        put(f, text === '' ? (f.emptyIsNull || !f.column ? null : '') : text);
+      const read = readField(f, r[f.field], { canBeNegative, decimalMark });
+      if ('error' in read) {
+        issues.push({ path: `rows.${i}.${f.field}`, message: `${where}: ${fieldProblem(f, read.error)}` });
+        continue;
       }
+      put(f, read.value);
+      if (f.type === 'result') (clean as unknown as Record<string, unknown>)[`${f.column}Text`] = read.text;
     }
-    if (clean.excluded && !clean.exclusionReason) issues.push({ path: `rows.${i}.exclusionReason`, message: `${where}: excluded without a reason; give the reason` });
+    if (lacksReason(clean.excluded, clean.exclusionReason)) issues.push({ path: `rows.${i}.exclusionReason`, message: `${where}: ${EXCLUDED_WITHOUT_REASON}` });
     rows.push(clean);
   });
   return { rows, issues };
-}
-
-function normaliseSex(s: string | null): string | null {
-  const t = (s ?? '').trim().toUpperCase();
-  if (!t) return null;
-  if (['F', 'FEMALE', 'W'].includes(t)) return 'F';
-  if (['M', 'MALE'].includes(t)) return 'M';
-  return 'invalid';
 }

@@ -179,6 +179,13 @@ describe('looksLikeNumber', () => {
     expect(looksLikeNumber('')).toBe(false);
     expect(looksLikeNumber('.,')).toBe(false);
   });
+
+  it('counts a censored result as number-shaped, so a pasted first line of "<0.5" is data, not a header', () => {
+    expect(looksLikeNumber('<0.5')).toBe(true);
+    expect(looksLikeNumber('> 100')).toBe(true);
+    expect(looksLikeNumber('≤3')).toBe(true);
+    expect(looksLikeNumber('<LoQ')).toBe(false);
+  });
 });
 
 describe('the study setting decimalMark', () => {

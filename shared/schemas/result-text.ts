@@ -1,9 +1,12 @@
 /**
  * Reading a measured result exactly, or not at all. Client and server both use this one parser, so the
- * grid marks the same cells the server refuses. A value is refused (never changed silently) when it
- * cannot be read exactly and unambiguously: "1,234" (a decimal comma or a thousands separator?),
- * "1e309" (beyond the largest number), "1e-400" (would become 0), "1.00000000000000000001" (more
- * digits than a number keeps), "<0.5" (censored).
+ * grid marks the same cells the server refuses (the row checks built on it: shared/results/row-checks.ts).
+ * A value is refused (never changed silently) when it cannot be read exactly and unambiguously: "1,234"
+ * where the study detects the decimal mark ('auto': a decimal comma or a thousands separator?; a study
+ * that says its mark reads it as 1234 or 1.234), "1e309" (beyond the largest number), "1e-400" (would
+ * become 0), "1.00000000000000000001" (more digits than a number keeps), "<0.5" (censored: a result
+ * below or above a limit is not a number the statistics can use), "1.2.3" and "NaN" (not numbers).
+ * Empty, or only spaces, is no result (null), never an error; "-0" reads as 0.
  */
 
 /** How a study reads a comma and a point in typed, pasted and imported results. */
@@ -34,7 +37,8 @@ export function readResult(input: unknown, mark: DecimalMark = 'auto'): ResultRe
   if (input === null || input === undefined) return EMPTY;
   if (typeof input === 'number') return readNumber(input);
   if (typeof input !== 'string') return { error: 'is not a number' };
-  const t = input.trim();
+  // Spaces a spreadsheet leaves (tabs, non-breaking and narrow spaces) count as one, so both sides quote the same text.
+  const t = input.replace(/\s+/g, ' ').trim();
   if (t === '') return EMPTY;
   if (/^[<>≤≥]/.test(t)) {
     return { error: `"${t}" is censored (below or above a limit); enter a number or leave it empty and exclude the row with a reason` };
@@ -48,9 +52,12 @@ export function readResult(input: unknown, mark: DecimalMark = 'auto'): ResultRe
   return exactly(t, textOf(sign, mantissa, exponent));
 }
 
-/** True when the text has the shape of a number (digits, points, commas, an exponent), readable or not. */
+/**
+ * True when the text has the shape of a number (digits, points, commas, an exponent), readable or not, censored
+ * ("<0.5", "> 100") included: a result the row checks will name, never a header's word.
+ */
 export function looksLikeNumber(text: string): boolean {
-  const shape = SHAPE.exec(text.trim());
+  const shape = SHAPE.exec(text.trim().replace(/^[<>≤≥]=?\s*/, ''));
   return !!shape && /\d/.test(shape[2]);
 }
 

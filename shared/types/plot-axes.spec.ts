@@ -1,4 +1,4 @@
-import { binSteps, binTarget, clean, dataStep, niceAxis, paddedAxis, paddedDomain, resolutionBins, stepDecimals } from './plot-axes';
+import { binStep, binSteps, binTarget, clean, dataStep, niceAxis, paddedAxis, paddedDomain, resolutionBins, stepDecimals, valueBins } from './plot-axes';
 import { histogram } from '../stats/histogram';
 
 /** A seeded generator (an LCG) so the invented values are the same on every run. */
@@ -128,5 +128,31 @@ describe('histogram bins at half-steps of the reporting step', () => {
     expect(resolutionBins([3.5, 3.6, 3.9], 0.1).map((b) => b.from)).toEqual([3.45, 3.55, 3.65, 3.75, 3.85]);
     // Whole numbers under a stated step of 0.1 are binned in whole steps: no empty bin between two numbers.
     expect(resolutionBins([4, 5, 5, 6, 7, 8, 9], 0.1).map((b) => [b.from, b.count])).toEqual([[3.5, 1], [4.5, 2], [5.5, 1], [6.5, 1], [7.5, 1], [8.5, 1]]);
+  });
+});
+
+describe('valueBins: the one histogram rule of the findings page and the PDF', () => {
+  const edges = (r: ReturnType<typeof valueBins>) => ({ step: r.step, bins: r.bins.map((b) => [b.from, b.to, b.count]) });
+
+  it.each([
+    ['sodium, whole numbers, stated step 1', [138, 139, 139, 140, 140, 140, 141, 143], 1,
+      { step: 1, bins: [[137.5, 138.5, 1], [138.5, 139.5, 2], [139.5, 140.5, 3], [140.5, 141.5, 1], [141.5, 142.5, 0], [142.5, 143.5, 1]] }],
+    ['whole numbers under a stated step of 0.1: the values\' own step', [4, 5, 5, 7], 0.1,
+      { step: 1, bins: [[3.5, 4.5, 1], [4.5, 5.5, 2], [5.5, 6.5, 0], [6.5, 7.5, 1]] }],
+    ['no step stated (older results): the values\' own', [3.5, 3.6, 3.6, 3.8], null,
+      { step: 0.1, bins: [[3.45, 3.55, 1], [3.55, 3.65, 2], [3.65, 3.75, 0], [3.75, 3.85, 1]] }],
+    ['a stated step of 0.5, coarser than the values', [1, 1.5, 1.5, 2.5], 0.5,
+      { step: 0.5, bins: [[0.75, 1.25, 1], [1.25, 1.75, 2], [1.75, 2.25, 0], [2.25, 2.75, 1]] }],
+    // 31 values over 31 steps: target max(8, round(√31)) = 8 bins; 1 and 2 steps a bin give more, 5 gives 7; edges at multiples of 5 steps.
+    ['100 to 130 once each: bins of 5 steps', Array.from({ length: 31 }, (_, k) => 100 + k), 1,
+      { step: 1, bins: [[99.5, 104.5, 5], [104.5, 109.5, 5], [109.5, 114.5, 5], [114.5, 119.5, 5], [119.5, 124.5, 5], [124.5, 129.5, 5], [129.5, 134.5, 1]] }],
+  ])('%s', (_, values, resolution, expected) => {
+    expect(edges(valueBins(values as number[], resolution as number | null))).toEqual(expected);
+  });
+
+  it('gives the bins resolutionBins gives, with binStep as their step', () => {
+    const values = [4.1, 4.4, 5.0, 5.9, 6.3];
+    expect(valueBins(values, 0.1)).toEqual({ step: binStep(values, 0.1), bins: resolutionBins(values, 0.1) });
+    expect([binStep(values, 0.1), binStep(values, 1), binStep(values, null), binStep(values, 0), binStep([], null)]).toEqual([0.1, 1, 0.1, 0.1, 1]);
   });
 });

@@ -116,6 +116,24 @@ export function binSteps(slots: number, target: number): number {
 }
 
 /**
+ * The step h of a histogram's bins: the stated reporting step, unless the values are coarser (whole numbers under a
+ * step of 0.1 would leave nine bins in ten empty), and the values' own step when none is stated.
+ */
+export function binStep(values: readonly number[], resolution?: number | null): number {
+  const own = dataStep(values.filter(Number.isFinite));
+  return resolution && resolution > 0 && Number.isFinite(resolution) ? Math.max(resolution, own) : own;
+}
+
+/**
+ * A histogram of reported values as the findings page and the PDF both draw it (the one rule): its bins
+ * (resolutionBins) and their step h (binStep), which is the x axis's finest tick and the unit a bar's range is
+ * written in ("58 to 60": the reportable values it holds, from + h/2 to to − h/2).
+ */
+export function valueBins(values: readonly number[], resolution?: number | null): { step: number; bins: ValueBin[] } {
+  return { step: binStep(values, resolution), bins: resolutionBins(values, resolution) };
+}
+
+/**
  * Histogram bins for reported values. Every bin is a whole number m of reporting steps h wide, and its edges
  * lie at (k + ½)·h: a value reported in steps of h is never on an edge, and every bin holds the same number
  * (m) of reportable values, so whole-number data do not pile into alternate bins as they do when an edge
@@ -126,9 +144,7 @@ export function binSteps(slots: number, target: number): number {
 export function resolutionBins(values: readonly number[], resolution?: number | null, target = binTarget(values.length)): ValueBin[] {
   const finite = values.filter(Number.isFinite);
   if (finite.length === 0) return [];
-  // The stated step, unless the values are coarser (whole numbers under a step of 0.1 would leave every other bin empty).
-  const own = dataStep(finite);
-  const h = resolution && resolution > 0 && Number.isFinite(resolution) ? Math.max(resolution, own) : own;
+  const h = binStep(finite, resolution);
   let lowest = Infinity;
   let highest = -Infinity;
   for (const v of finite) {

@@ -1,5 +1,5 @@
 import type { LimitResult } from '@shared/stats';
-import { integer, num, orDash, percent, range, withUnit } from '../format';
+import { chance, integer, num, orDash, percent, range, withUnit } from '../format';
 import type { Layout } from '../layout';
 import type { EstablishFindings, StudyReport } from '../report-model';
 import { drawTable } from '../table';
@@ -25,7 +25,7 @@ export function establishFindings(layout: Layout, report: StudyReport, results: 
   ], limits.map(([name, l]) => [
     // In the order and words of the findings page's limits table: rank-based CI first, where the method gives one.
     name, `${l.percentile}th`, num(l.estimate, d.stat), l.rankCi ? range(l.rankCi, d.stat) : 'not used by this method', range(l.ci, d.stat),
-    l.ranks ? `${l.ranks.lowerRank}–${l.ranks.upperRank} (${percent(l.ranks.coverage)})` : '—',
+    l.ranks ? `${l.ranks.lowerRank}–${l.ranks.upperRank} (${chance(l.ranks.coverage)})` : '—',
   ]), { size: 8.5 });
   for (const [name, , path] of limits) if (steps.notes[path]) stepParagraph(layout, `${name}: bootstrap ${steps.notes[path]}`);
   if (!results.lower && !results.upper) layout.paragraph('No limit could be estimated; see the warnings.', { color: COLOR.bad });

@@ -1,4 +1,4 @@
-import { resolutionBins } from '@shared/types/plot-axes';
+import { valueBins } from '@shared/types/plot-axes';
 import type { LimitResult } from '@shared/stats';
 import type { Layout } from '../layout';
 import { histogramPlot } from '../plots/histogram-plot';
@@ -75,6 +75,15 @@ export function establishConclusion(report: StudyReport, results: EstablishFindi
   return `${first} ${second}`;
 }
 
+/**
+ * The histogram of the analysed reference values by the rule the findings page draws with (valueBins,
+ * shared/types/plot-axes.ts): bins at half-steps of the reporting step, and that step as the axis's finest tick.
+ */
+export function referenceBins(report: StudyReport, results: EstablishFindings): ReturnType<typeof valueBins> {
+  const values = report.rows.filter((r) => !r.excluded && isNumber(r.value)).map((r) => r.value!);
+  return valueBins(values, results.resolution?.increment);
+}
+
 function valuesHistogram(layout: Layout, report: StudyReport, results: EstablishFindings): void {
   const values = Float64Array.from(report.rows.filter((r) => !r.excluded && isNumber(r.value)).map((r) => r.value!));
   if (!values.length) return;
@@ -82,10 +91,10 @@ function valuesHistogram(layout: Layout, report: StudyReport, results: Establish
   layout.heading('Distribution of the reference values', 200);
   const [box] = plotRow(layout, 1, 200);
   const unit = report.analyte.unit;
+  const { bins, step } = referenceBins(report, results);
   histogramPlot(layout.doc, box, {
     title: `Histogram of ${plural(values.length, 'value')}`, xLabel: unit ? `${report.analyte.name} (${unit})` : report.analyte.name,
-    // Bins at half-steps of the reporting step, as on the findings page (shared/types/plot-axes.ts).
-    bins: resolutionBins([...values], results.resolution?.increment), resolution: results.resolution?.increment,
+    bins, resolution: step,
     markers: limits.map((l) => ({ value: l.estimate, color: COLOR.warm })),
     bands: limits.flatMap((l) => (l.ci ? [{ span: l.ci, color: COLOR.warm }] : [])),
     // The legend names the limits with their values, in the tables' decimals, as the findings page does.

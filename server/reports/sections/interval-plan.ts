@@ -1,7 +1,8 @@
+import { intervalVerifyMeta } from '@shared/kinds/interval-verify/meta';
 import { ESTABLISH_GRID, planEstablish } from '@shared/stats/plan-establish';
 import { allowedOutside, planTransference } from '@shared/stats/plan-transference';
 import { binomialRankCi } from '@shared/stats/rank-ci';
-import { integer, num, orDash, percent, withUnit } from '../format';
+import { chance, integer, num, orDash, percent, withUnit } from '../format';
 import type { Layout } from '../layout';
 import type { StudyReport } from '../report-model';
 import { drawTable } from '../table';
@@ -16,7 +17,7 @@ export function intervalPlan(layout: Layout, report: StudyReport): void {
   const s = report.settings;
   const d = decimalsOf(report).value;
   const unit = report.analyte.unit;
-  const verifying = report.study.kind === 'interval-verify';
+  const verifying = report.study.kind === intervalVerifyMeta.kind;
   const stated = `${withUnit(`${num(s.statedLower, d)} to ${num(s.statedUpper, d)}`, unit)}`;
   const pairs: [string, string][] = [
     ['Reference population', orDash(s.populationDescription)],
@@ -101,7 +102,7 @@ function establishTable(layout: Layout, report: StudyReport): void {
   ], plan.rows.map((row) => [
     integer(row.n),
     ...row.limits.flatMap((l) => (l.lowerRank === null || l.upperRank === null ? ['none', '—', '—'] : [
-      `${l.lowerRank}–${l.upperRank}`, percent(l.coverage), num(l.expectedSpan, 1),
+      `${l.lowerRank}–${l.upperRank}`, chance(l.coverage), num(l.expectedSpan, 1),
     ])),
   ]), { breakAtSpaces: true, strong: (k) => planned !== null && plan.rows[k].n === planned });
   const notes = [

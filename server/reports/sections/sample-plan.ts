@@ -1,7 +1,7 @@
 import { DEMING_RATIO_CONVENTION } from '@shared/stats';
 import type { ComparisonPlanResult, ResolvedComparisonPlan } from '@shared/stats/plan-comparison';
 import { laboratoryTime } from '@shared/types/lab-time';
-import { integer, num, orDash, percent, withUnit } from '../format';
+import { chance, integer, num, orDash, percent, withUnit } from '../format';
 import type { Layout } from '../layout';
 import { plotRow } from '../plots/plot-box';
 import { powerCurvePlot } from '../plots/power-curve';
@@ -16,15 +16,10 @@ export const SAMPLE_PLAN_HEADING = 'Sample size by simulation';
 export const PLAN_NOT_RUN = 'A plan by simulation is set, but it has not been run for its current settings, so no sample size is given here.';
 
 /**
- * A share (of simulated studies, a probability) as a percentage to one decimal: 0.8125 → "81.3%". A share short of
- * 1 (or above 0) that would round to 100.0% (0.0%) is written "> 99.9%" ("< 0.1%"), so no rounding reads as certainty.
+ * A share (of simulated studies, a probability) as a percentage to one decimal: 0.8125 → "81.3%", never a rounded
+ * certainty ("> 99.9%", "< 0.1%"): the one rule of a computed chance (shared/format/number-format.ts formatChance).
  */
-export function share(value: number | null | undefined): string {
-  if (typeof value !== 'number' || !Number.isFinite(value)) return num(null, 1);
-  if (value < 1 && value >= 0.9995) return '> 99.9%';
-  if (value > 0 && value < 0.0005) return '< 0.1%';
-  return `${num(100 * value, 1)}%`;
-}
+export const share = (value: number | null | undefined): string => chance(value);
 
 /**
  * The comparison's plan by simulation, after the plan's criteria: the truth the planned study was simulated
@@ -89,7 +84,7 @@ function truthWords(report: StudyReport, run: ReportSamplePlan): [string, string
     ['Error model', constant ? 'Constant: the same SD at every concentration' : 'Proportional: the SD grows with the concentration (a constant CV)'],
     ['True concentrations', rangeWords],
     ['Results', `rounded to ${d === 0 ? 'whole numbers' : `${d} ${d === 1 ? 'decimal' : 'decimals'}`}, as the study reports them`],
-    ['Regression', `${REGRESSION_WORDS[regression] ?? regression}; the bias at each level judged on its ${num(100 * (p.level ?? report.settings.confidenceLevel), 0)}% CI`],
+    ['Regression', `${REGRESSION_WORDS[regression] ?? regression}; the bias at each level judged on its ${percent(p.level ?? report.settings.confidenceLevel)} CI`],
     ...(isDeming ? [['Deming error ratio', `λ = ${num(p.demingRatio ?? report.settings.demingRatio, 3)}, where ${DEMING_RATIO_CONVENTION}`] as [string, string]] : []),
     ['Simulated studies', `${integer(r.simulations)} at each n`],
     ['Bootstrap resamples', `${integer(r.resamples)} per simulated study: fewer than the analysis of the real study uses` +

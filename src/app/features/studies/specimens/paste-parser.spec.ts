@@ -54,6 +54,10 @@ describe('hasHeader', () => {
     expect(hasHeader([['S1', '1,234', '1.234,5'], ['S2', '6.1', '6.0']], [1, 2])).toBe(false);
   });
 
+  it('sees data, not a header, in a first line of censored results ("<0.5"), so the row is kept and marked rather than dropped', () => {
+    expect(hasHeader([['S1', '<0.5', '> 100'], ['S2', '6.1', '6.0']], [1, 2])).toBe(false);
+  });
+
   it('does not take a first data line with one typing error for a header', () => {
     expect(hasHeader([['S1', '5,x', '5.4'], ['S2', '6.1', '6.0']], [1, 2])).toBe(false);
   });

@@ -1,5 +1,7 @@
+import { kindMeta } from '@shared/kinds/kinds';
+import { RESULT_CASES, emptyMessage, refusedMessage } from '@shared/results/result-cases.testing';
 import { allProblems, cellProblem, rowProblems } from './row-validation';
-import { COMPARISON_LAYOUT, GridRow, blankRow } from './specimen-layout';
+import { COMPARISON_LAYOUT, GridRow, SpecimenLayout, blankRow } from './specimen-layout';
 
 const layout = COMPARISON_LAYOUT;
 const row = (values: Partial<Record<string, string | boolean>>): GridRow => ({ ...blankRow(layout), ...values });
@@ -53,11 +55,30 @@ describe('rowProblems', () => {
     expect(rowProblems({ ...r, exclusionReason: 'clotted' }, 4, layout, noNegative)).toEqual([]);
   });
 
-  it('says a result is missing when the row holds something else, and ignores blank rows', () => {
+  it('says an included row\'s empty result keeps it from the analysis, in the analysis\'s words; not of an excluded row, nor a blank one', () => {
     expect(rowProblems(row({ label: 'S9', comparative: '6.0' }), 8, layout, noNegative).map((p) => p.message)).toEqual([
-      'row 9: candidate result is missing',
+      'row 9: the candidate result is empty; fill it or exclude the row with a reason',
     ]);
+    expect(rowProblems(row({ label: 'S9', comparative: '6.0', excluded: true, exclusionReason: 'haemolysed' }), 8, layout, noNegative)).toEqual([]);
     expect(rowProblems(row({}), 8, layout, noNegative)).toEqual([]);
+  });
+
+  it('judges every cell of the shared table (shared/results/result-cases.testing.ts) as the server does, in the same words', () => {
+    for (const c of RESULT_CASES) {
+      const messages = rowProblems(row({ label: 'S1', comparative: '4.1', candidate: c.input }), 0, layout, noNegative).map((p) => p.message);
+      expect([c.input, messages]).toEqual([c.input, c.error ? [refusedMessage(1, c)] : c.read?.value === null ? [emptyMessage(1)] : []]);
+    }
+  });
+
+  it('with the kind\'s fields, checks a replicate and a required text field as the server does', () => {
+    const fields = kindMeta('precision').rowFields;
+    const precision: SpecimenLayout = { fields: ['material', 'day', 'replicate', 'value'].map((f) => ({ field: f, header: f, kind: f === 'value' ? 'result' : 'text', words: f })) };
+    const r: GridRow = { uid: 1, material: 'Level 1', day: '', replicate: '1.5', value: '<0.5' };
+    expect(rowProblems(r, 0, precision, { ...noNegative, fields }).map((p) => p.message)).toEqual([
+      'row 1: the day is empty; fill it or exclude the row with a reason',
+      'row 1: replicate "1.5" must be a whole number from 1',
+      'row 1: result "<0.5" is censored (below or above a limit); enter a number or leave it empty and exclude the row with a reason',
+    ]);
   });
 });
 
@@ -65,8 +86,10 @@ describe('allProblems and cellProblem', () => {
   it('lists the problems by row and finds the one of a cell', () => {
     const rows = [row({ comparative: 'x', candidate: '1' }), row({ comparative: '1', candidate: '1' }), row({ comparative: '2', candidate: '' })];
     const problems = allProblems(rows, layout, noNegative);
-    expect(problems.map((p) => p.message)).toEqual(['row 1: comparative result "x" is not a number', 'row 3: candidate result is missing']);
-    expect(cellProblem(problems, 2, 'candidate')?.text).toBe('Candidate result is missing');
+    expect(problems.map((p) => p.message)).toEqual([
+      'row 1: comparative result "x" is not a number', 'row 3: the candidate result is empty; fill it or exclude the row with a reason',
+    ]);
+    expect(cellProblem(problems, 2, 'candidate')?.text).toBe('The candidate result is empty; fill it or exclude the row with a reason');
     expect(cellProblem(problems, 1, 'candidate')).toBeUndefined();
   });
 });

@@ -1,13 +1,16 @@
-import type { DecimalMark } from '@shared/schemas/result-text';
-import { parseResult, resultProblem } from './result-number';
+import type { RowField } from '@shared/kinds/kind';
+import {
+  EXCLUDED_WITHOUT_REASON, emptyRequired, emptyRequiredWords, fieldProblem, lacksReason, readField, type RowRules as SharedRowRules,
+} from '@shared/results/row-checks';
 import { GridRow, SpecimenLayout, isBlank } from './specimen-layout';
 
-/** What the study allows in its rows. */
-export interface RowRules {
-  /** False when the analyte cannot be below zero (Study.canBeNegative). */
-  canBeNegative: boolean;
-  /** How results are read (the study's settings.decimalMark): the same reading the server applies. */
-  decimalMark: DecimalMark;
+/** What the study allows in its rows: the sign rule and decimal mark the server reads with (shared/results/row-checks.ts). */
+export interface RowRules extends SharedRowRules {
+  /**
+   * The kind's row fields (shared/kinds/<kind>/meta.ts): their types and which an included row needs. Without them, the
+   * layout's result columns are the fields checked, each required, as in every kind.
+   */
+  fields?: readonly RowField[];
 }
 
 /** One problem in one cell, in words: `message` for the summary ("row 14: …"), `text` for the cell's tooltip. */
@@ -23,26 +26,33 @@ function problem(rowIndex: number, field: string, what: string): CellProblem {
 }
 
 /**
- * The problems of one row, in column order: a result the server would refuse (not a number, unclear as
- * "1,234", beyond what a number keeps), below zero where the analyte cannot be, or missing while the row
- * holds something else; an exclusion without a reason. The words are the server's own.
+ * The problems of one row, in column order, by the shared row checks the server applies, in its words: a field the
+ * server would refuse (a result not a number, censored as "<0.5", unclear as "1,234", beyond what a number keeps,
+ * below zero where the analyte cannot be; a replicate that is not a whole number; a sex other than F or M), a field
+ * an included row needs left empty (the analysis refuses it in the same words), an exclusion without a reason.
  * A row with nothing entered has no problems (it is not sent).
  */
 export function rowProblems(row: GridRow, rowIndex: number, layout: SpecimenLayout, rules: RowRules): CellProblem[] {
   if (isBlank(row, layout)) return [];
+  const fields = checkedFields(layout, rules);
   const out: CellProblem[] = [];
-  for (const f of layout.fields) {
-    if (f.kind !== 'result') continue;
-    const text = String(row[f.field] ?? '');
-    const value = parseResult(text, rules.decimalMark);
-    if (value === null) out.push(problem(rowIndex, f.field, `${f.words} is missing`));
-    else if (Number.isNaN(value)) out.push(problem(rowIndex, f.field, `${f.words} ${resultProblem(text, rules.decimalMark)}`));
-    else if (value < 0 && !rules.canBeNegative) out.push(problem(rowIndex, f.field, `${f.words} is negative, which this analyte cannot be`));
+  const missing = new Set(emptyRequired(fields, (f) => row[f.field], row['excluded'] === true));
+  for (const f of fields) {
+    const read = readField(f, row[f.field], rules);
+    if ('error' in read) out.push(problem(rowIndex, f.field, fieldProblem(f, read.error)));
+    else if (missing.has(f)) out.push(problem(rowIndex, f.field, emptyRequiredWords(f)));
   }
-  if (row['excluded'] === true && String(row['exclusionReason'] ?? '').trim() === '') {
-    out.push(problem(rowIndex, 'exclusionReason', 'excluded without a reason; give the reason'));
-  }
+  if (lacksReason(row['excluded'], row['exclusionReason'])) out.push(problem(rowIndex, 'exclusionReason', EXCLUDED_WITHOUT_REASON));
   return out;
+}
+
+/** The kind's fields the grid shows, in the grid's column order; without them, its result columns, each required. */
+function checkedFields(layout: SpecimenLayout, rules: RowRules): RowField[] {
+  return layout.fields.flatMap((l): RowField[] => {
+    const known = rules.fields?.find((f) => f.field === l.field);
+    if (known) return [known];
+    return !rules.fields && l.kind === 'result' ? [{ field: l.field, type: 'result', words: l.words, required: true }] : [];
+  });
 }
 
 /** Every problem of every row, by row then column. */

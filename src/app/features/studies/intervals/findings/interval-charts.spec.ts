@@ -1,4 +1,5 @@
 import type { LimitResult } from '@shared/stats/reference-interval';
+import { valueBins } from '@shared/types/plot-axes';
 import { PALETTE } from '../../findings/charts/palette';
 import type { GridRow } from '../../specimens/specimen-layout';
 import { type PlacedValue, analysedValues, individualName, stripData, valueHistogram } from './interval-charts';
@@ -51,6 +52,17 @@ describe('interval chart data', () => {
     expect(h.bars[0].tip).toEqual(['60 to 64 µmol/L', '4 individuals', 'RI-1 (row 1), RI-2 (row 2), RI-3 (row 3), RI-4 (row 4)']);
     const many = valueHistogram(placed(new Array(9).fill(5)), null, null, label, 1, { value: String, unit: '' });
     expect(many.bars[0].tip).toEqual(['5', '9 individuals', 'RI-1 (row 1), RI-2 (row 2), RI-3 (row 3), RI-4 (row 4), RI-5 (row 5), RI-6 (row 6) and 3 more']);
+  });
+
+  it('draws the bins of the shared rule the PDF uses (valueBins): whole numbers under a stated step of 0.1 binned, named and ticked in whole steps', () => {
+    const values = placed([4, 5, 5, 7]);
+    const h = valueHistogram(values, null, null, label, 0.1, { value: String, unit: '' });
+    const shared = valueBins([4, 5, 5, 7], 0.1);
+    expect(shared).toEqual({ step: 1, bins: [{ from: 3.5, to: 4.5, count: 1 }, { from: 4.5, to: 5.5, count: 2 }, { from: 5.5, to: 6.5, count: 0 }, { from: 6.5, to: 7.5, count: 1 }] });
+    expect(h.bars.map((b) => [b.x, b.y])).toEqual(shared.bins.map((b) => [(b.from + b.to) / 2, b.count]));
+    // Each bar names the one reportable value it holds (before, the stated 0.1 gave "4.05 to 4.95").
+    expect(h.bars.map((b) => b.tip?.[0])).toEqual(['4', '5', '6', '7']);
+    expect(h.axes.x.step).toBeGreaterThanOrEqual(1);
   });
 
   it('colours the bars wholly beyond a limit light', () => {

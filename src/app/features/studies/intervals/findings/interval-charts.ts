@@ -1,5 +1,6 @@
-import { niceAxis, paddedAxis, resolutionBins, type PlotAxis } from '@shared/types/plot-axes';
+import { niceAxis, paddedAxis, valueBins, type PlotAxis } from '@shared/types/plot-axes';
 import type { LimitResult } from '@shared/stats/reference-interval';
+import { outsideStated } from '@shared/stats/stated-limits';
 import { binBars, histogramAxes, rangeWords } from '../../findings/charts/histogram-data';
 import { withUnit } from '../../findings/comparison/comparison-result';
 import type { MarkerLine, Markers } from '../../findings/charts/markers-plugin';
@@ -54,7 +55,8 @@ export interface ValueWords {
 }
 
 /**
- * The values as a histogram, bins at half-steps of the reporting step (`resolution`; shared with the PDF), with
+ * The values as a histogram by the rule the PDF draws with (valueBins, shared/types/plot-axes.ts): bins at half-steps
+ * of the reporting step `resolution` (or the values' own, when coarser or none is stated), with
  * a solid line at each limit, its bootstrap CI as a shaded band and its rank-based CI as dashed lines. Bars of
  * values beyond a limit are light. A bar's tooltip gives its range, its count and (for a few) who they are.
  */
@@ -62,19 +64,18 @@ export function valueHistogram(
   values: readonly PlacedValue[], lower: LimitResult | null, upper: LimitResult | null, label: (v: number) => string,
   resolution?: number | null, words?: ValueWords,
 ): { bars: PlotDatum[]; colors: string[]; markers: Markers; axes: { x: PlotAxis; y: PlotAxis } } {
-  const bins = resolutionBins(values.map((v) => v.value), resolution);
+  const { step, bins } = valueBins(values.map((v) => v.value), resolution);
   const lo = lower?.estimate ?? -Infinity;
   const hi = upper?.estimate ?? Infinity;
   const parts = [limitMarkers(lower, 'Lower', label), limitMarkers(upper, 'Upper', label)];
   const markers: Markers = { lines: parts.flatMap((p) => p.lines), bands: parts.flatMap((p) => p.bands) };
-  const half = bins.length ? (bins[0].to - bins[0].from) / 2 : 0;
-  const step = resolution && resolution > 0 ? resolution : null;
   const bars = binBars(bins).map((bar, k) => {
     if (!words) return bar;
     const b = bins[k];
     const inBin = values.filter((v) => v.value >= b.from && v.value < b.to);
-    const first = step ? b.from + step / 2 : bar.x - half;
-    const last = step ? b.to - step / 2 : bar.x + half;
+    // The reportable values the bin holds: from its lower edge + h/2 to its upper edge − h/2.
+    const first = b.from + step / 2;
+    const last = b.to - step / 2;
     const range = withUnit(Math.abs(last - first) < 1e-9 ? words.value(first) : `${words.value(first)} to ${words.value(last)}`, words.unit);
     const names = inBin.slice(0, 6).map(individualName).join(', ') + (inBin.length > 6 ? ` and ${inBin.length - 6} more` : '');
     return { ...bar, tip: [range, `${b.count} ${b.count === 1 ? 'individual' : 'individuals'}`, ...(names ? [names] : [])] };
@@ -83,7 +84,7 @@ export function valueHistogram(
     bars,
     colors: bins.map((b) => (b.to <= lo || b.from >= hi ? PALETTE.tail : PALETTE.barInCi)),
     markers,
-    axes: histogramAxes(bins, markers, resolution),
+    axes: histogramAxes(bins, markers, step),
   };
 }
 
@@ -95,7 +96,7 @@ export function valueHistogram(
 export function stripData(
   values: readonly PlacedValue[], stated: { lower: number; upper: number }, label: (v: number) => string, resolution?: number | null,
 ): { inside: PlotDatum[]; outside: PlotDatum[]; datasets: PointDataset[]; markers: Markers; axes: { x: PlotAxis; y: PlotAxis } } {
-  const out = (v: PlacedValue): boolean => v.value < stated.lower || v.value > stated.upper;
+  const out = (v: PlacedValue): boolean => outsideStated(v.value, stated);
   const point = (v: PlacedValue): PlotDatum => ({
     x: v.value, y: v.position, key: v.position,
     tip: [individualName(v), `Value ${label(v.value)}`, out(v) ? 'Outside the stated interval' : 'Inside the stated interval'],

@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import type { ChartData } from 'chart.js';
-import { dataStep, stepDecimals } from '@shared/types/plot-axes';
+import { binStep, stepDecimals } from '@shared/types/plot-axes';
 import { FindingsChart } from '../../findings/charts/findings-chart';
 import { formatNumber } from '../../findings/comparison/number-format';
 import type { GridRow } from '../../specimens/specimen-layout';
@@ -47,11 +47,11 @@ export class IntervalPlots {
     const r = this.result();
     if (!rows) return [];
     const all = analysedValues(rows);
-    // The reporting step the engine used (older results carry none: then the data's own).
-    const step = r.resolution?.increment ?? dataStep(all.map((v) => v.value));
-    const words = { value: (v: number) => formatNumber(v, stepDecimals(step)), unit: this.unit() };
+    // The reporting step the engine used (older results carry none); the bins' own step follows from it and the values, as in the PDF.
+    const resolution = r.resolution?.increment ?? null;
+    const words = { value: (v: number) => formatNumber(v, stepDecimals(binStep(all.map((v) => v.value), resolution))), unit: this.unit() };
     const plot = (values: PlacedValue[], lower: EstablishResult['lower'], upper: EstablishResult['upper'], heading: string, testId: string) => {
-      const h = valueHistogram(values, lower, upper, this.label(), step, words);
+      const h = valueHistogram(values, lower, upper, this.label(), resolution, words);
       return { heading, testId, markers: h.markers, axes: h.axes, data: { datasets: [{ type: 'bar', label: 'Individuals', data: h.bars, backgroundColor: h.colors }] } as ChartData };
     };
     const whole = plot(all, r.lower, r.upper, `All reference values (n = ${r.n})`, 'plot-values');

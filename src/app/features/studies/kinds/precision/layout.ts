@@ -1,4 +1,5 @@
 import { precisionMeta } from '@shared/kinds/precision/meta';
+import { isNumberText } from '../../specimens/result-number';
 import type { SpecimenLayout } from '../../specimens/specimen-layout';
 
 /** How the shared description heads a file's material and day columns (the import's own patterns). */
@@ -30,7 +31,7 @@ export function widePrecisionRows(lines: readonly string[][]): string[][] | null
   const replicates = header.slice(lead).map((c) => Number(REPLICATE_HEADER.exec(c)?.[1]));
   if (replicates.length < 2 || replicates.some((r, k) => r !== k + 1)) return null;
   const corner = lead === 1 && !DAY_HEADER.test(header[0]) ? header[0] : '';
-  if (/^[-+]?[\d.,\s]+$/.test(corner)) return null;
+  if (isNumberText(corner)) return null;
   const out: string[][] = [];
   for (const cells of lines.slice(1)) {
     if (cells.every((c) => c.trim() === '')) continue;

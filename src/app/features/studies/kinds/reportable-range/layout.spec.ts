@@ -21,6 +21,12 @@ describe('wideRangeRows: a block with one line per level and one column per repl
     expect(wideRangeRows(cells('Dilution\tR1\tR2\tR3\n1\t5.1\t5.2\t5.0'))).toEqual([['1', '1', '5.1'], ['1', '2', '5.2'], ['1', '3', '5.0']]);
   });
 
+  it('reads a censored result ("<0.5") as a result cell, by the shared number-shape test, so the grid marks it rather than the block being pasted whole', () => {
+    expect(wideRangeRows(cells('Level 1\t<0.5\t0.6\nLevel 2\t7.6\t7.7'))).toEqual([
+      ['Level 1', '1', '<0.5'], ['Level 1', '2', '0.6'], ['Level 2', '1', '7.6'], ['Level 2', '2', '7.7'],
+    ]);
+  });
+
   it('leaves out an empty result (a missing replicate), an empty line and empty cells at the end of a line', () => {
     expect(wideRangeRows(cells('Level 1\t5.1\t\t5.3\t\t\n\t\t\nLevel 2\t\t6.2\t6.1'))).toEqual([
       ['Level 1', '1', '5.1'], ['Level 1', '3', '5.3'], ['Level 2', '2', '6.2'], ['Level 2', '3', '6.1'],

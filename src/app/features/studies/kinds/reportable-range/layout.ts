@@ -1,12 +1,13 @@
 import { reportableRangeMeta } from '@shared/kinds/reportable-range/meta';
+import { isNumberText } from '../../specimens/result-number';
 import type { SpecimenLayout } from '../../specimens/specimen-layout';
 
 /** How the shared description heads a file's level column (the import's own pattern: Level, Sample, Pool, Dilution, Mixture). */
 const LEVEL_HEADER = reportableRangeMeta.rowFields.find((f) => f.field === 'level')!.importHeader;
 /** A replicate's column: "1", "Rep 1", "Rep. 2", "Replicate 3", "R4", "#5". */
 const REPLICATE_HEADER = /^(?:rep(?:licate)?\.?|r|#)?\s*(\d{1,2})$/i;
-/** A cell that reads as a number with either decimal mark ("12.1", "12,1", "-0.5", "1 200"). */
-const NUMBER = /^[-+]?\d[\d\s]*(?:[.,]\d+)?$|^[-+]?[.,]\d+$/;
+/** A cell with the shape of a result, readable or not ("12.1", "12,1", "-0.5", "<0.5"): the shared test the grid's header check uses. */
+const NUMBER = { test: (cell: string): boolean => isNumberText(cell) };
 /** A replicate number as the long layout's second column holds it: a whole number from 1 to 10. */
 const REPLICATE = /^(?:[1-9]|10)$/;
 

@@ -4,11 +4,12 @@ import { MatDialog } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSnackBar } from '@angular/material/snack-bar';
+import { kindMeta } from '@shared/kinds/kinds';
 import { ErrorBanner } from '../../../../ui/error-banner';
 import { kindView } from '../../kinds';
 import { StudyStore } from '../../study/study-store';
 import type { PasteOutcome } from '../apply-paste';
-import { allProblems } from '../row-validation';
+import { RowRules, allProblems } from '../row-validation';
 import { SaveState } from '../save-state/save-state';
 import { resultHeadings } from '../specimen-columns';
 import { GridRow, isBlank } from '../specimen-layout';
@@ -32,8 +33,11 @@ export class SpecimensTab {
   private readonly snackBar = inject(MatSnackBar);
   protected readonly editable = this.study.editable;
 
-  /** The analyte's sign rule, and the decimal mark the rows are written with (the study's), as the server reads them. */
-  private readonly rules = computed(() => ({ canBeNegative: this.study.study()?.canBeNegative ?? true, decimalMark: this.store.decimalMark() }));
+  /** The analyte's sign rule, the decimal mark the rows are written with (the study's) and the kind's fields, as the server reads them. */
+  private readonly rules = computed((): RowRules => {
+    const study = this.study.study();
+    return { canBeNegative: study?.canBeNegative ?? true, decimalMark: this.store.decimalMark(), ...(study ? { fields: kindMeta(study.kind).rowFields } : {}) };
+  });
   protected readonly problems = computed(() => allProblems(this.store.rows(), this.store.layout, this.rules()));
   protected readonly summary = computed(() => problemSummary(this.problems()));
   /** The result columns' headers: method and unit, with the instrument on hover. */

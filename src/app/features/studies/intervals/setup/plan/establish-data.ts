@@ -1,6 +1,6 @@
 import { ESTABLISH_GRID, planEstablish, type PopulationShape } from '@shared/stats/plan-establish';
 import { binomialRankCi } from '@shared/stats/rank-ci';
-import { formatNumber, levelLabel } from '../../../findings/comparison/number-format';
+import { formatChance, formatNumber, levelLabel } from '../../../findings/comparison/number-format';
 import { CURVE_MARKERS, type Curves } from '../../../findings/charts/curves';
 import { PALETTE } from '../../../findings/charts/palette';
 
@@ -73,7 +73,7 @@ export function establishPlan(o: { planned: number | null; percentiles: number[]
     planned: r.n === o.planned,
     limits: r.limits.map((l) => ({
       ranks: l.lowerRank === null ? 'no CI' : `${l.lowerRank}–${l.upperRank}`,
-      coverage: l.coverage === null ? '—' : `${(l.coverage * 100).toFixed(1)}%`,
+      coverage: formatChance(l.coverage),
       span: l.expectedSpan === null ? '—' : l.expectedSpan.toFixed(2),
       width: l.expectedWidth === null ? '—' : formatNumber(l.expectedWidth, widthDecimals),
     })),

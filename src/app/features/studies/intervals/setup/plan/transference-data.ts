@@ -1,3 +1,4 @@
+import { formatChance, formatPercent } from '@shared/format/number-format';
 import { TRANSFERENCE_OUTSIDE, allowedOutside, planTransference } from '@shared/stats/plan-transference';
 import type { Curves } from '../../../findings/charts/curves';
 import { PALETTE } from '../../../findings/charts/palette';
@@ -5,11 +6,11 @@ import { PALETTE } from '../../../findings/charts/palette';
 /** The individuals a verification plans when the Setup names none (CLSI EP28-A3c practice, DOMAIN.md). */
 export const DEFAULT_VERIFY_N = 20;
 
-/** A share as the panel writes it: 0.1 → "10%", 0.025 → "2.5%". */
-export const share = (p: number): string => `${Number((p * 100).toFixed(1))}%`;
+/** A share as the panel and the PDF write it: 0.1 → "10%", 0.025 → "2.5%", 0.0125 → "1.25%" (formatPercent). */
+export const share = (p: number): string => formatPercent(p);
 
-/** A chance to one decimal: 0.677 → "67.7%", 0.37 → "37.0%"; just short of certain, "> 99.9%" rather than a rounded 100%. */
-export const chance = (p: number): string => (p >= 0.9995 && p < 1 ? '> 99.9%' : `${(p * 100).toFixed(1)}%`);
+/** A chance as the panel and the PDF write it: 0.677 → "67.7%", 0.37 → "37.0%"; "> 99.9%" and "< 0.1%" rather than a rounded certainty (formatChance). */
+export const chance = (p: number): string => formatChance(p);
 
 export interface TransferenceRow {
   outside: string;

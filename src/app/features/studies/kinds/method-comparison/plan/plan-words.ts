@@ -1,11 +1,12 @@
+import { formatChance, formatPercent } from '@shared/format/number-format';
 import type { ApiIssue } from '@shared/schemas';
 import type { PlanValues } from './plan-form';
 
-/** A probability as the plan's table and sentences write it: 0.677 → "67.7%". */
-export const percent = (p: number): string => `${(p * 100).toFixed(1)}%`;
+/** A probability as the plan's table and sentences write it, as the PDF does: 0.677 → "67.7%", 0.9996 → "> 99.9%" (formatChance). */
+export const percent = (p: number): string => formatChance(p);
 
-/** A target or a limit as set: 0.8 → "80%", 0.025 → "2.5%". */
-export const target = (p: number): string => `${Number((p * 100).toFixed(1))}%`;
+/** A target or a limit as set, as the PDF writes it: 0.8 → "80%", 0.025 → "2.5%" (formatPercent). */
+export const target = (p: number): string => formatPercent(p);
 
 /** A server message without the path it starts with: "settings.samplePlan.low: The low end …" → "The low end …". */
 export function withoutPath(message: string): string {
