@@ -1,6 +1,8 @@
 import { expect, test, type Locator, type Page } from '@playwright/test';
+import { CAUTION } from '@shared/text/caution';
 import { cell, choose, closeNotice, fullShot, SCREENSHOTS, signIn } from './fixtures/pages';
-import { mkdirSync } from 'node:fs';
+import { execFileSync } from 'node:child_process';
+import { mkdirSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 
 /** A small seeded generator (an LCG) so the invented values are the same on every run. */
@@ -56,9 +58,7 @@ async function pasteRows(page: Page, block: string, count: number): Promise<void
 async function runAnalysis(page: Page): Promise<void> {
   await closeNotice(page);
   await page.getByTestId('tab-findings').click();
-  await expect(page.getByTestId('caution').locator('span')).toHaveText(
-    "Decision support only: final acceptance follows local accreditation rules and the laboratory director's professional judgement.",
-  );
+  await expect(page.getByTestId('caution').locator('span')).toHaveText(CAUTION);
   await page.getByTestId('run-analysis').click();
 }
 
@@ -104,6 +104,8 @@ test('a technologist establishes a creatinine reference interval from 120 indivi
   await page.getByTestId('setup-population').fill('Healthy adult blood donors aged 18–65, fasting; excluded: known kidney disease, pregnancy, nephrotoxic drugs.');
   await page.getByTestId('setup-partition-sex').locator('input').check();
   await fullShot(page, 'interval-establish-setup.png');
+  await expect(page.getByTestId('setup-population')).toHaveValue(/^Healthy adult blood donors aged 18–65, fasting;/);
+  await expect(page.getByTestId('setup-partition-sex').locator('input')).toBeChecked();
   await page.getByTestId('setup-save').click();
   await expect(page).toHaveURL(/\/studies\/\d+\/specimens$/);
   await expect(page.getByTestId('study-title')).toHaveText(title);
@@ -113,6 +115,8 @@ test('a technologist establishes a creatinine reference interval from 120 indivi
   await expect(cell(page, 1, 'sex')).toHaveText('M');
   await closeNotice(page);
   await page.screenshot({ path: path.join(SCREENSHOTS, 'interval-establish-specimens.png') });
+  await expect(page.getByTestId('row-count')).toHaveText('120 rows');
+  await expect(page.getByTestId('problems')).toHaveCount(0);
 
   await runAnalysis(page);
   await expect(page.getByTestId('interval-limits')).toBeVisible({ timeout: 120_000 });
@@ -133,6 +137,9 @@ test('a technologist establishes a creatinine reference interval from 120 indivi
   await expectPainted(page.getByTestId('plot-values').locator('canvas'));
   await expect(page.getByTestId('plot-values').locator('figcaption')).toContainText('Light bars lie beyond a limit.');
   await fullShot(page, 'interval-establish.png');
+  await expect(page.getByTestId('caution')).toContainText('Decision support only');
+  await expect(page.getByTestId('interval-counts')).toHaveText('n = 120 analysed of 120 entered; 0 excluded with a reason.');
+  await expect(page.getByTestId('study-findings')).toHaveText('Findings up to date');
 
   // Whole-number results, binned at half-steps of 1 µmol/L (shared/types/plot-axes.ts): bars of equal width
   // standing evenly from the lowest value to the highest. Hovering the tallest names its values, its count and who they are.
@@ -151,6 +158,8 @@ test('a technologist establishes a creatinine reference interval from 120 indivi
   await expect(barTip).toContainText(/\d+ individuals/);
   await expect(barTip).toContainText(/RI-\d{3} \(row \d+\)/);
   await page.getByTestId('plot-values').screenshot({ path: path.join(SCREENSHOTS, 'interval-establish-histogram.png') });
+  await expect(barTip).toBeVisible();
+  await expect(barTip).toContainText(/\d+ individuals/);
   await page.mouse.move(0, 0);
 
   // One click on a flagged value asks for the reason, excludes the row, and a new run analyses 119.
@@ -188,6 +197,9 @@ test('a technologist verifies a stated potassium interval with 20 individuals, o
   await page.getByTestId('setup-stated-lower').fill('3.5');
   await page.getByTestId('setup-stated-upper').fill('5.1');
   await fullShot(page, 'setup-verification-guidance.png');
+  await expect(page.getByTestId('setup-planned')).toHaveValue('20');
+  await expect(page.getByTestId('setup-stated-lower')).toHaveValue('3.5');
+  await expect(page.getByTestId('setup-stated-upper')).toHaveValue('5.1');
   await page.getByTestId('setup-save').click();
   await expect(page.getByText('Check the marked fields.')).toBeVisible();
   await page.getByTestId('setup-stated-source').fill(SOURCE);
@@ -206,6 +218,9 @@ test('a technologist verifies a stated potassium interval with 20 individuals, o
   await expectPainted(page.getByTestId('plot-strip').locator('canvas'));
   await expect(page.getByTestId('plot-strip').locator('figcaption')).toContainText('diamonds: outside it');
   await fullShot(page, 'interval-verify.png');
+  await expect(page.getByTestId('verify-acceptance')).toHaveText('Accepted: 1 of 20 outside; at most 2 allowed.');
+  await expect(page.getByTestId('verify-source')).toHaveText(SOURCE);
+  await expect(page.getByTestId('caution')).toContainText('Decision support only');
 
   // Each point is an individual: hovering the one outside names it and its value.
   const strip = page.getByTestId('plot-strip').locator('canvas');
@@ -220,4 +235,24 @@ test('a technologist verifies a stated potassium interval with 20 individuals, o
   await expect(tip).toContainText('Value 5.4 mmol/L');
   await expect(tip).toContainText('Outside the stated interval');
   await page.getByTestId('plot-strip').screenshot({ path: path.join(SCREENSHOTS, 'interval-verify-strip.png') });
+  await expect(tip.locator('strong')).toHaveText('RV-13 (row 13)');
+  await expect(tip).toContainText('Outside the stated interval');
+  // The typed source is a record-only setting (no input of the engine): the review page and the PDF name it too, never "—".
+  const id = Number(/\/studies\/(\d+)\//.exec(page.url())![1]);
+  await page.goto(`/studies/${id}/review`);
+  await expect(page.getByTestId('review-title')).toHaveText(title);
+  await expect(page.getByTestId('verify-source')).toHaveText(SOURCE);
+  await expect(page.getByTestId('review-caution')).toContainText(CAUTION);
+  const pdf = await page.request.get(`/api/v1/studies/${id}/report.pdf`);
+  expect(pdf.status()).toBe(200);
+  const downloads = path.resolve(__dirname, '../.test-output/downloads');
+  mkdirSync(downloads, { recursive: true });
+  const file = path.join(downloads, `interval-verify-${id}.pdf`);
+  writeFileSync(file, await pdf.body());
+  const text = execFileSync('pdftotext', [file, '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ');
+  // In the findings, beside the stated interval (the plan names it too, from Setup).
+  expect(text).toContain(`Source of the stated interval ${SOURCE} Values tested (n) 20 tested of 20 entered`);
+  expect(text).not.toContain('Source of the stated interval — ');
+  // The draft's diagonal mark interleaves its letters with the caution's lines, so only its start is read here (the full text: server/reports specs).
+  expect(text).toContain(CAUTION.slice(0, 60));
 });

@@ -3,6 +3,7 @@ import { execFileSync } from 'node:child_process';
 import { createHash } from 'node:crypto';
 import { mkdirSync, readdirSync, readFileSync, rmSync, statSync } from 'node:fs';
 import path from 'node:path';
+import { CAUTION } from '@shared/text/caution';
 
 const OUT = path.resolve(__dirname, '../.test-output');
 const SCREENSHOTS = path.join(OUT, 'screenshots');
@@ -12,10 +13,6 @@ const DIRECTOR = 'director@valeharbor.example';
 /** Technologist and director at once. */
 const LEAD = 'lead@valeharbor.example';
 const NOTE = 'Row 7 was haemolysed on the candidate run and is excluded with that reason; the high end is the part to read first.';
-const CAUTION =
-  'Decision support only. These findings do not by themselves make a verification compliant: final acceptance follows local ' +
-  'accreditation rules and the laboratory director’s professional judgement. They hold only for the specimen types, measuring ' +
-  'range, population and lots studied.';
 
 /** One demo user's API session: the session GET hands out the XSRF-TOKEN cookie, every write sends it back. */
 class ApiUser {
@@ -128,12 +125,16 @@ test('the technologist submits a study; the director refuses a wrong password, t
   await expect(bar.getByTestId('signoff-state')).toHaveText('Draft');
   await expect(bar.getByTestId('step-approve-plan')).toHaveCount(0);
   await shot(tech, 'signoff-bar-draft');
+  await expect(bar.getByTestId('signoff-state')).toHaveText('Draft');
+  await expect(bar.getByTestId('step-submit')).toBeEnabled();
   // Submitting asks first, says the study is locked for the director, and takes a note for the director.
   await bar.getByTestId('step-submit').click();
   const submitDialog = tech.getByRole('dialog');
   await expect(submitDialog.getByTestId('submit-what')).toContainText('Submitting locks the study for the director');
   await submitDialog.getByTestId('submit-note').fill(NOTE);
   await shot(tech, 'submit-dialog');
+  await expect(submitDialog.getByTestId('submit-note')).toHaveValue(NOTE);
+  await expect(submitDialog.getByTestId('submit-what')).toContainText('Submitting locks the study for the director');
   await submitDialog.getByTestId('submit-confirm').click();
   await expect(submitDialog).toHaveCount(0);
   await expect(bar.getByTestId('signoff-state')).toHaveText('Awaiting the director’s signature');
@@ -185,12 +186,17 @@ test('the technologist submits a study; the director refuses a wrong password, t
   await expect(note.getByTestId('submission-note-from')).toHaveText(/^Note from \S/);
   await expect(note.getByTestId('submission-note-text')).toHaveText(NOTE);
   await shot(director, 'review-with-note');
+  await expect(note.getByTestId('submission-note-text')).toHaveText(NOTE);
+  await expect(director.getByTestId('review-state')).toContainText('Awaiting sign-off');
   await expect(director.getByTestId('plan-approval')).toContainText('No plan approval');
   await expect(director.getByTestId('excluded-7')).toContainText('Haemolysed on the candidate run');
   await expect(director.getByTestId('study-history')).toContainText('Submitted');
   await expect(director.getByTestId('no-signatures')).toBeVisible();
   await expect(director.getByTestId('preview-pdf')).toHaveText(/Preview PDF \(draft\)/);
   await shot(director, 'review-awaiting');
+  await expect(director.getByTestId('open-sign')).toBeVisible();
+  await expect(director.getByTestId('open-return')).toBeVisible();
+  await expect(director.getByTestId('review-caution')).toContainText(CAUTION);
 
   // A wrong password is refused on the password field, and nothing is signed.
   await director.getByTestId('open-sign').click();
@@ -205,6 +211,7 @@ test('the technologist submits a study; the director refuses a wrong password, t
   await expect(dialog.getByTestId('password-error')).toHaveText('The password is wrong');
   await expect(dialog.getByTestId('banner')).toContainText('The password is wrong; the signature was not made');
   await shot(director, 'sign-dialog-wrong-password');
+  await expect(dialog.getByTestId('password-error')).toHaveText('The password is wrong');
   await expect(director.getByTestId('review-state')).toContainText('Awaiting sign-off');
 
   // The right password signs: the signature block names the signer, the meaning, the time in the lab's zone, the hashes.
@@ -236,6 +243,9 @@ test('the technologist submits a study; the director refuses a wrong password, t
   await expect(block.getByTestId('content-hash')).toHaveText(signed!.contentHash);
   await expect(block.getByTestId('open-signed-pdf')).toHaveAttribute('href', `/api/v1/studies/${id}/report.pdf`);
   await shot(director, 'review', true);
+  await expect(director.getByTestId('review-state')).toContainText('Signed');
+  await expect(block).toContainText('Accepted for patient testing');
+  await expect(director.getByTestId('verdict-overall')).toContainText('Passing–Bablok regression of 39 pairs');
 
   // The first page of the PDF, rendered by Debian's pdftoppm.
   for (const old of readdirSync(SCREENSHOTS).filter((f) => f.startsWith('report-page'))) rmSync(path.join(SCREENSHOTS, old));
@@ -257,10 +267,13 @@ test('the technologist submits a study; the director refuses a wrong password, t
   await expect(signedBar.getByTestId('signoff-state')).toHaveText('Signed');
   await expect(signedBar.getByTestId('signature-summary')).toContainText('Accepted for patient testing — signed by Dr. Imani Okafor');
   await shot(director, 'signoff-bar-signed');
+  await expect(signedBar.getByTestId('signoff-state')).toHaveText('Signed');
+  await expect(signedBar.getByTestId('step-amend')).toBeVisible();
   await signedBar.getByTestId('step-amend').click();
   await director.getByTestId('reason-confirm').click();
   await expect(director.getByTestId('reason-error')).toHaveText('Reason for the amendment is required.');
   await shot(director, 'amend-dialog');
+  await expect(director.getByTestId('reason-error')).toHaveText('Reason for the amendment is required.');
   await director.getByRole('button', { name: 'Cancel' }).click();
   await expect(director.getByRole('dialog')).toHaveCount(0);
   await director.context().close();
@@ -281,6 +294,8 @@ test('the director returns a study with a comment, the technologist reads it, an
   await expect(director.getByTestId('reason-error')).toHaveText('Comment for the technologist is required.');
   await director.getByTestId('reason-text').fill(comment);
   await shot(director, 'return-dialog');
+  await expect(director.getByTestId('reason-text')).toHaveValue(comment);
+  await expect(director.getByTestId('reason-error')).toHaveCount(0);
   await director.getByTestId('reason-confirm').click();
   await expect(director.getByRole('dialog')).toHaveCount(0);
   await expect(director.getByTestId('review-state')).toContainText('Draft');
@@ -294,6 +309,8 @@ test('the director returns a study with a comment, the technologist reads it, an
   await expect(bar.getByTestId('return-comment')).toContainText(comment);
   await expect(bar.getByTestId('step-submit')).toBeEnabled();
   await shot(tech, 'signoff-bar-returned');
+  await expect(bar.getByTestId('signoff-state')).toHaveText('Draft, returned by the director');
+  await expect(bar.getByTestId('return-comment')).toContainText(comment);
   await tech.getByTestId('tab-history').click();
   await expect(tech).toHaveURL(new RegExp(`/studies/${id}/history$`));
   await expect(tech.getByTestId('study-history')).toContainText('Returned to draft by the director');
@@ -306,6 +323,8 @@ test('the director returns a study with a comment, the technologist reads it, an
   await expect(approve.getByTestId('sign-meaning')).toHaveCount(0);
   await approve.getByTestId('sign-password').fill(PASSWORD);
   await shot(director, 'plan-approval-dialog');
+  await expect(approve.getByTestId('sign-meaning')).toHaveCount(0);
+  await expect(approve.getByTestId('sign-confirm')).toBeEnabled();
   await approve.getByTestId('sign-confirm').click();
   await expect(approve).toHaveCount(0);
   await expect(director.getByTestId('signoff-bar').getByTestId('plan-approved')).toContainText('Plan approved by Dr. Imani Okafor');
@@ -327,6 +346,8 @@ test('the director returns a study with a comment, the technologist reads it, an
   await expect(moved).toContainText('The laboratory adopted the biological-variation goal');
   await expect(director.getByTestId('plan-approval')).toContainText('Plan approved by Dr. Imani Okafor');
   await shot(director, 'review-moved-criteria');
+  await expect(director.getByTestId('moved-alert')).toContainText('One criterion change after the plan was approved.');
+  await expect(moved).toContainText('Criteria changed after the plan was approved (1)');
   await tech.context().close();
   await director.context().close();
 });
@@ -348,6 +369,8 @@ test('a technologist-director is offered only what they may sign, the review say
   await expect(awaiting.getByTestId(`wl-study-${own}`)).toHaveCount(0);
   await expect(lead.getByTestId('worklist')).not.toContainText(ownTitle);
   await shot(lead, 'worklist-tech-director');
+  await expect(awaiting.getByTestId(`wl-study-${others}`)).toContainText(othersTitle);
+  await expect(awaiting.getByTestId(`wl-study-${own}`)).toHaveCount(0);
 
   // The link opens the review, which says who may sign; the exclusion's reason is shown where it is mentioned.
   await awaiting.getByRole('link', { name: othersTitle }).click();
@@ -359,6 +382,8 @@ test('a technologist-director is offered only what they may sign, the review say
   await expect(lead.locator('main')).not.toContainText('Specimens tab');
   await sensitivity.scrollIntoViewIfNeeded();
   await sensitivity.screenshot({ path: path.join(SCREENSHOTS, 'review-exclusion-reasons.png') });
+  await expect(sensitivity.getByTestId('exclusion-reason-7')).toHaveText('Row 7 (SO-007): Haemolysed on the candidate run');
+  await expect(sensitivity.locator('tbody tr')).not.toHaveCount(0);
 
   // Its own study: the refusal and its reason before any dialog, and no Sign button; returning stays possible.
   await lead.goto(`/studies/${own}/review`);
@@ -368,6 +393,8 @@ test('a technologist-director is offered only what they may sign, the review say
   await expect(lead.getByTestId('open-return')).toBeVisible();
   await expect(lead.getByRole('dialog')).toHaveCount(0);
   await shot(lead, 'review-who-may-sign');
+  await expect(lead.getByTestId('who-may-sign')).toContainText('(segregation of duties)');
+  await expect(lead.getByTestId('open-sign')).toHaveCount(0);
 
   // A wrong password at signing the other study is refused, and recorded on that study in words.
   await lead.goto(`/studies/${others}/review`);
@@ -388,5 +415,7 @@ test('a technologist-director is offered only what they may sign, the review say
   await expect(refused.getByRole('link', { name: `Study ${others}` })).toBeVisible();
   await expect(lead.locator('main')).not.toContainText('wrong-password');
   await shot(lead, 'lab-history-signature-refused');
+  await expect(refused).toHaveCount(1);
+  await expect(refused).toContainText('Signature refused: wrong password');
   await lead.context().close();
 });

@@ -2,7 +2,8 @@ import type ExcelJS from 'exceljs';
 import type { ComparisonResult, IntervalResult, LimitResult } from '@shared/stats';
 import type { VerifyIntervalResult } from '@shared/stats/verify-interval';
 import { findingsDecimals, formatNumber, levelLabel, numberFormat, P_VALUE_FORMAT, withUnit } from '@shared/types/findings-numbers';
-import { agreementRows, differenceUnitOf, testRows, VERDICT_WORDS, type ComparisonUnits, type FindingsRow } from '@shared/types/findings-rows';
+import { agreementRows, differenceUnitOf, testRows, type ComparisonUnits, type FindingsRow } from '@shared/types/findings-rows';
+import { NO_VERDICT, VERDICT_WORDS } from '@shared/text/verdict-words';
 import {
   correlationDetails, interceptSentence, linearitySentence, REGRESSION_HEADING, regressionCiWords, regressionMethod, regressionRows, slopeSentence,
 } from '@shared/types/regression-words';
@@ -89,7 +90,7 @@ export function comparisonLines(r: ComparisonResult, unit: string, decimals: num
   for (const l of r.decisionLevels ?? []) {
     const at = withUnit(formatNumber(l.level, d.value), unit);
     const allowable = l.allowable === null ? 'no allowable bias set' : `allowable ±${withUnit(formatNumber(l.allowable, d.stat), unit)}`;
-    const verdict = l.verdict ? VERDICT_WORDS[l.verdict] : 'No verdict';
+    const verdict = l.verdict ? VERDICT_WORDS[l.verdict] : NO_VERDICT.word;
     lines.push(fromRow(levels, { path: '', name: `Predicted bias at ${at}`, estimate: l.bias.estimate, ci: l.bias.ci, unit, decimals: d.stat }, `${verdict} (${allowable})`));
     if (l.biasPercent !== null) lines.push({ section: levels, name: `Predicted bias at ${at}, % of the level`, cells: { value: l.biasPercent, unit: '%' }, formats: { value: numberFormat(d.percent) } });
   }

@@ -2,6 +2,10 @@ import { analyzeComparison, analyzeInterval, bootstrapTest, verifyInterval } fro
 import type { ComparisonRow, IntervalRow } from '@shared/stats';
 import { CsvError, numberColumn, textColumn, type CsvTable } from './csv';
 import { FlagError, integerFlag, listFlag, numberFlag, textFlag, wordsFlag, type FlagSpec } from './flags';
+import type { KindMeta } from '@shared/kinds/kind';
+import { intervalEstablishMeta } from '@shared/kinds/interval-establish/meta';
+import { intervalVerifyMeta } from '@shared/kinds/interval-verify/meta';
+import { methodComparisonMeta } from '@shared/kinds/method-comparison/meta';
 
 /** One analysis kind of `npm run analyze -- KIND FILE.csv [options]`: its flags and how it runs. */
 export interface Kind {
@@ -53,7 +57,7 @@ const interval: Kind = {
 const verify: Kind = {
   flags: { '--lower': ['lower', numberFlag], '--upper': ['upper', numberFlag], '--coverage': ['coverage', numberFlag], '--decimals': ['decimals', integerFlag] },
   run(table, options) {
-    if (options.lower === undefined || options.upper === undefined) throw new FlagError('verify-interval needs --lower L and --upper U');
+    if (options.lower === undefined || options.upper === undefined) throw new FlagError(`${intervalVerifyMeta.resultKind} needs --lower L and --upper U`);
     const { n, outside, accepted, probability, ...rest } = verifyInterval(numberColumn(table, 'value'), options as { lower: number; upper: number }, options.decimals as number | undefined);
     return { n, outside, accepted, probability, ...rest };
   },
@@ -66,7 +70,18 @@ const test: Kind = {
   },
 };
 
-export const KINDS: Record<string, Kind> = { comparison, interval, 'verify-interval': verify, 'bootstrap-test': test };
+/** The engine's runners by the study kind whose engine each runs (named from the registry, never spelt out here). */
+const ENGINE_RUNNERS = new Map<KindMeta, Kind>([[methodComparisonMeta, comparison], [intervalEstablishMeta, interval], [intervalVerifyMeta, verify]]);
+
+/**
+ * The engine's commands, in one place: each is typed as the name of its result (KindMeta.resultKind: comparison,
+ * interval, verify-interval, as the README documents them), which is not a study kind's name (the study kinds
+ * run by their own names with --settings, study-kinds.ts); and the bootstrap test, which belongs to no kind.
+ */
+export const KINDS: Record<string, Kind> = {
+  ...Object.fromEntries([...ENGINE_RUNNERS].map(([meta, kind]) => [meta.resultKind, kind])),
+  'bootstrap-test': test,
+};
 
 /** Optional `excluded` column: true/false, yes/no, 1/0 or empty. */
 function flagsColumn(table: CsvTable): boolean[] | undefined {

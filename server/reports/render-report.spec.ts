@@ -1,3 +1,5 @@
+import { kindMeta } from '@shared/kinds/kinds';
+import { CAUTION as SHARED_CAUTION } from '@shared/text/caution';
 import { renderStudyReport } from './render-report';
 import type { ComparisonFindings } from './report-model';
 import { comparisonReport, establishReport, verifyReport } from './testing/fixtures';
@@ -20,7 +22,7 @@ describe('the verification PDF of a method comparison', () => {
   });
 
   it('is built from a real analysis that gives all three verdicts', () => {
-    expect(results.kind).toBe('comparison');
+    expect(results.kind).toBe(kindMeta(report.study.kind).resultKind);
     expect(results.n).toBe(39);
     expect(results.decisionLevels.map((l) => l.verdict)).toEqual(['within', 'inconclusive', 'exceeds']);
   });
@@ -101,6 +103,8 @@ describe('the verification PDF of a method comparison', () => {
   });
 
   it('prints the caution in full beside the verdicts on page 1 and again on the last page', () => {
+    // The one caution of screen, PDF and mail (shared/text/caution.ts), and it reads as written out above.
+    expect(SHARED_CAUTION).toBe(CAUTION);
     expect(flat(pages[0])).toContain(CAUTION);
     expect(flat(pages[pages.length - 1])).toContain(CAUTION);
     expect(flat(pages).split(CAUTION).length - 1).toBe(2);

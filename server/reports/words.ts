@@ -1,12 +1,11 @@
-import { BIAS_CI_WORDS, VERDICT_WORDS as SHARED_VERDICT_WORDS } from '@shared/types/findings-rows';
+import { BIAS_CI_WORDS } from '@shared/types/findings-rows';
 import { REGRESSION_NAMES } from '@shared/types/regression-words';
 
-/** The report's fixed wording. The caution is printed in full near the findings and again at the end. */
-export const CAUTION =
-  "Decision support only. These findings do not by themselves make a verification compliant: final acceptance follows local accreditation rules and the laboratory director's professional judgement. They hold only for the specimen types, measuring range, population and lots studied.";
+/** The report's fixed wording. The caution (shared/text/caution.ts) is printed in full near the findings and again at the end. */
+export { CAUTION } from '@shared/text/caution';
 
-/** A verdict in words, as the findings page and the workbook say it (shared/types/findings-rows.ts). */
-export const VERDICT_WORDS = SHARED_VERDICT_WORDS;
+/** A verdict in words, as the findings page and the workbook say it: shared/text/verdict-words.ts. */
+export { VERDICT_WORDS } from '@shared/text/verdict-words';
 
 export const MEANING_WORDS = { accepted: 'Accepted for patient testing', 'not-accepted': 'Not accepted for patient testing' } as const;
 

@@ -2,13 +2,15 @@ import { and, eq, sql } from 'drizzle-orm';
 import type { Tx } from '../db/client';
 import { labTimeZone } from '../db/lab-zone';
 import { users } from '../db/schema';
+import { CAUTION } from '@shared/text/caution';
 import { laboratoryTime } from '@shared/types/lab-time';
 import { queueMail } from '../mail/outbox';
 import type { StudyRow } from '../studies/studies.repository';
+import { ownerScope } from '../db/lab-scope';
 
 const link = (publicUrl: string, study: StudyRow, page: string) => `${publicUrl}/studies/${study.id}/${page}`;
 /** Now, as the study's laboratory reads it, zone named: the mail is queued in the step's own transaction. */
-const now = async (tx: Tx, study: StudyRow) => laboratoryTime(new Date(), await labTimeZone(tx, study.laboratoryId));
+const now = async (tx: Tx, study: StudyRow) => laboratoryTime(new Date(), await labTimeZone(tx, ownerScope(study)));
 
 export async function labDirectors(tx: Tx, laboratoryId: number) {
   return tx.select().from(users).where(and(eq(users.laboratoryId, laboratoryId), eq(users.active, true), sql`'director' = ANY(${users.roles})`));
@@ -24,7 +26,7 @@ export async function notifySubmitted(tx: Tx, study: StudyRow, by: string, publi
     subject: `Awaiting your signature: ${study.title}`,
     text: [`${by} submitted the study "${study.title}" for sign-off.`, '', ...(note ? [`Note from ${by}:`, note, ''] : []),
       `Review it here: ${link(publicUrl, study, 'review')}`, `Submitted: ${await now(tx, study)}`, '',
-      'The findings are decision support; acceptance follows local accreditation rules and your professional judgement.'].join('\n'),
+      CAUTION].join('\n'),
   });
 }
 

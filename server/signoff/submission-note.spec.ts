@@ -1,4 +1,5 @@
 import { and, eq } from 'drizzle-orm';
+import { CAUTION } from '@shared/text/caution';
 import { auditEvents, mailMessages, studies } from '../db/schema';
 import { analysedComparison } from '../test/fixtures';
 import { Harness, signedIn, startHarness } from '../test/harness';
@@ -49,6 +50,8 @@ describe('the note for the director at submission', () => {
 
     const [mail] = await awaitingMails(title, 1);
     expect(mail.text).toContain(`${me.name} submitted the study "${title}" for sign-off.\n\nNote from ${me.name}:\n${NOTE}\n\nReview it here: `);
+    // The one decision-support caution of screen and PDF (shared/text/caution.ts) closes the mail (the mail store may wrap long lines).
+    expect(mail.text.replace(/\s+/g, ' ').trim().endsWith(` ${CAUTION}`)).toBe(true);
   });
 
   it('refuses a note over 1,000 characters naming the field, and nothing is submitted, audited or mailed', async () => {

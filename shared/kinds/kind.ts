@@ -1,4 +1,5 @@
 import type * as z from 'zod';
+import type { VerdictView } from '../text/verdict-words';
 
 /**
  * What a study kind says about itself to both sides: its name, its row fields and its own settings. The light
@@ -31,7 +32,7 @@ export interface KindMeta {
    * The overall verdicts its findings can reach, as the archive lists and filters them: a key unique among all
    * kinds, an icon (Material Symbols name), a short word and a sentence; never colour alone.
    */
-  verdicts: readonly VerdictWords[];
+  verdicts: readonly VerdictView[];
   /** Own settings that are words for people, not inputs of the engine (changing them leaves findings current). */
   recordOnly?: readonly string[];
   /** Own settings a director approves as the plan. */
@@ -57,9 +58,3 @@ export interface RowField {
   emptyIsNull?: boolean;
 }
 
-/** An overall verdict in words, for the archive's badge and filter. */
-export interface VerdictWords {
-  key: string; icon: string; word: string; sentence: string;
-  /** How the badge tints its icon: a pass, a failure, an open question, or a plain record. */
-  tone: 'pass' | 'fail' | 'open' | 'record';
-}

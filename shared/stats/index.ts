@@ -3,7 +3,7 @@
  */
 export { analyzeComparison } from './analyze-comparison';
 export { analyzeInterval } from './analyze-interval';
-export { verifyInterval, type VerifyIntervalResult } from './verify-interval';
+export { outsideStated, sideOfStated, verifyInterval, type StatedLimits, type VerifyIntervalResult } from './verify-interval';
 // Precision verification (CLSI EP15-A3 practice): see README.md "Precision".
 export { analyzePrecision } from './analyze-precision';
 export type { PrecisionResult, PrecisionRow, PrecisionOptions, PrecisionMaterialSetting, PrecisionMaterialResult, PrecisionComponent, PrecisionVerdict } from './precision-types';

@@ -3,6 +3,9 @@ import { jsonClean } from './json-clean';
 import { magnitudeProblem } from './magnitude';
 import { decimalsOption } from './options';
 import { resolutionStep, type Resolution } from './resolution';
+import { sideOfStated } from './stated-limits';
+
+export { outsideStated, sideOfStated, type StatedLimits } from './stated-limits';
 
 /**
  * Verification (transference) of a stated reference interval with local values (CLSI EP28-A3c practice,
@@ -38,8 +41,9 @@ export function verifyInterval(values: ArrayLike<number>, stated: { lower: numbe
     if (!Number.isFinite(values[i])) throw new RangeError(`verifyInterval requires finite values (value ${i + 1})`);
     const problem = magnitudeProblem(values[i]);
     if (problem) throw new RangeError(`verifyInterval: value ${i + 1}: ${problem}`);
-    if (values[i] < lower) below++;
-    else if (values[i] > upper) above++;
+    const side = sideOfStated(values[i], stated);
+    if (side === 'below') below++;
+    else if (side === 'above') above++;
   }
   const n = values.length;
   const outside = below + above;

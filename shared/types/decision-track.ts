@@ -5,6 +5,7 @@ import type { Resolution } from '../stats/resolution';
 import { findingsDecimals, formatCi, formatNumber, levelLabel, withUnit } from './findings-numbers';
 import { REGRESSION_NAMES } from './regression-words';
 import { estimateStep, judgedOnSentence } from './resolution-words';
+import { LEVEL_VERDICT_WORDS, VERDICT_IN_LINE, verdictWord } from '../text/verdict-words';
 
 /**
  * The decision-level picture, as plain data for the findings page, the review page and the PDF alike: one
@@ -116,16 +117,10 @@ export interface DecisionPicture {
   conclusion: string;
 }
 
-const WORDS: Record<Verdict, { word: string; ci: string; floor: string; mark: TrackMark }> = {
-  within: { word: 'Within', ci: 'the whole CI lies inside the allowable band', floor: 'the whole interval judged on lies inside the allowable band', mark: 'filled' },
-  inconclusive: { word: 'Inconclusive', ci: 'the CI crosses an edge of the allowable band', floor: 'the interval judged on crosses an edge of the allowable band', mark: 'half' },
-  exceeds: { word: 'Exceeds', ci: 'the whole CI lies beyond the allowable band', floor: 'the whole interval judged on lies beyond the allowable band', mark: 'open' },
-};
+/** How each verdict is marked on its track (its words: shared/text/verdict-words.ts). */
+const MARKS: Record<Verdict, TrackMark> = { within: 'filled', inconclusive: 'half', exceeds: 'open' };
 
-/** The verdict words of the picture, the findings and the PDF: "Within", "Inconclusive", "Exceeds", "No verdict". */
-export function verdictWord(verdict: Verdict | null | undefined): string {
-  return verdict ? WORDS[verdict].word : 'No verdict';
-}
+export { verdictWord };
 
 /** The picture of one comparison's decision levels. */
 export function decisionPicture(result: TrackResult, goal: TrackGoal, format: TrackFormat): DecisionPicture {
@@ -168,22 +163,12 @@ export function levelSentence(l: DecisionLevelResult, format: TrackFormat, confi
   const limit = l.allowable === null || l.allowable === undefined ? '' : `±${withUnit(formatNumber(l.allowable, d.stat), format.unit)}`;
   if (l.judgedOn && l.verdict) {
     const judged = `${head}. ${judgedOnSentence(withUnit(formatCi(l.judgedOn, d.stat), format.unit), step)}`;
-    if (l.verdict === 'within') return `${judged}: that whole interval lies within the allowable ${limit}.`;
-    if (l.verdict === 'exceeds') return `${judged}: that whole interval lies beyond the allowable ${limit}.`;
-    return `${judged}: that interval crosses the allowable ${limit}, so these data cannot settle it.`;
+    return `${judged}: ${LEVEL_VERDICT_WORDS[l.verdict].against('judged', limit)}.`;
   }
-  switch (l.verdict) {
-    case 'within':
-      return `${head}: the whole CI lies within the allowable ${limit}.`;
-    case 'exceeds':
-      return `${head}: the whole CI lies beyond the allowable ${limit}.`;
-    case 'inconclusive':
-      return `${head}: the CI crosses the allowable ${limit}, so these data cannot settle it.`;
-    default:
-      return l.allowable === null || l.allowable === undefined
-        ? `${head}. No allowable bias is set for this study, so there is no verdict.`
-        : `${head}. The CI could not be formed, so there is no verdict.`;
-  }
+  if (l.verdict) return `${head}: ${LEVEL_VERDICT_WORDS[l.verdict].against('ci', limit)}.`;
+  return l.allowable === null || l.allowable === undefined
+    ? `${head}. No allowable bias is set for this study, so there is no verdict.`
+    : `${head}. The CI could not be formed, so there is no verdict.`;
 }
 
 interface StatedGoal { absolute: number | null; percent: number | null }
@@ -238,7 +223,7 @@ function track(l: DecisionLevelResult, k: number, goal: StatedGoal, format: Trac
   const trackBand = band(l, goal, unit, stat);
   const at = withUnit(formatNumber(l.level, valueDecimals), unit);
   const reason = verdict
-    ? WORDS[verdict][floor ? 'floor' : 'ci']
+    ? LEVEL_VERDICT_WORDS[verdict][floor ? 'floor' : 'ci']
     : trackBand === null ? 'no allowable bias is set' : 'the CI could not be formed';
   const floorText = floor ? withUnit(formatCi(floor, stat), unit) : null;
   const bias = withUnit(formatNumber(estimate, stat), unit);
@@ -250,7 +235,7 @@ function track(l: DecisionLevelResult, k: number, goal: StatedGoal, format: Trac
     `allowable ${trackBand ? trackBand.text : 'not set'}. ${word}: ${reason}.`;
   return {
     key, level: l.level, at, estimate, ci, floor, band: trackBand, verdict, word, reason,
-    mark: verdict ? WORDS[verdict].mark : 'none',
+    mark: verdict ? MARKS[verdict] : 'none',
     bias, biasPercent, ciText, floorText, summary,
     lines: [
       `${bias}, ${confidence} CI ${ciText}`,
@@ -331,9 +316,9 @@ function conclusionOf(tracks: DecisionTrack[], result: TrackResult, unit: string
       parts.push(`${words(named)} at ${list((t) => t.verdict === v)}`);
       if (v !== null) named = true;
     };
-    add('within', () => 'within the allowable bias');
+    add('within', () => VERDICT_IN_LINE.within);
     add('inconclusive', () => 'inconclusive');
-    add('exceeds', (n) => (n ? 'exceeds it' : 'exceeds the allowable bias'));
+    add('exceeds', (n) => (n ? 'exceeds it' : VERDICT_IN_LINE.exceeds));
     add(null, () => 'no verdict');
     const text = parts.join('; ');
     first = `${text.charAt(0).toUpperCase()}${text.slice(1)}.`;

@@ -1,5 +1,5 @@
 import type { ComparisonCore, ComparisonResult, Estimate } from '../stats/comparison-types';
-import type { Verdict } from '../stats/decision-levels';
+import { VERDICT_IN_LINE } from '../text/verdict-words';
 import { estimateWithCi, type FindingsDecimals, formatNumber, NOT_AVAILABLE, withUnit } from './findings-numbers';
 import { NARROW_CI_SHORT } from './resolution-words';
 
@@ -86,12 +86,6 @@ export function testRows(r: Pick<ComparisonResult, 'biasTests' | 'signTest' | 'w
   ];
 }
 
-/** A decision level's verdict in words. */
-export const VERDICT_WORDS: Record<Verdict, string> = {
-  within: 'Within the allowable bias',
-  inconclusive: 'Inconclusive: the CI crosses the allowable bias',
-  exceeds: 'Exceeds the allowable bias',
-};
 
 /** One line of the with-and-without table: the estimate without the excluded rows (the findings) and with every row, as text. */
 export interface SensitivityLine {
@@ -101,12 +95,6 @@ export interface SensitivityLine {
   all: string;
 }
 
-/** The verdict inside a line, after an estimate and a colon. */
-export const VERDICT_IN_LINE: Record<Verdict, string> = {
-  within: 'within the allowable bias',
-  inconclusive: 'inconclusive, the CI crosses the allowable bias',
-  exceeds: 'exceeds the allowable bias',
-};
 
 /**
  * The main estimates without the excluded rows (as analysed) and with every row, side by side. `notes` (the

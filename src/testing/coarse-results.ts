@@ -1,5 +1,7 @@
 import { type Type } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
+import { intervalEstablishMeta } from '@shared/kinds/interval-establish/meta';
+import { methodComparisonMeta } from '@shared/kinds/method-comparison/meta';
 import type { ComparisonFindingsResult, Units } from '../app/features/studies/findings/comparison/comparison-result';
 import type { EstablishResult } from '../app/features/studies/intervals/findings/interval-result';
 
@@ -24,7 +26,7 @@ export function sodiumComparison(): ComparisonFindingsResult {
     level: at, bias: { estimate: 1, ci: [1, 1] }, biasPercent: 100 / at, allowable: 2, verdict: 'within', judgedOn: [0.5, 1.5],
   });
   return {
-    kind: 'comparison', n: 60, nTotal: 60, excluded: { count: 0, rows: [] }, differenceType: 'absolute',
+    kind: methodComparisonMeta.resultKind, n: 60, nTotal: 60, excluded: { count: 0, rows: [] }, differenceType: 'absolute',
     bias: { mean: { estimate: 0.83, ci: [0.55, 1.08], pValue: 0.0005, se: 0.13 }, median: { estimate: 1, ci: [1, 1], pValue: 0.0005, se: 0 } },
     sd: { estimate: 1.04, ci: [0.8, 1.25] },
     limitsOfAgreement: { multiplier: 1.96, lower: { estimate: -1.21, ci: [-1.78, -0.6] }, upper: { estimate: 2.88, ci: [2.44, 3.27] } },
@@ -53,7 +55,7 @@ const limit = (percentile: number, estimate: number, ci: [number, number]) => ({
 /** A sodium interval partitioned by sex: the overall upper limit and the women's lower limit have CIs of one value. */
 export function sodiumInterval(): EstablishResult {
   return {
-    kind: 'interval', n: 130, nTotal: 130, excludedCount: 0, method: 'nonparametric', percentiles: [2.5, 97.5],
+    kind: intervalEstablishMeta.resultKind, n: 130, nTotal: 130, excludedCount: 0, method: 'nonparametric', percentiles: [2.5, 97.5],
     lower: limit(2.5, 138, [138, 139]), upper: limit(97.5, 142, [142, 142]), boxCoxLambda: null,
     outliers: [], outlierIndexes: [], outlierScreen: { tukey: { lowerFence: 135, upperFence: 148, rows: [] }, dixon: { rows: [] } },
     partition: null,

@@ -3,7 +3,7 @@ import { intervalVerifyMeta } from '@shared/kinds/interval-verify/meta';
 import { StudySettings } from '@shared/schemas';
 import { CAUTION } from '@shared/stats/comparison-types';
 import { engineInfo } from '@shared/stats/engine';
-import { verifyInterval } from '@shared/stats/verify-interval';
+import { outsideStated, verifyInterval } from '@shared/stats/verify-interval';
 import { has, withRepeatedLabels } from '../../analyses/analysis-rows';
 import { valueColumns, verifyLines } from '../../audit/results-sheet';
 import type { VerifyFindings } from '../../reports/report-model';
@@ -26,8 +26,9 @@ export const intervalVerifyKind: ServerKind = {
     const s = StudySettings.parse(input.settings);
     if (s.statedLower === null || s.statedUpper === null) throw new Error('Give the stated lower and upper limits in Setup before running the analysis');
     const used = input.rows.filter((r) => !r.excluded && has(r.value));
-    const result = verifyInterval(used.map((r) => r.value!), { lower: s.statedLower, upper: s.statedUpper }, s.decimals);
-    const outsidePositions = used.filter((r) => r.value! < s.statedLower! || r.value! > s.statedUpper!).map((r) => r.position);
+    const stated = { lower: s.statedLower, upper: s.statedUpper };
+    const result = verifyInterval(used.map((r) => r.value!), stated, s.decimals);
+    const outsidePositions = used.filter((r) => outsideStated(r.value!, stated)).map((r) => r.position);
     return { ...withRepeatedLabels(result, used), excludedCount: input.rows.length - used.length, outsidePositions, stated: { lower: s.statedLower, upper: s.statedUpper, source: s.statedSource }, caution: CAUTION, engine: engineInfo(s.seed, s.resamples) };
   },
   submissionProblems: (s) => (s.statedLower === null || s.statedUpper === null || !s.statedSource

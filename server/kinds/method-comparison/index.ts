@@ -9,7 +9,7 @@ import type { ComparisonFindings } from '../../reports/report-model';
 import { comparisonReport } from '../../reports/sections/comparison-report';
 import type { ServerKind } from '../kind';
 import { estimateWithCi, findingsDecimals, formatNumber, levelLabel, withUnit } from '@shared/types/findings-numbers';
-import { VERDICT_WORDS } from '@shared/types/findings-rows';
+import { VERDICT_WORDS } from '@shared/text/verdict-words';
 
 /** Method comparison on the server: the engine's comparison, the goals it needs before submission, its report. */
 export const methodComparisonKind: ServerKind = {

@@ -1,4 +1,5 @@
 import { along, type DecisionPicture, type DecisionTrack, type TrackMark } from '@shared/types/decision-track';
+import { LEVEL_VERDICT_WORDS } from '@shared/text/verdict-words';
 import { drawText, measure, textWidth, type TextStyle } from '../text';
 import { COLOR, SIZE } from '../theme';
 
@@ -47,9 +48,9 @@ function textHeight(doc: PDFKit.PDFDocument, t: DecisionTrack): number {
 /** The legend under the axis: one line of keys, then the band's caption with its source. */
 function legendItems(picture: DecisionPicture): { kind: TrackMark | 'band' | 'ci' | 'floor'; label: string }[] {
   return [
-    { kind: 'filled', label: 'within' },
-    { kind: 'half', label: 'inconclusive' },
-    { kind: 'open', label: 'exceeds' },
+    { kind: 'filled', label: LEVEL_VERDICT_WORDS.within.legend },
+    { kind: 'half', label: LEVEL_VERDICT_WORDS.inconclusive.legend },
+    { kind: 'open', label: LEVEL_VERDICT_WORDS.exceeds.legend },
     { kind: 'ci', label: `${picture.confidence} CI` },
     ...(picture.hasFloor ? [{ kind: 'floor' as const, label: 'judged on: CI widened to ± half a reporting step' }] : []),
   ];

@@ -1,3 +1,4 @@
+import { outsideStated } from '@shared/stats/stated-limits';
 import { dataStep } from '@shared/types/plot-axes';
 import { COLOR } from '../theme';
 import { clipped, drawAxes, makeFrame, type Frame } from './frame';
@@ -34,7 +35,7 @@ export function stripPlot(doc: PDFKit.PDFDocument, box: Box, input: StripInput):
       const column = Math.round(frame.px(v) / (2 * radius));
       const level = stacks.get(column) ?? 0;
       stacks.set(column, level + 1);
-      const outside = (input.lower !== null && v < input.lower) || (input.upper !== null && v > input.upper);
+      const outside = outsideStated(v, input);
       const cx = column * 2 * radius;
       const cy = Math.max(frame.y + radius, frame.y + frame.height - radius - 1 - level * 2 * radius);
       doc.save();

@@ -1,3 +1,4 @@
+import { methodComparisonMeta } from '@shared/kinds/method-comparison/meta';
 import { pairedDifferences } from '@shared/stats/differences';
 import { stepWords as wordsOfStep, type StepWords } from '@shared/types/resolution-words';
 import { findingsDecimals, type FindingsDecimals } from '@shared/types/findings-numbers';
@@ -48,7 +49,7 @@ export const isNumber = (v: number | null | undefined): v is number => typeof v 
  * results the differences follow the study's difference type.
  */
 export function decimalsOf(report: StudyReport, results?: ComparisonFindings | null): FindingsDecimals {
-  const type = report.study.kind === 'method-comparison' ? results?.differenceType ?? report.settings.differenceType : 'absolute';
+  const type = report.study.kind === methodComparisonMeta.kind ? results?.differenceType ?? report.settings.differenceType : 'absolute';
   return findingsDecimals(report.settings.decimals, type);
 }
 
@@ -70,7 +71,7 @@ export function comparisonUnits(report: StudyReport, results: ComparisonFindings
  */
 export function stepWords(report: StudyReport, results: ComparisonFindings | EstablishFindings): StepWords {
   const unit = report.analyte.unit;
-  return wordsOfStep(results.resolution, unit, results.kind === 'comparison' ? differenceUnit(report, results) : unit);
+  return wordsOfStep(results.resolution, unit, results.kind === methodComparisonMeta.resultKind ? differenceUnit(report, results) : unit);
 }
 
 /** The rule of the reporting step in a box of its own, once, at the top of the findings. */

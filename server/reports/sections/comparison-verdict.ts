@@ -1,5 +1,6 @@
 import { decisionPicture, PICTURE_TITLE, type DecisionPicture } from '@shared/types/decision-track';
 import { plural } from '@shared/types/plural';
+import { VERDICT_DEFINITIONS } from '@shared/text/verdict-words';
 import { integer } from '../format';
 import type { Layout } from '../layout';
 import { decisionTrackParts, drawDecisionTrackPart, type TrackPart } from '../plots/decision-track';
@@ -76,8 +77,7 @@ export function comparisonVerdictDetails(layout: Layout, report: StudyReport, re
   }
   for (const t of picture.tracks) layout.paragraph(`${t.word}. ${t.sentence}`, { size: 8 });
   layout.paragraph(
-    'Predicted bias at a level Xc is a + (b − 1)·Xc from the regression. Within: the whole CI lies inside ±allowable. ' +
-    'Exceeds: the whole CI lies outside it. Inconclusive: the CI crosses a limit, so the data can neither show agreement nor its absence. ' +
+    `Predicted bias at a level Xc is a + (b − 1)·Xc from the regression. ${VERDICT_DEFINITIONS} ` +
     '"Not significant" does not mean equivalent: the decision rests on the CI against the goal, not on a p-value.',
     { size: 7.5, color: COLOR.muted },
   );

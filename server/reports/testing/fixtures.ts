@@ -1,8 +1,11 @@
 import { createHash } from 'node:crypto';
 import { StudySettings, type StudySettingsPatch } from '@shared/schemas';
-import { analyzeComparison, analyzeInterval, verifyInterval } from '@shared/stats';
+import { analyzeComparison, analyzeInterval } from '@shared/stats';
 import { planOptionsFor, SamplePlan } from '@shared/kinds/method-comparison/sample-plan';
 import { planComparison } from '@shared/stats/plan-comparison';
+import { withRecordedWords } from '../../analyses/recorded-words';
+import { runAnalysis } from '../../analyses/run-analysis';
+import { analysedSettings, type AnalysedRow } from '../../specimens/input-hash';
 import type { ReportRow, StudyReport } from '../report-model';
 
 /**
@@ -144,15 +147,26 @@ export function establishReport(count = 130, rows = intervalRows(count)): StudyR
   return { ...report, study: { ...report.study, title: 'Sodium, serum: local reference interval' }, analyte: { name: 'Sodium', unit: 'mmol/L' }, results };
 }
 
+/**
+ * What a study's PDF prints from: the results the app's analysis makes of these rows and settings (runAnalysis on
+ * the analysed input, as the worker runs it: record-only settings left out), with the study's record-only words
+ * added as wherever results are served (withRecordedWords). Never a result rebuilt by hand beside the analysis.
+ */
+export function servedResults(kind: string, settings: StudySettings, rows: ReportRow[]): unknown {
+  const analysed: AnalysedRow[] = rows.map((r) => ({
+    position: r.position, label: r.label, comparative: r.comparative, candidate: r.candidate, value: r.value,
+    comparativeText: null, candidateText: null, valueText: r.value === null ? null : String(r.value),
+    sex: r.sex, ageBand: r.ageBand, excluded: r.excluded, exclusionReason: r.exclusionReason,
+  }));
+  return withRecordedWords(runAnalysis({ kind, settings: analysedSettings(settings, kind), rows: analysed }), settings);
+}
+
 export function verifyReport(count = 20, stated = { lower: 137, upper: 143 }): StudyReport {
   const settings = StudySettings.parse({ decimals: 0, statedLower: stated.lower, statedUpper: stated.upper, statedSource: 'Manufacturer’s insert, rev. 2025-06' });
   const rows = intervalRows(count);
-  const used = rows.filter((r) => !r.excluded);
-  const result = verifyInterval(used.map((r) => r.value!), stated, settings.decimals);
-  const outsidePositions = used.filter((r) => r.value! < stated.lower || r.value! > stated.upper).map((r) => r.position);
   const report = base('interval-verify', settings, rows);
   return {
     ...report, study: { ...report.study, title: 'Sodium, serum: verify the manufacturer’s interval' }, analyte: { name: 'Sodium', unit: 'mmol/L' },
-    results: { ...result, excludedCount: rows.length - used.length, outsidePositions, stated: { ...stated, source: settings.statedSource } },
+    results: servedResults('interval-verify', settings, rows) as StudyReport['results'],
   };
 }

@@ -1,5 +1,6 @@
 import { IntervalRowInput } from '../../schemas/specimen.schema';
 import type { KindMeta, RowField } from '../kind';
+import type { IntervalResult } from '../../stats/interval-types';
 
 /** The row fields of both reference-interval kinds: one value per reference individual, with sex and age band. */
 export const INTERVAL_ROW_FIELDS = [
@@ -15,7 +16,8 @@ export const intervalEstablishMeta = {
   label: 'Reference interval: establish',
   reportKind: 'Reference interval: establishment',
   reportTitle: 'Reference interval establishment: study report',
-  resultKind: 'interval',
+  // The engine's name of its result (stored in every result; the CLI's engine command): tied to the engine's type.
+  resultKind: 'interval' satisfies IntervalResult['kind'],
   instruments: 'one',
   verdicts: [
     { key: 'established', tone: 'record', icon: 'straighten', word: 'Interval established', sentence: 'A reference interval was established from the local results.' },

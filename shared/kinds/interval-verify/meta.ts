@@ -1,6 +1,7 @@
 import { IntervalRowInput } from '../../schemas/specimen.schema';
 import { INTERVAL_ROW_FIELDS } from '../interval-establish/meta';
 import type { KindMeta } from '../kind';
+import type { VerifyIntervalResult } from '../../stats/verify-interval';
 
 /** Verifying a stated reference interval with 20 local individuals (transference). */
 export const intervalVerifyMeta = {
@@ -8,7 +9,8 @@ export const intervalVerifyMeta = {
   label: 'Reference interval: verify',
   reportKind: 'Reference interval: verification (transference)',
   reportTitle: 'Reference interval verification: study report',
-  resultKind: 'verify-interval',
+  // The engine's name of its result (stored in every result; the CLI's engine command): tied to the engine's type.
+  resultKind: 'verify-interval' satisfies VerifyIntervalResult['kind'],
   instruments: 'one',
   verdicts: [
     { key: 'accepted', tone: 'pass', icon: 'verified', word: 'Interval fits', sentence: 'Few enough local results fell outside the stated reference interval.' },

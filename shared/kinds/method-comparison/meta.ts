@@ -1,5 +1,7 @@
 import { ComparisonRowInput } from '../../schemas/specimen.schema';
 import type { KindMeta } from '../kind';
+import type { ComparisonResult } from '../../stats/comparison-types';
+import { COMPARISON_STUDY_VERDICTS } from '../../text/verdict-words';
 import { MethodComparisonSettings } from './sample-plan';
 
 /** Method comparison: the same specimens on the comparative and the candidate method. */
@@ -8,13 +10,11 @@ export const methodComparisonMeta = {
   label: 'Method comparison',
   reportKind: 'Method comparison',
   reportTitle: 'Method comparison: verification report',
-  resultKind: 'comparison',
+  // The engine's name of its result (stored in every result; the CLI's engine command): tied to the engine's type.
+  resultKind: 'comparison' satisfies ComparisonResult['kind'],
   instruments: 'pair',
-  verdicts: [
-    { key: 'within', tone: 'pass', icon: 'check_circle', word: 'Within goal', sentence: 'At every decision level the whole CI of the bias lies within the allowable bias.' },
-    { key: 'inconclusive', tone: 'open', icon: 'help', word: 'Inconclusive', sentence: 'At one or more decision levels the CI crosses the allowable bias; these data cannot settle it.' },
-    { key: 'exceeds', tone: 'fail', icon: 'cancel', word: 'Exceeds goal', sentence: 'At one or more decision levels the whole CI of the bias lies beyond the allowable bias.' },
-  ],
+  // Within goal / Inconclusive / Exceeds goal: the words of the decision-level verdicts (shared/text/verdict-words.ts).
+  verdicts: COMPARISON_STUDY_VERDICTS,
   row: ComparisonRowInput,
   settings: MethodComparisonSettings,
   // The plan before data: approved with the plan, read by no analysis.

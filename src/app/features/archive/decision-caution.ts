@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
-import { CAUTION } from '@shared/stats/comparison-types';
+import { CAUTION } from '@shared/text/caution';
 
 /**
  * The caution every page that shows findings carries (the findings' words unless a page gives its own, as a

@@ -1,24 +1,14 @@
 import { VERDICTS, type OverallVerdict } from '@shared/schemas';
 import { KIND_METAS } from '@shared/kinds/kinds';
+import { NO_VERDICT, type VerdictView as SharedVerdictView } from '@shared/text/verdict-words';
 
-/** How a study's overall verdict reads in the archive: an icon, a short word and a sentence; never colour alone. */
-export interface VerdictView {
-  /** The verdict's key, or 'none'; the stylesheet tints by it, but the word and icon carry the meaning. */
-  key: OverallVerdict | 'none';
-  /** The tint of the icon (shared/kinds/kind.ts VerdictWords.tone). */
-  tone: 'pass' | 'fail' | 'open' | 'record' | 'none';
-  icon: string;
-  word: string;
-  sentence: string;
-}
+/** How a study's overall verdict reads in the archive (the one type of shared/text/verdict-words.ts): an icon, a word, a sentence. */
+export type VerdictView = SharedVerdictView<OverallVerdict | 'none'>;
 
 /** Each kind's verdicts (shared/kinds/<kind>/meta.ts), and "No verdict". */
 const VIEWS = Object.fromEntries([
   ...KIND_METAS.flatMap((m) => m.verdicts.map((v) => [v.key, { ...v, key: v.key as OverallVerdict }] as const)),
-  ['none', {
-    key: 'none', tone: 'none', icon: 'remove_circle_outline', word: 'No verdict',
-    sentence: 'There are no finished findings with a verdict (no analysis yet, or no decision levels set).',
-  }] as const,
+  ['none', NO_VERDICT] as const,
 ]) as Record<OverallVerdict | 'none', VerdictView>;
 
 export function verdictView(verdict: OverallVerdict | null | undefined): VerdictView {

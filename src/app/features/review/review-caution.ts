@@ -1,11 +1,8 @@
 import { ChangeDetectionStrategy, Component } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
+import { CAUTION } from '@shared/text/caution';
 
-/** The caution the review page always carries, in full: findings support the director's decision, they do not make it. */
-export const REVIEW_CAUTION =
-  'Decision support only. These findings do not by themselves make a verification compliant: final acceptance follows local ' +
-  'accreditation rules and the laboratory director’s professional judgement. They hold only for the specimen types, measuring ' +
-  'range, population and lots studied.';
+/** The caution the review page always carries, in full (shared/text/caution.ts): findings support the director's decision, they do not make it. */
 
 @Component({
   selector: 'app-review-caution',
@@ -28,5 +25,5 @@ export const REVIEW_CAUTION =
   `,
 })
 export class ReviewCaution {
-  protected readonly text = REVIEW_CAUTION;
+  protected readonly text = CAUTION;
 }

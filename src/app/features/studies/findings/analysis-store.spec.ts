@@ -1,5 +1,6 @@
 import { TestBed } from '@angular/core/testing';
 import { of, throwError } from 'rxjs';
+import { methodComparisonMeta } from '@shared/kinds/method-comparison/meta';
 import type { Analysis } from '@shared/schemas';
 import { ApiError } from '../../../core/http/api-error';
 import { AnalysesApi } from '../api/analyses-api';
@@ -7,7 +8,7 @@ import { AnalysisStore, POLL_MS } from './analysis-store';
 
 const analysis = (state: Analysis['state'], progress: number): Analysis => ({
   id: 7, studyId: 1, state, progress, engineVersion: 'e', seed: 's', resamples: 1000, inputHash: 'h', current: true,
-  results: state === 'done' ? { kind: 'comparison' } : null, error: null, queuedAt: '2026-01-01T00:00:00Z',
+  results: state === 'done' ? { kind: methodComparisonMeta.resultKind } : null, error: null, queuedAt: '2026-01-01T00:00:00Z',
   startedAt: null, finishedAt: null, durationMs: null,
 });
 
@@ -109,7 +110,7 @@ describe('AnalysisStore with pushed progress', () => {
     expect(gets).toBe(0);
     source.push('done', 1);
     expect(gets).toBe(1);
-    expect(store.analysis()?.results).toEqual({ kind: 'comparison' });
+    expect(store.analysis()?.results).toEqual({ kind: methodComparisonMeta.resultKind });
     expect(store.working()).toBe(false);
     expect(source.closed).toBe(true);
   });

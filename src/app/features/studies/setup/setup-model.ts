@@ -1,7 +1,7 @@
 import type { Analyte, CreateStudyBody, Study, StudyKind, StudySettings, UpdateStudyBody } from '@shared/schemas';
 import { StudySettings as SettingsSchema } from '@shared/schemas';
 import type { KindMeta } from '@shared/kinds/kind';
-import { kindMeta } from '@shared/kinds/kinds';
+import { KIND_METAS, kindMeta } from '@shared/kinds/kinds';
 import { formatDecisionLevels, parseDecisionLevels } from '../../admin/analytes/decision-levels';
 
 /**
@@ -55,7 +55,8 @@ export function setupValues(study: Study | null, seed: string): SetupValues {
     };
   }
   return {
-    kind: 'method-comparison', title: '', purpose: '', analyteId: null,
+    // A new study starts as the registry's first kind (shared/kinds/kinds.ts), the method comparison.
+    kind: KIND_METAS[0].kind, title: '', purpose: '', analyteId: null,
     comparativeInstrumentId: null, candidateInstrumentId: null, instrumentId: null,
     settings: settingsValues({ ...SettingsSchema.parse({}), seed }),
   };

@@ -1,3 +1,4 @@
+import { methodComparisonMeta } from '@shared/kinds/method-comparison/meta';
 import type { Study } from '@shared/schemas';
 import type { ComparisonResult } from './engine-types';
 import { stepWords as wordsOfStep, type StepWords } from '@shared/types/resolution-words';
@@ -13,7 +14,7 @@ export type ComparisonFindingsResult = ComparisonResult & { outlierPositions?: n
 
 export function asComparison(results: unknown): ComparisonFindingsResult | null {
   const r = results as Partial<ComparisonResult> | null;
-  return r && r.kind === 'comparison' ? (r as ComparisonFindingsResult) : null;
+  return r && r.kind === methodComparisonMeta.resultKind ? (r as ComparisonFindingsResult) : null;
 }
 
 /** How findings write their numbers: the unit of results and of differences, and the decimals of each. */

@@ -3,7 +3,7 @@ import { ChangeDetectionStrategy, Component, DestroyRef, Type, computed, effect,
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { CAUTION } from '@shared/stats/comparison-types';
+import { CAUTION } from '@shared/text/caution';
 import { ErrorBanner } from '../../../../ui/error-banner';
 import { ActionBanner } from '../../action-banner';
 import { SpecimensStore } from '../../specimens/specimens-store';

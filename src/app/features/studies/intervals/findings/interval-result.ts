@@ -1,3 +1,5 @@
+import { intervalEstablishMeta } from '@shared/kinds/interval-establish/meta';
+import { intervalVerifyMeta } from '@shared/kinds/interval-verify/meta';
 import type { IntervalResult } from '@shared/stats/interval-types';
 import type { VerifyIntervalResult } from '@shared/stats/verify-interval';
 import { stepWords, type StepWords } from '@shared/types/resolution-words';
@@ -15,12 +17,12 @@ export type VerifyResult = VerifyIntervalResult & {
 
 export function asEstablish(results: unknown): EstablishResult | null {
   const r = results as Partial<IntervalResult> | null;
-  return r && r.kind === 'interval' ? (r as EstablishResult) : null;
+  return r && r.kind === intervalEstablishMeta.resultKind ? (r as EstablishResult) : null;
 }
 
 export function asVerify(results: unknown): VerifyResult | null {
   const r = results as Partial<VerifyIntervalResult> | null;
-  return r && r.kind === 'verify-interval' ? (r as VerifyResult) : null;
+  return r && r.kind === intervalVerifyMeta.resultKind ? (r as VerifyResult) : null;
 }
 
 /**

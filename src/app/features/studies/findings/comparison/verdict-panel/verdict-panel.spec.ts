@@ -1,4 +1,5 @@
 import { TestBed } from '@angular/core/testing';
+import { LEVEL_VERDICT_WORDS } from '@shared/text/verdict-words';
 import { fineGrained, SODIUM_UNITS, sodiumComparison, storedBeforeResolution } from '../../../../../../testing/coarse-results';
 import type { ComparisonFindingsResult, Units } from '../comparison-result';
 import { VerdictPanel } from './verdict-panel';
@@ -48,6 +49,13 @@ describe('VerdictPanel: the decision-level picture', () => {
     expect(marks[1].querySelectorAll('path.half')).toHaveLength(1);
     expect(marks[2].querySelector('path')!.getAttribute('fill')).toBe('#ffffff');
     expect(marks[2].querySelectorAll('path.half')).toHaveLength(0);
+  });
+
+  it("keys the three marks in the legend with the verdicts' words the PDF's legend uses (shared/text/verdict-words.ts)", async () => {
+    const { root } = await render(glucose(), GLUCOSE_UNITS);
+    const keys = [...root.querySelectorAll('figcaption.legend .key')].map((k) => k.textContent!.trim());
+    expect(keys.slice(0, 3)).toEqual(['within', 'inconclusive', 'exceeds']);
+    expect(keys.slice(0, 3)).toEqual((['within', 'inconclusive', 'exceeds'] as const).map((v) => LEVEL_VERDICT_WORDS[v].legend));
   });
 
   it('places the band, the CI and the estimate on one axis symmetric about zero', async () => {

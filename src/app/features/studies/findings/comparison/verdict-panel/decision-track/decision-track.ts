@@ -1,5 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { along, type DecisionPicture, type DecisionTrack, type TrackMark } from '@shared/types/decision-track';
+import { LEVEL_VERDICT_WORDS } from '@shared/text/verdict-words';
 
 let figures = 0;
 
@@ -28,6 +29,8 @@ export class DecisionTrackFigure {
   protected readonly hatch = `decision-hatch-${++figures}`;
   protected readonly diamond = DIAMOND;
   protected readonly leftHalf = LEFT_HALF;
+  /** The legend's words for the three marks (shared/text/verdict-words.ts), as the PDF's legend says them. */
+  protected readonly legend = { within: LEVEL_VERDICT_WORDS.within.legend, inconclusive: LEVEL_VERDICT_WORDS.inconclusive.legend, exceeds: LEVEL_VERDICT_WORDS.exceeds.legend };
   protected readonly ticks = computed(() => {
     const axis = this.picture().axis;
     return axis.ticks.map((value, k) => ({ value, label: axis.labels[k], x: this.x(value) }));
