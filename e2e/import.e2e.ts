@@ -52,8 +52,16 @@ test('importing the same file twice warns of the repeated labels and suggests re
   await expect(notice).toHaveCount(0);
   const dialog = page.locator('mat-dialog-container');
   await dialog.screenshot({ path: path.join(SCREENSHOTS, 'import-preview-repeats.png') });
+  // What the shot shows: the dialog's title, the file's 45 rows, the repeats named and replacing chosen.
+  await expect(dialog.getByRole('heading', { level: 2 })).toHaveText('Import specimen results from a file');
+  await expect(page.getByTestId('upload-summary')).toContainText(': 45 rows,');
+  await expect(page.getByTestId('upload-warnings')).toContainText('45 rows repeat labels already in the study');
   await page.getByTestId('repeat-advice').scrollIntoViewIfNeeded();
   await dialog.screenshot({ path: path.join(SCREENSHOTS, 'import-preview-repeats-mode.png') });
+  await expect(page.getByTestId('repeat-advice')).toBeInViewport();
+  await expect(page.getByTestId('repeat-advice')).toHaveText(/^The file repeats most of the study's labels, so it looks like the same rows again: replacing them is suggested\./);
+  await expect(page.getByTestId('mode-replace').locator('input')).toBeChecked();
+  await expect(page.getByTestId('replace-warning')).toHaveText("This replaces the 45 rows now in the grid (the change is kept in the study's history).");
 
   // Choosing the label column away says the rows would come in unlabelled.
   await choose(page, page.getByTestId('map-label'), '— none —');

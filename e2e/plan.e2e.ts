@@ -106,6 +106,10 @@ test('a technologist plans a new comparison by simulation: fills the plan, runs 
   await expect(panel.getByTestId('plan-recommendation')).toBeVisible();
   await closeNotice(page);
   await shootPanel(page, panel, 'plan-comparison.png');
+  // What the shot shows: the reloaded recommendation with its reason, the 9 rows of the grid and the caution.
+  await expect(panel.getByTestId('plan-reason')).toHaveText(/specimens: the smallest n on the grid|No n on the grid meets both targets/);
+  await expect(panel.getByTestId('plan-table').locator('tbody tr')).toHaveCount(9);
+  await expect(panel.getByTestId('plan-caution')).toContainText('Decision support only');
 });
 
 test('a verification and an establishment show on Setup what their plan buys, worked out as the planned number changes', async ({ page }) => {
@@ -121,6 +125,8 @@ test('a verification and an establishment show on Setup what their plan buys, wo
   await expect(verify.getByTestId('transference-table').locator('tbody tr')).toHaveCount(8);
   await expectPainted(verify.getByTestId('transference-chart').locator('canvas'));
   await shootPanel(page, verify, 'plan-verify.png');
+  await expect(verify.getByTestId('transference-sentence')).toContainText('the rule still accepts 67.7% of the time (89.6% with the retest)');
+  await expect(verify.getByTestId('transference-table').locator('tbody tr')).toHaveCount(8);
   // 40 planned: at most 4 outside, and the figures follow.
   await page.getByTestId('setup-planned').fill('40');
   await expect(verify).toContainText('at most 4 of 40 individuals fall outside');
@@ -138,4 +144,6 @@ test('a verification and an establishment show on Setup what their plan buys, wo
   await expect(establish.getByTestId('establish-table')).toContainText('Expected width (mmol/L)');
   await expectPainted(establish.getByTestId('establish-chart').locator('canvas'));
   await shootPanel(page, establish, 'plan-establish.png');
+  await expect(establish.getByTestId('establish-smallest-0')).toContainText('Below 119 individuals no 90% CI of the 2.5th or 97.5th percentile exists');
+  await expect(establish.getByTestId('establish-table')).toContainText('Expected width (mmol/L)');
 });

@@ -62,6 +62,9 @@ test('a technologist verifies precision on two controls and the director signs i
   await page.getByTestId('material-add').click();
   await fillMaterial(page, 2, { name: 'Control 2 (high)', as: /CVs/, repeatability: '1.0', withinLab: '1.4' });
   await fullShot(page, 'precision-setup.png');
+  await expect(page.getByTestId('material-1')).not.toContainText('cannot be smaller');
+  await expect(page.getByTestId('material-2')).toBeVisible();
+  await expect(page.getByTestId('setup-control-lot')).toHaveValue('QC-GL-118');
   await page.getByTestId('setup-save').click();
   await expect(page).toHaveURL(/\/studies\/\d+\/specimens$/);
   await expect(page.getByTestId('study-title')).toHaveText(title);
@@ -77,6 +80,9 @@ test('a technologist verifies precision on two controls and the director signs i
   await expect(cell(page, 6, 'replicate')).toHaveText('2');
   await closeNotice(page);
   await page.screenshot({ path: path.join(SCREENSHOTS, 'precision-specimens.png') });
+  await expect(page.getByTestId('row-count')).toHaveText('50 rows');
+  await expect(page.getByTestId('save-state')).toHaveText('Saved');
+  await expect(page.getByTestId('problems')).toHaveCount(0);
 
   await page.getByTestId('tab-findings').click();
   await page.getByTestId('run-analysis').click();
@@ -90,6 +96,8 @@ test('a technologist verifies precision on two controls and the director signs i
   await expect(page.getByTestId('caution')).toContainText('Decision support only');
   await expect(page.getByTestId('plot-days-1')).toBeVisible();
   await fullShot(page, 'precision-findings.png');
+  await expect(page.getByTestId('precision-overall')).toHaveText('4 claims over 2 materials: 3 verified, 1 consistent with the claim, 0 not verified. Trueness verified for 1 of 1 material with an assigned value.');
+  await expect(page.getByTestId('caution')).toContainText('Decision support only');
 
   // Submit, then the director signs on the review page.
   await page.getByTestId('step-submit').click();
@@ -105,6 +113,9 @@ test('a technologist verifies precision on two controls and the director signs i
   await expect(director.getByTestId('review-caution')).toContainText('Decision support only');
   await expect(director.getByTestId('review-analysis')).toContainText('no resampling');
   await fullShot(director, 'precision-review.png');
+  await expect(director.getByTestId('review-state')).toContainText('Awaiting sign-off');
+  await expect(director.getByTestId('precision-overall')).toHaveText('4 claims over 2 materials: 3 verified, 1 consistent with the claim, 0 not verified. Trueness verified for 1 of 1 material with an assigned value.');
+  await expect(director.getByTestId('review-caution')).toContainText('Decision support only');
   await director.getByTestId('open-sign').click();
   const dialog = director.getByRole('dialog');
   await dialog.getByTestId('meaning-accepted').click();

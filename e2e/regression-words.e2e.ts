@@ -27,7 +27,12 @@ test('the regression reads as how the candidate reads across the range: slope an
   await closeNotice(page);
   await section.scrollIntoViewIfNeeded();
   await shootElement(page, 'regression-section', 'regression-section');
+  await expect(section.getByRole('heading')).toHaveText('How the candidate reads across the range');
+  await expect(page.getByTestId('regression-linearity')).toContainText('The cusum test for linearity of Passing–Bablok');
   await fullShot(page, 'findings-regression-words.png');
+  await expect(page.getByTestId('verdict-panel')).toBeVisible();
+  await expect(page.getByTestId('caution')).toContainText('Decision support only');
+  await expect(page.getByTestId('regression-slope')).toContainText(/per unit \(slope [0-9.]+, 95% CI/);
 });
 
 test('a verification asks for its reference population, counts the characters and names the limit when it is passed', async ({ page }) => {
@@ -44,6 +49,8 @@ test('a verification asks for its reference population, counts the characters an
   await expect(field).toContainText('69 / 2000');
   await page.locator('#setup-local-population').scrollIntoViewIfNeeded();
   await shoot(page, 'setup-reference-population');
+  await expect(field).toContainText('69 / 2000');
+  await expect(population).toHaveValue('Healthy adult blood donors, 18–65 y, Vale Harbor catchment (invented)');
   await population.fill('x'.repeat(2001));
   await population.blur();
   await expect(field.locator('mat-error')).toHaveText('Keep the description of the reference population to 2,000 characters');

@@ -45,6 +45,7 @@ test('a director releases a reagent lot from the board and opens the signed rele
   const overdue = page.getByTestId('due-item').filter({ hasText: item.label });
   await expect(overdue).toContainText(/overdue by 3 days/);
   await fullShot(page, 'release-worklist-due.png');
+  await expect(overdue).toContainText(/overdue by 3 days/);
 
   // The list of releases, then the new lot change's board: its one requirement is met by the signed comparison.
   await page.getByTestId('nav-releases').click();
@@ -52,6 +53,8 @@ test('a director releases a reagent lot from the board and opens the signed rele
   await expect(page.getByTestId(`release-open-${release.id}`)).toBeVisible();
   await expect(page.getByTestId(`release-met-${release.id}`)).toContainText('1 of 1');
   await fullShot(page, 'release-list.png');
+  await expect(page.getByTestId(`release-open-${release.id}`)).toBeVisible();
+  await expect(page.getByTestId(`release-met-${release.id}`)).toContainText('1 of 1');
   await page.getByTestId(`release-open-${release.id}`).click();
   await expect(page.getByTestId('release-title')).toHaveText(title);
   await expect(page.getByTestId('release-state')).toContainText('Open');
@@ -69,11 +72,17 @@ test('a director releases a reagent lot from the board and opens the signed rele
   await page.getByTestId('release-go-live').fill('2026-12-14');
   await page.getByTestId('release-comment').fill('Lot comparison within the goal; the new lot goes into use on Monday.');
   await fullShot(page, 'release-board-ready.png');
+  await expect(page.getByTestId('release-go-live')).toHaveValue('2026-12-14');
+  await expect(page.getByTestId('release-go-live-error')).toHaveCount(0);
+  await expect(page.getByTestId('requirement-status-lot-comparison')).toContainText('Met');
+  await expect(page.getByTestId('release-caution')).toContainText(/decision support.*director's judgement.*accreditation/);
   await page.getByTestId('sign-release').click();
   await expect(page.getByTestId('release-state')).toContainText('Released for patient testing', { timeout: 30_000 });
   const code = (await page.getByTestId('release-verification-code').first().textContent())!.match(/PX-[A-Z2-9]{4}-[A-Z2-9]{4}/)![0];
   await expect(page.getByTestId('sign-panel')).toHaveCount(0);
   await fullShot(page, 'release-board-signed.png');
+  await expect(page.getByTestId('release-state')).toContainText('Released for patient testing');
+  await expect(page.getByTestId('release-verification-code').first()).toContainText(code);
 
   // The signed PDF: the link says so, and the document carries the decision, the component and the caution.
   const pdfLink = page.getByTestId('release-pdf');

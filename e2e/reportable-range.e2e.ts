@@ -55,6 +55,9 @@ test('a technologist verifies the reportable range on nine mixtures and the dire
   await expect(page.getByTestId('level-9').getByTestId('level-fraction')).toHaveValue('1');
   await expect(page.getByTestId('level-2').getByTestId('level-pooled')).toContainText('4.3');
   await fullShot(page, 'range-setup.png');
+  await expect(page.getByText('The high pool\'s value must be above the low pool\'s')).toHaveCount(0);
+  await expect(page.getByTestId('level-9').getByTestId('level-fraction')).toHaveValue('1');
+  await expect(page.getByTestId('setup-nonlinearity-source')).toHaveValue('Laboratory quality goal for glucose linearity, set by the director (invented)');
   await page.getByTestId('setup-save').click();
   await expect(page).toHaveURL(/\/studies\/\d+\/specimens$/);
   await expect(page.getByTestId('study-title')).toHaveText(title);
@@ -70,6 +73,9 @@ test('a technologist verifies the reportable range on nine mixtures and the dire
   await expect(cell(page, 17, 'replicate')).toHaveText('2');
   await closeNotice(page);
   await page.screenshot({ path: path.join(SCREENSHOTS, 'range-specimens.png') });
+  await expect(page.getByTestId('row-count')).toHaveText('18 rows');
+  await expect(page.getByTestId('save-state')).toHaveText('Saved');
+  await expect(page.getByTestId('problems')).toHaveCount(0);
 
   await page.getByTestId('tab-findings').click();
   await page.getByTestId('run-analysis').click();
@@ -83,6 +89,9 @@ test('a technologist verifies the reportable range on nine mixtures and the dire
   await expect(page.getByTestId('track-levels.7').getByTestId('judgement')).toHaveText(/^Within/);
   await expect(page.getByTestId('fit-3')).toContainText('Best fit');
   await fullShot(page, 'range-findings.png');
+  await expect(page.getByTestId('range-verdict')).toHaveText(/Reportable range shortened$/);
+  await expect(page.getByTestId('range-sentence')).toContainText('the reportable range is verified only from 0.30 to 28.30 mmol/L');
+  await expect(page.getByTestId('caution')).toContainText('Decision support only');
 
   // Submit, then the director signs on the review page.
   await page.getByTestId('step-submit').click();
@@ -97,6 +106,9 @@ test('a technologist verifies the reportable range on nine mixtures and the dire
   await expect(director.getByTestId('range-sentence')).toContainText('verified only from 0.30 to 28.30 mmol/L', { timeout: 20_000 });
   await expect(director.getByTestId('review-caution')).toContainText('Decision support only');
   await fullShot(director, 'range-review.png');
+  await expect(director.getByTestId('review-state')).toContainText('Awaiting sign-off');
+  await expect(director.getByTestId('range-verdict')).toHaveText(/Reportable range shortened$/);
+  await expect(director.getByTestId('range-sentence')).toContainText('verified only from 0.30 to 28.30 mmol/L');
   await director.getByTestId('open-sign').click();
   const dialog = director.getByRole('dialog');
   await dialog.getByTestId('meaning-accepted').click();

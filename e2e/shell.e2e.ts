@@ -77,8 +77,12 @@ test('every request of every page goes to the app’s own address, and the pages
   await page.goto('/sign-in');
   await expect(page.getByTestId('sign-in-form')).toBeVisible();
   await shoot(page, 'sign-in');
+  await expect(page.getByRole('heading', { level: 1 })).toHaveText('Parallax');
+  await expect(page.getByTestId('sign-in')).toBeEnabled();
   await signIn(page, 'admin@valeharbor.example');
   await shoot(page, 'shell');
+  await expect(page.getByTestId('welcome')).toHaveText(/^Welcome, /);
+  await expect(page.getByTestId('nav-users')).toBeVisible();
   const pages = [
     { nav: 'nav-profile', heading: 'Profile', shot: 'profile' },
     { nav: 'nav-users', heading: 'Users', shot: 'users' },
@@ -91,11 +95,14 @@ test('every request of every page goes to the app’s own address, and the pages
     await expect(page.getByRole('heading', { level: 1, name: p.heading })).toBeVisible();
     await expect(page.locator('mat-progress-bar')).toHaveCount(0);
     await shoot(page, p.shot);
+    await expect(page.getByRole('heading', { level: 1 })).toHaveText(p.heading);
+    await expect(page.getByTestId('banner')).toHaveCount(0);
   }
   await page.getByTestId('nav-analytes').click();
   await page.getByTestId('edit').first().click();
   await expect(page.getByRole('dialog')).toBeVisible();
   await shoot(page, 'analyte-dialog');
+  await expect(page.getByRole('dialog').getByRole('heading', { level: 2 })).toHaveText(/^Edit /);
   await page.keyboard.press('Escape');
   await page.getByTestId('sign-out').click();
   await expect(page).toHaveURL(/\/sign-in/);
