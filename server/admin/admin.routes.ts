@@ -7,6 +7,7 @@ import { analyteCatalog, instrumentCatalog } from './catalog.service';
 import { getLaboratory, updateLaboratory } from './laboratory.service';
 import { inviteUser, listLabUsers, resendInvitation, sendPasswordReset, unlockLabUser, updateLabUser } from './users.service';
 import { mailView } from './views';
+import { scopeOf } from '../db/lab-scope';
 
 const ADMIN = ['admin'] as const;
 const EVERY_ROLE = ['technologist', 'director', 'quality', 'admin'] as const;
@@ -56,6 +57,6 @@ export function adminRoutes(ctx: AppContext): RouteSpec[] {
     },
     ...catalogRoutes('/analytes', analyteCatalog, AnalyteBody),
     ...catalogRoutes('/instruments', instrumentCatalog, InstrumentBody),
-    { method: 'get', path: '/mailbox', access: ADMIN, handler: async (req, res) => res.json((await listMail(ctx.db, req.user!.laboratoryId)).map(mailView)) },
+    { method: 'get', path: '/mailbox', access: ADMIN, handler: async (req, res) => res.json((await listMail(ctx.db, scopeOf(req.user!))).map(mailView)) },
   ];
 }

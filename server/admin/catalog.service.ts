@@ -1,35 +1,33 @@
-import { and, eq } from 'drizzle-orm';
+import { eq } from 'drizzle-orm';
 import type { AnalyteBody, InstrumentBody } from '@shared/schemas';
 import { recordAudit } from '../audit/audit';
 import { actorOf, SignedInUser } from '../auth/session-user';
 import type { Database } from '../db/client';
+import { scopeOf, type LabScope } from '../db/lab-scope';
 import { analytes, instruments } from '../db/schema';
 import { invalid, notFound } from '../http/app-error';
+import { catalogRows, findCatalogRow, type CatalogTable } from './admin.repository';
 import { analyteView, instrumentView } from './views';
-
-type CatalogTable = typeof analytes | typeof instruments;
 
 /** Create, update and list for one catalog table (analytes, instruments), each change audited. */
 function catalog<T extends CatalogTable, Body extends object, View>(table: T, entity: string, label: string, view: (row: T['$inferSelect']) => View) {
-  const find = async (db: Database, lab: number, id: number) =>
-    (await db.select().from(table as CatalogTable).where(and(eq(table.laboratoryId, lab), eq(table.id, id))))[0] as T['$inferSelect'] | undefined;
+  const find = (db: Database, scope: LabScope, id: number) => findCatalogRow(db, scope, table, id);
   const duplicate = (err: unknown) => (err as { code?: string; cause?: { code?: string } }).code === '23505' || (err as { cause?: { code?: string } }).cause?.code === '23505';
   const nameTaken = () => invalid('name', `${label} with this name already exists`);
   return {
     async list(db: Database, me: SignedInUser): Promise<View[]> {
-      const rows = await db.select().from(table as CatalogTable).where(eq(table.laboratoryId, me.laboratoryId)).orderBy(table.name);
-      return rows.map((r) => view(r as T['$inferSelect']));
+      return (await catalogRows(db, scopeOf(me), table)).map(view);
     },
     async create(db: Database, me: SignedInUser, body: Body): Promise<View> {
       return db.transaction(async (tx) => {
-        const [row] = await tx.insert(table as CatalogTable).values({ ...body, laboratoryId: me.laboratoryId } as never).returning();
+        const [row] = await tx.insert(table as CatalogTable).values(scopeOf(me).values(body) as never).returning();
         await recordAudit(tx, actorOf(me), { action: `${entity}.created`, entity, entityId: row.id, after: view(row as T['$inferSelect']) });
         return view(row as T['$inferSelect']);
       }).catch((err) => { throw duplicate(err) ? nameTaken() : err; });
     },
     async update(db: Database, me: SignedInUser, id: number, body: Body): Promise<View> {
       return db.transaction(async (tx) => {
-        const before = await find(tx as unknown as Database, me.laboratoryId, id);
+        const before = await find(tx as unknown as Database, scopeOf(me), id);
         if (!before) throw notFound(label);
         const [row] = await tx.update(table as CatalogTable).set(body as never).where(eq(table.id, id)).returning();
         await recordAudit(tx, actorOf(me), { action: `${entity}.updated`, entity, entityId: id, before: view(before), after: view(row as T['$inferSelect']) });

@@ -8,18 +8,19 @@ import { users } from '../db/schema';
 import { AppError, invalid, notFound } from '../http/app-error';
 import { listUsers } from './admin.repository';
 import { userView } from './views';
+import { scopeOf } from '../db/lab-scope';
 
 export async function listLabUsers(ctx: AppContext, me: SignedInUser): Promise<User[]> {
-  return (await listUsers(ctx.db, me.laboratoryId)).map(userView);
+  return (await listUsers(ctx.db, scopeOf(me))).map(userView);
 }
 
 export async function inviteUser(ctx: AppContext, me: SignedInUser, body: InviteUserBody): Promise<User> {
   const user = await ctx.db.transaction(async (tx) => {
     // Only this laboratory's own users are looked at: whether the e-mail has an account elsewhere is not
     // revealed (the invitation is sent the same way; only the link's holder learns it, when using it).
-    if (await findUserInLabByEmail(tx, me.laboratoryId, body.email)) throw invalid('email', 'A user with this e-mail already exists in this laboratory');
-    const [row] = await tx.insert(users).values({ laboratoryId: me.laboratoryId, name: body.name, email: body.email, roles: body.roles }).returning();
-    const lab = await findLaboratory(tx, me.laboratoryId);
+    if (await findUserInLabByEmail(tx, scopeOf(me), body.email)) throw invalid('email', 'A user with this e-mail already exists in this laboratory');
+    const [row] = await tx.insert(users).values(scopeOf(me).values({ name: body.name, email: body.email, roles: body.roles })).returning();
+    const lab = await findLaboratory(tx, scopeOf(me));
     await sendPasswordLink(tx, row, lab.name, ctx.config.publicUrl);
     await recordAudit(tx, actorOf(me), { action: 'user.invited', entity: 'user', entityId: row.id, after: userView(row) });
     return row;
@@ -30,7 +31,7 @@ export async function inviteUser(ctx: AppContext, me: SignedInUser, body: Invite
 
 async function changeUser(ctx: AppContext, me: SignedInUser, id: number, action: string, patch: (u: typeof users.$inferSelect) => Partial<typeof users.$inferInsert>) {
   return ctx.db.transaction(async (tx) => {
-    const before = await findUserInLab(tx, me.laboratoryId, id);
+    const before = await findUserInLab(tx, scopeOf(me), id);
     if (!before) throw notFound('User');
     const after = await updateUser(tx, id, patch(before));
     await recordAudit(tx, actorOf(me), { action, entity: 'user', entityId: id, before: userView(before), after: userView(after) });
@@ -52,10 +53,10 @@ export const unlockLabUser = (ctx: AppContext, me: SignedInUser, id: number): Pr
 
 export async function resendInvitation(ctx: AppContext, me: SignedInUser, id: number): Promise<void> {
   await ctx.db.transaction(async (tx) => {
-    const user = await findUserInLab(tx, me.laboratoryId, id);
+    const user = await findUserInLab(tx, scopeOf(me), id);
     if (!user) throw notFound('User');
     if (!user.active) throw new AppError('conflict', 'This user is deactivated; reactivate them first');
-    const lab = await findLaboratory(tx, me.laboratoryId);
+    const lab = await findLaboratory(tx, scopeOf(me));
     await sendPasswordLink(tx, user, lab.name, ctx.config.publicUrl);
     await recordAudit(tx, actorOf(me), { action: 'user.link-sent', entity: 'user', entityId: id });
   });
@@ -65,11 +66,11 @@ export async function resendInvitation(ctx: AppContext, me: SignedInUser, id: nu
 /** An administrator sends a user a one-time link (1 hour) to choose a new password; older unused links stop working. */
 export async function sendPasswordReset(ctx: AppContext, me: SignedInUser, id: number): Promise<void> {
   await ctx.db.transaction(async (tx) => {
-    const user = await findUserInLab(tx, me.laboratoryId, id);
+    const user = await findUserInLab(tx, scopeOf(me), id);
     if (!user) throw notFound('User');
     if (!user.active) throw new AppError('invalid_request', `${user.name} is deactivated; reactivate the account before sending a password link`);
     if (!user.passwordHash) throw new AppError('invalid_request', `${user.name} has not chosen a password yet; send the invitation again instead`);
-    const lab = await findLaboratory(tx, me.laboratoryId);
+    const lab = await findLaboratory(tx, scopeOf(me));
     await sendPasswordLink(tx, user, lab.name, ctx.config.publicUrl, { purpose: 'reset', sender: me.name });
     await recordAudit(tx, actorOf(me), { action: 'password-reset.sent', entity: 'user', entityId: id, after: { email: user.email } });
   });

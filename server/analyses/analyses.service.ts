@@ -1,4 +1,4 @@
-import { and, eq, getTableColumns } from 'drizzle-orm';
+import { eq } from 'drizzle-orm';
 import { ENGINE_VERSION } from '@shared/stats/engine';
 import { recordAudit } from '../audit/audit';
 import { actorOf, SignedInUser } from '../auth/session-user';
@@ -12,11 +12,10 @@ import { StudySettings, type Analysis } from '@shared/schemas';
 import { missingResults } from './run-analysis';
 import { withRecordedWords } from './recorded-words';
 import type { AnalysisJobs } from './analysis-jobs';
+import { scopeOf } from '../db/lab-scope';
+import { findLabAnalysis } from './analyses.repository';
 
 type AnalysisRow = Omit<typeof analyses.$inferSelect, 'input'>;
-
-/** Every column of an analysis but its input (a copy of all rows, which no reader of an analysis shows). */
-const { input: _input, ...withoutInput } = getTableColumns(analyses);
 
 export async function analysisView(db: Executor, a: AnalysisRow, hash?: string): Promise<Analysis> {
   const current = a.inputHash === (hash ?? (await knownInputHash(db, (await db.select().from(studies).where(eq(studies.id, a.studyId)))[0])));
@@ -29,7 +28,7 @@ export async function analysisView(db: Executor, a: AnalysisRow, hash?: string):
 
 /** Inserts a queued analysis of the study's current rows and settings (in the caller's transaction). */
 async function insertQueued(tx: Tx, me: SignedInUser, studyId: number) {
-  const study = await findStudy(tx, me.laboratoryId, studyId, true);
+  const study = await findStudy(tx, scopeOf(me), studyId, true);
   assertEditable(study);
   const input = await analysisInput(tx, study);
   const included = input.rows.filter((r) => !r.excluded).length;
@@ -62,8 +61,7 @@ export async function analyseNow(db: Database, jobs: AnalysisJobs, me: SignedInU
 }
 
 export async function getAnalysis(db: Database, me: SignedInUser, id: number): Promise<Analysis> {
-  const [row] = await db.select({ a: withoutInput, studyHash: studies.inputHash, settings: studies.settings }).from(analyses).innerJoin(studies, eq(studies.id, analyses.studyId))
-    .where(and(eq(analyses.id, id), eq(studies.laboratoryId, me.laboratoryId)));
+  const row = await findLabAnalysis(db, scopeOf(me), id);
   if (!row) throw notFound('Analysis');
   const view = await analysisView(db, row.a, row.studyHash ?? undefined);
   return { ...view, results: withRecordedWords(view.results, row.settings) };

@@ -61,7 +61,8 @@ export class AnalysisJobs {
     this.events = new AnalysisEvents(url);
   }
 
-  async start(options: { work: boolean } = { work: true }): Promise<void> {
+  /** `taskFile`: for tests only, a task in place of the engine's (AnalysisPool); nothing in the app or the API sets it. */
+  async start(options: { work: boolean; taskFile?: string } = { work: true }): Promise<void> {
     if (this.boss) return;
     const boss = new PgBoss({ connectionString: this.url, max: 4, schema: 'pgboss', application_name: 'parallax-queue', connectionTimeoutMillis: 2000 } as never);
     boss.on('error', (err) => logFailure('the job queue', err));
@@ -70,7 +71,7 @@ export class AnalysisJobs {
     this.boss = boss;
     await this.events.start();
     if (options.work) {
-      this.pool = new AnalysisPool(this.timing.threads);
+      this.pool = new AnalysisPool(this.timing.threads, options.taskFile);
       void this.pool.warmUp().catch((err) => logFailure('warming up the analysis threads', err));
       this.workerIds = [];
       for (let i = 0; i < this.pool.threads; i++) {

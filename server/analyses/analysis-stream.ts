@@ -1,11 +1,11 @@
-import { and, eq } from 'drizzle-orm';
 import type { Request, Response } from 'express';
 import type { AnalysisChange } from './analysis-events';
 import type { SignedInUser } from '../auth/session-user';
 import type { AppContext } from '../context';
-import { analyses, studies } from '../db/schema';
 import { AppError, notFound } from '../http/app-error';
 import { logFailure } from '../log';
+import { scopeOf } from '../db/lab-scope';
+import { labAnalysisState } from './analyses.repository';
 
 const ENDED = new Set(['done', 'failed']);
 /** A comment line now and then keeps proxies from closing a quiet stream. */
@@ -42,10 +42,7 @@ export async function streamAnalysis(ctx: AppContext, me: SignedInUser, id: numb
     current().then((c) => c && send(c)).catch((err) => logFailure('re-reading an analysis for its stream', err));
   };
   const current = async (): Promise<AnalysisChange | null> => {
-    const [row] = await ctx.db.select({ id: analyses.id, studyId: analyses.studyId, state: analyses.state, progress: analyses.progress })
-      .from(analyses).innerJoin(studies, eq(studies.id, analyses.studyId))
-      .where(and(eq(analyses.id, id), eq(studies.laboratoryId, me.laboratoryId)));
-    return row ?? null;
+    return (await labAnalysisState(ctx.db, scopeOf(me), id)) ?? null;
   };
   let keepAlive: NodeJS.Timeout | undefined;
   let longest: NodeJS.Timeout | undefined;

@@ -2,12 +2,13 @@ import os from 'node:os';
 import path from 'node:path';
 import { MessageChannel } from 'node:worker_threads';
 import { Piscina } from 'piscina';
+import { methodComparisonMeta } from '@shared/kinds/method-comparison/meta';
 import type { AnalysisInput } from '../specimens/input-hash';
 import type { PlanInput } from '../plans/plan-input';
 
 /** A small invented comparison (30 pairs, few resamples) that exercises the engine's code paths. */
 const WARM_UP_INPUT: AnalysisInput = {
-  kind: 'method-comparison',
+  kind: methodComparisonMeta.kind,
   settings: { resamples: 1000, regressionResamples: 1000, seed: 'warm-up', decisionLevels: [5] },
   rows: Array.from({ length: 30 }, (_, i) => {
     const x = 1 + i * 0.3;
@@ -19,12 +20,19 @@ const WARM_UP_INPUT: AnalysisInput = {
   }),
 };
 
+/** The file each thread loads: the engine's task. */
+export const ANALYSIS_TASK = path.join(__dirname, 'analysis-task.js');
+
 /** A pool of worker threads that run shared/stats, so the API thread stays responsive. */
 export class AnalysisPool {
   private readonly pool: Piscina;
-  /** By default one thread per core but one, at least one and at most four: the API thread keeps a core. */
-  constructor(readonly threads = Math.max(1, Math.min(4, os.availableParallelism() - 1))) {
-    this.pool = new Piscina({ filename: path.join(__dirname, 'analysis-task.js'), minThreads: threads, maxThreads: threads, idleTimeout: 30_000 });
+  /**
+   * By default one thread per core but one, at least one and at most four: the API thread keeps a core.
+   * `taskFile` is for tests only (a task that throws or whose thread dies, server/analyses/testing/); the app
+   * and the worker process always use the engine's task.
+   */
+  constructor(readonly threads = Math.max(1, Math.min(4, os.availableParallelism() - 1)), taskFile = ANALYSIS_TASK) {
+    this.pool = new Piscina({ filename: taskFile, minThreads: threads, maxThreads: threads, idleTimeout: 30_000 });
   }
 
   async run(input: AnalysisInput | PlanInput, onProgress: (f: number) => void): Promise<unknown> {

@@ -5,6 +5,7 @@ import type { SignedInUser } from '../auth/session-user';
 import type { Database, Executor } from '../db/client';
 import { signedAndCreatedDays } from '../db/lab-zone';
 import { typedVerificationCode } from '../signoff/content-hash';
+import { scopeOf } from '../db/lab-scope';
 
 /**
  * The quality officer's search over every study of the laboratory. The verdict is read from the
@@ -38,7 +39,7 @@ const SORTS: Record<ArchiveQuery['sort'], SQL> = {
 };
 
 async function filters(db: Database, me: SignedInUser, q: ArchiveQuery): Promise<SQL> {
-  const parts: SQL[] = [sql`laboratory_id = ${me.laboratoryId}`];
+  const parts: SQL[] = [scopeOf(me).owns(sql`laboratory_id`)];
   if (q.kind) parts.push(sql`kind = ${q.kind}`);
   if (q.state) parts.push(sql`state = ${q.state}`);
   if (q.analyteId) parts.push(sql`analyte_id = ${q.analyteId}`);
@@ -46,7 +47,7 @@ async function filters(db: Database, me: SignedInUser, q: ArchiveQuery): Promise
   if (q.verdict) parts.push(sql`verdict = ${q.verdict}`);
   if (q.signerId) parts.push(sql`signer_id = ${q.signerId}`);
   // Dates mean the laboratory's days.
-  parts.push(...await signedAndCreatedDays(db, me.laboratoryId, q, sql`sig_at`, sql`created_at`));
+  parts.push(...await signedAndCreatedDays(db, scopeOf(me), q, sql`sig_at`, sql`created_at`));
   if (q.q) {
     // The verification code printed on any of the study's signed PDFs finds it, typed as printed or not.
     const code = typedVerificationCode(q.q);

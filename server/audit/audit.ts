@@ -3,6 +3,7 @@ import type { Executor } from '../db/client';
 import { auditChainHeads, auditEvents } from '../db/schema';
 import { auditKey, keyedHash } from './audit-key';
 import { canonicalJson, sha256Hex } from './canonical-json';
+import { labIdOf, type LabScope } from '../db/lab-scope';
 
 export const GENESIS_HASH = '0'.repeat(64);
 
@@ -38,6 +39,9 @@ export function eventHash(e: EventContent): string {
 
 /** The name of an event's chain: each laboratory's, and one for events with no laboratory (failed sign-ins of unknown e-mails). */
 export const chainOf = (laboratoryId: number | null): string => (laboratoryId === null ? 'system' : `lab:${laboratoryId}`);
+
+/** The chain of a scope's laboratory; null: the chain of events that belong to no laboratory. */
+export const chainOfScope = (scope: LabScope | null): string => chainOf(scope === null ? null : labIdOf(scope));
 
 /** The signed text of a chain head or checkpoint. */
 export const headMac = (h: { chain: string; length: number; headId: number; headHash: string }): string =>

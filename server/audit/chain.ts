@@ -2,7 +2,8 @@ import { asc, eq, isNull } from 'drizzle-orm';
 import type { Executor } from '../db/client';
 import { auditChainHeads, auditCheckpoints, auditEvents } from '../db/schema';
 import { auditKey } from './audit-key';
-import { chainOf, eventHash, GENESIS_HASH, headMac } from './audit';
+import { chainOfScope, eventHash, GENESIS_HASH, headMac } from './audit';
+import type { LabScope } from '../db/lab-scope';
 import { labTimeZone } from '../db/lab-zone';
 import { laboratoryTime } from '@shared/types/lab-time';
 import { plural } from '@shared/types/plural';
@@ -27,14 +28,14 @@ export interface ChainReport {
  *   which leaves the rest of the chain intact, breaks this);
  * - every signed checkpoint must still find its event, with its hash, at its position.
  */
-export async function verifyChain(db: Executor, laboratoryId: number | null): Promise<ChainReport> {
-  const chain = chainOf(laboratoryId);
+export async function verifyChain(db: Executor, scope: LabScope | null): Promise<ChainReport> {
+  const chain = chainOfScope(scope);
   const key = auditKey();
   const events = await db.select().from(auditEvents)
-    .where(laboratoryId === null ? isNull(auditEvents.laboratoryId) : eq(auditEvents.laboratoryId, laboratoryId))
+    .where(scope === null ? isNull(auditEvents.laboratoryId) : scope.where(auditEvents))
     .orderBy(asc(auditEvents.id));
   // Times in the problems are the laboratory's (the chain of events outside any laboratory reads UTC).
-  const zone = laboratoryId === null ? 'UTC' : await labTimeZone(db, laboratoryId);
+  const zone = scope === null ? 'UTC' : await labTimeZone(db, scope);
   const when = (d: Date) => laboratoryTime(d, zone);
   const problems: string[] = [];
   let previous = GENESIS_HASH;

@@ -16,6 +16,7 @@ import { searchArchive } from './archive.service';
 import { studyHistory } from './history.service';
 import { resultsSheet } from './results-sheet';
 import type { FindingsStatus } from '@shared/schemas';
+import { scopeOf } from '../db/lab-scope';
 
 /** Whether the exported findings still match the study's rows and settings, in words. */
 const FINDINGS_WORDS: Record<FindingsStatus, string> = {
@@ -66,7 +67,7 @@ function newBook(): ExcelJS.Workbook {
 /** The archive result list (same filters as the page, every match, not one page). */
 export async function exportArchive(db: Database, me: SignedInUser, q: ArchiveQuery): Promise<Buffer> {
   const all = await searchArchive(db, me, { ...q, page: 1, pageSize: 100_000 });
-  const zone = await labTimeZone(db, me.laboratoryId);
+  const zone = await labTimeZone(db, scopeOf(me));
   const wb = newBook();
   sheet(wb, 'Studies', [
     ['Study', 'id', 8], ['Kind', 'kind', 20], ['Title', 'title', 44], ['Analyte', 'analyte', 16], ['Instruments', 'instruments', 32], ['n', 'n', 6],
@@ -90,7 +91,7 @@ function flatten(v: unknown, path = '', out: { field: string; value: unknown }[]
  * (results-sheet.ts) and every stored result field, signatures, history.
  */
 export async function exportStudy(db: Database, me: SignedInUser, studyId: number): Promise<Buffer> {
-  const row = await findStudy(db, me.laboratoryId, studyId);
+  const row = await findStudy(db, scopeOf(me), studyId);
   const study = await studyView(db, row, me);
   const wb = newBook();
   const about = [
@@ -122,7 +123,7 @@ export async function exportStudy(db: Database, me: SignedInUser, studyId: numbe
     { field: 'seed', value: analysis?.seed ?? '' }, { field: 'resamples', value: analysis?.resamples ?? '' }, { field: 'input hash', value: analysis?.inputHash ?? '' },
     ...flatten(results ?? {}),
   ]);
-  const zone = await labTimeZone(db, me.laboratoryId);
+  const zone = await labTimeZone(db, scopeOf(me));
   sheet(wb, 'Signatures', [['Meaning', 'meaningWords', 30], ['Signed by', 'signerName', 24], ...timeColumns('Signed at', 'signedAt'), ['Comment', 'comment', 40], ['Content hash', 'contentHash', 70], ['Verification code', 'verificationCode', 16], ['PDF SHA-256', 'pdfSha256', 70]], signatureRows.map((s) => ({ ...s, ...localTimes(s, ['signedAt'], zone) })));
   const history = await studyHistory(db, me, studyId);
   sheet(wb, 'Audit history', [...timeColumns('Time', 'at'), ['Who', 'userName', 22], ['What', 'headline', 50], ['Details', 'details', 90]], history.map((h) => ({ ...h, ...localTimes(h, ['at'], zone), details: h.details.join('\n') })));

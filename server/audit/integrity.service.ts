@@ -4,13 +4,14 @@ import { actorOf, SignedInUser } from '../auth/session-user';
 import type { Database, Executor } from '../db/client';
 import { analyses, auditEvents, signatures } from '../db/schema';
 import { AppError } from '../http/app-error';
-import { analysedFields, analysedSettings, inputHash, loadRows } from '../specimens/input-hash';
+import { analysedFields, analysedSettings, inputHash, loadRows, type AnalysisInput } from '../specimens/input-hash';
 import { findStudy } from '../studies/studies.repository';
 import { contentHashOf, signedContent } from '../signoff/content-hash';
 import { recordAudit } from './audit';
 import { sha256Hex } from './canonical-json';
 import { verifyChain, type ChainReport } from './chain';
 import { plural } from '@shared/types/plural';
+import { scopeOf, type LabScope } from '../db/lab-scope';
 
 /**
  * Re-checks a signed study from what is stored: the content hash over rows, settings and results
@@ -18,7 +19,7 @@ import { plural } from '@shared/types/plural';
  * and the laboratory's audit chain. Each check is reported in words.
  */
 export async function checkIntegrity(db: Database, me: SignedInUser, studyId: number): Promise<IntegrityReport> {
-  const checks = await studyChecks(db, me.laboratoryId, studyId);
+  const checks = await studyChecks(db, scopeOf(me), studyId);
   const passed = checks.every((c) => c.passed);
   await db.transaction((tx) => recordAudit(tx, actorOf(me), {
     action: 'integrity.checked', entity: 'study', entityId: studyId, studyId, after: { passed, failed: checks.filter((c) => !c.passed).map((c) => c.name) },
@@ -27,8 +28,8 @@ export async function checkIntegrity(db: Database, me: SignedInUser, studyId: nu
 }
 
 /** The re-checks of one signed study, in words (a release's re-check runs them for each component). */
-export async function studyChecks(db: Executor, laboratoryId: number, studyId: number): Promise<CheckResult[]> {
-  const study = await findStudy(db, laboratoryId, studyId);
+export async function studyChecks(db: Executor, scope: LabScope, studyId: number): Promise<CheckResult[]> {
+  const study = await findStudy(db, scope, studyId);
   const [sig] = await db.select().from(signatures).where(and(eq(signatures.studyId, studyId), ne(signatures.meaning, 'plan-approved'))).orderBy(desc(signatures.id)).limit(1);
   if (!sig || study.state !== 'signed') throw new AppError('conflict', 'Only a signed study can be re-checked; this one has no signature yet');
   const checks: CheckResult[] = [];
@@ -45,11 +46,15 @@ export async function studyChecks(db: Executor, laboratoryId: number, studyId: n
   });
   const [analysis] = await db.select().from(analyses).where(eq(analyses.id, sig.analysisId!));
   const now = inputHash({ kind: study.kind, settings: analysedSettings(study.settings, study.kind), rows: (await loadRows(db, studyId)).map(analysedFields) });
+  // The input kept with the analysis is what the reproducibility re-check re-runs: it must still hash to the recorded hash too.
+  const kept = inputHash(analysis.input as AnalysisInput) === analysis.inputHash;
   checks.push({
-    name: 'Analysis input', passed: now === analysis.inputHash,
-    detail: now === analysis.inputHash ? 'The signed analysis was made from exactly the rows and settings stored now.' : 'The stored rows or settings differ from those the signed analysis used.',
+    name: 'Analysis input', passed: now === analysis.inputHash && kept,
+    detail: now !== analysis.inputHash ? 'The stored rows or settings differ from those the signed analysis used.'
+      : !kept ? 'The input stored with the signed analysis no longer hashes to its recorded input hash: it was changed after the analysis ran.'
+        : 'The signed analysis was made from exactly the rows and settings stored now.',
   });
-  checks.push(await historyCheck(db, laboratoryId, studyId, sig));
+  checks.push(await historyCheck(db, scope, studyId, sig));
   return checks;
 }
 
@@ -65,8 +70,8 @@ export function problemWords(report: ChainReport): string {
  * at the position the signature recorded, the event it was made after, and its signing event carries
  * the signature's content hash.
  */
-async function historyCheck(db: Executor, laboratoryId: number, studyId: number, sig: typeof signatures.$inferSelect): Promise<CheckResult> {
-  const chain = await verifyChain(db, laboratoryId);
+async function historyCheck(db: Executor, scope: LabScope, studyId: number, sig: typeof signatures.$inferSelect): Promise<CheckResult> {
+  const chain = await verifyChain(db, scope);
   const signedEvent = (await db.select().from(auditEvents).where(and(eq(auditEvents.studyId, studyId), eq(auditEvents.action, 'study.signed'))))[0];
   const eventMatches = (signedEvent?.after as { contentHash?: string } | null)?.contentHash === sig.contentHash;
   const anchored = sig.chainLength === null || chain.hashAt(sig.chainLength) === sig.chainHeadHash;
@@ -87,7 +92,7 @@ async function historyCheck(db: Executor, laboratoryId: number, studyId: number,
  */
 export async function checkChains(db: Database, me: SignedInUser): Promise<ChainCheckReport> {
   const checks: CheckResult[] = [];
-  for (const [name, lab, whose] of [['Laboratory history', me.laboratoryId, 'the laboratory\'s history'], ['History without a laboratory', null, 'the history of events that belong to no laboratory (sign-ins of unknown e-mails, rate limits)']] as const) {
+  for (const [name, lab, whose] of [['Laboratory history', scopeOf(me), 'the laboratory\'s history'], ['History without a laboratory', null, 'the history of events that belong to no laboratory (sign-ins of unknown e-mails, rate limits)']] as const) {
     const chain = await verifyChain(db, lab);
     checks.push(chain.problems.length
       ? { name, passed: false, detail: `${chain.problems.length === 1 ? 'One problem' : `${chain.problems.length} problems`} in ${whose}: ${problemWords(chain)}.` }

@@ -10,10 +10,11 @@ import type { AnalysisInput } from '../specimens/input-hash';
 import { findStudy } from '../studies/studies.repository';
 import { recordAudit } from './audit';
 import { diffJson } from './json-diff';
+import { scopeOf } from '../db/lab-scope';
 
 /** Re-runs the signed analysis (before signing: the latest finished one) from its stored input, seed and resamples and compares every field. */
 export async function reproduceStudy(db: Database, me: SignedInUser, studyId: number): Promise<ReproduceReport> {
-  const study = await findStudy(db, me.laboratoryId, studyId);
+  const study = await findStudy(db, scopeOf(me), studyId);
   const [sig] = await db.select().from(signatures).where(and(eq(signatures.studyId, studyId), ne(signatures.meaning, 'plan-approved'))).orderBy(desc(signatures.id)).limit(1);
   const latest = sig ? null : (await db.select({ id: analyses.id }).from(analyses).where(and(eq(analyses.studyId, studyId), eq(analyses.purpose, 'findings'), eq(analyses.state, 'done'))).orderBy(desc(analyses.id)).limit(1))[0];
   const analysisId = sig?.analysisId ?? latest?.id ?? null;

@@ -1,5 +1,6 @@
-import { and, asc, eq, sql } from 'drizzle-orm';
+import { asc, eq, sql } from 'drizzle-orm';
 import type { Executor } from '../db/client';
+import type { LabScope } from '../db/lab-scope';
 import { laboratories, users } from '../db/schema';
 
 /**
@@ -9,8 +10,8 @@ import { laboratories, users } from '../db/schema';
 export const findUserByEmail = async (db: Executor, email: string) =>
   (await db.select().from(users).where(eq(users.email, email)).orderBy(sql`${users.passwordHash} IS NULL`, asc(users.id)).limit(1))[0];
 
-export const findUserInLabByEmail = async (db: Executor, laboratoryId: number, email: string) =>
-  (await db.select().from(users).where(and(eq(users.email, email), eq(users.laboratoryId, laboratoryId))).limit(1))[0];
+export const findUserInLabByEmail = async (db: Executor, scope: LabScope, email: string) =>
+  (await db.select().from(users).where(scope.where(users, eq(users.email, email))).limit(1))[0];
 
 /** Ends a user's sessions in the session store, all but `keepSid` if given; answers how many ended. */
 export async function endSessions(db: Executor, userId: number, keepSid?: string): Promise<number> {
@@ -21,11 +22,12 @@ export async function endSessions(db: Executor, userId: number, keepSid?: string
 export const findUserById = async (db: Executor, id: number) =>
   (await db.select().from(users).where(eq(users.id, id)).limit(1))[0];
 
-export const findUserInLab = async (db: Executor, laboratoryId: number, id: number) =>
-  (await db.select().from(users).where(and(eq(users.id, id), eq(users.laboratoryId, laboratoryId))).limit(1))[0];
+export const findUserInLab = async (db: Executor, scope: LabScope, id: number) =>
+  (await db.select().from(users).where(scope.where(users, eq(users.id, id))).limit(1))[0];
 
-export const findLaboratory = async (db: Executor, id: number) =>
-  (await db.select().from(laboratories).where(eq(laboratories.id, id)).limit(1))[0];
+/** The scope's own laboratory row. */
+export const findLaboratory = async (db: Executor, scope: LabScope) =>
+  (await db.select().from(laboratories).where(scope.owns(laboratories.id)).limit(1))[0];
 
 export async function updateUser(db: Executor, id: number, values: Partial<typeof users.$inferInsert>) {
   const [row] = await db.update(users).set(values).where(eq(users.id, id)).returning();

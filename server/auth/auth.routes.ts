@@ -2,6 +2,7 @@ import type { Request, Response } from 'express';
 import type { PassportStatic } from 'passport';
 import { ChangePasswordBody, PASSWORD_RESET_ANSWER, PasswordResetBody, SetPasswordBody, SignInBody, TokenParams, type PasswordResetAnswer } from '@shared/schemas';
 import { recordAudit } from '../audit/audit';
+import { actorOf } from './session-user';
 import { SignInLimits } from './sign-in-limits';
 import type { AppContext } from '../context';
 import { AppError } from '../http/app-error';
@@ -56,7 +57,7 @@ export function authRoutes(ctx: AppContext, passport: PassportStatic): RouteSpec
       method: 'delete', path: '/session', access: 'signed-in',
       handler: async (req, res) => {
         const user = req.user!;
-        await ctx.db.transaction((tx) => recordAudit(tx, { id: user.id, name: user.name, laboratoryId: user.laboratoryId }, { action: 'sign-out', entity: 'session', entityId: user.id }));
+        await ctx.db.transaction((tx) => recordAudit(tx, actorOf(user), { action: 'sign-out', entity: 'session', entityId: user.id }));
         await logOut(req);
         req.session.destroy(() => res.status(204).end());
       },

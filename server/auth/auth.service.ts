@@ -6,6 +6,7 @@ import { endSessions, findLaboratory, findUserByEmail, findUserById, updateUser 
 import { afterFailure, isLocked } from './lockout';
 import { checkPassword, hashPassword } from './passwords';
 import { actorOf, SignedInUser } from './session-user';
+import { scopeOf } from '../db/lab-scope';
 
 export const WRONG_SIGN_IN = 'E-mail or password is wrong, or the account is locked or inactive';
 
@@ -67,7 +68,7 @@ export async function loadSessionUser(db: Database, id: number): Promise<SignedI
 }
 
 export async function describeSession(db: Database, user: SignedInUser): Promise<SessionUser> {
-  const lab = await findLaboratory(db, user.laboratoryId);
+  const lab = await findLaboratory(db, scopeOf(user));
   return { id: user.id, name: user.name, email: user.email, roles: user.roles, laboratory: { id: lab.id, name: lab.name, timeZone: lab.timeZone } };
 }
 

@@ -12,6 +12,7 @@ import { AppError } from '../http/app-error';
 import { queueMail } from '../mail/outbox';
 import { endSessions, updateUser } from './auth.repository';
 import { hashPassword } from './passwords';
+import { ownerScope } from '../db/lab-scope';
 
 /** How long a link works: an invitation gives a new user time; a reset link is taken up at once or asked for again. */
 export const LINK_HOURS: Record<PasswordLinkPurpose, number> = { invitation: 72, reset: RESET_LINK_HOURS };
@@ -69,7 +70,7 @@ export async function sendPasswordLink(
   const expiresAt = new Date(Date.now() + LINK_HOURS[purpose] * 3600_000);
   await tx.update(passwordLinks).set({ usedAt: new Date() }).where(and(eq(passwordLinks.userId, user.id), isNull(passwordLinks.usedAt)));
   await tx.insert(passwordLinks).values({ userId: user.id, tokenHash: made.tokenHash, purpose, expiresAt });
-  const until = laboratoryTime(expiresAt, await labTimeZone(tx, user.laboratoryId));
+  const until = laboratoryTime(expiresAt, await labTimeZone(tx, ownerScope(user)));
   const { subject, text } = mailText(user, labName, `${publicUrl}/set-password/${made.token}`, { ...options, purpose }, until);
   await queueMail(tx, { laboratoryId: user.laboratoryId, to: [user.email], subject, text });
 }
@@ -89,7 +90,7 @@ export async function describeLink(db: Database, token: string): Promise<Passwor
   const { link, user } = await findValidLink(db, token);
   return {
     email: user.email, name: user.name, expiresAt: link.expiresAt.toISOString(), purpose: link.purpose as PasswordLinkPurpose,
-    timeZone: await labTimeZone(db, user.laboratoryId),
+    timeZone: await labTimeZone(db, ownerScope(user)),
   };
 }
 

@@ -2,6 +2,7 @@ import { recordAudit } from '../audit/audit';
 import type { AppContext } from '../context';
 import { findLaboratory, findUserByEmail } from './auth.repository';
 import { newLinkToken, sendPasswordLink } from './password-links';
+import { ownerScope } from '../db/lab-scope';
 
 /**
  * "Forgot your password?": anyone may ask for a one-time link for an e-mail, and the answer never tells
@@ -16,7 +17,7 @@ export async function requestPasswordReset(ctx: AppContext, email: string, addre
     const user = await findUserByEmail(tx, email);
     const outcome = !user ? 'unknown e-mail' : !user.active ? 'inactive account' : 'link sent';
     if (user && user.active) {
-      const lab = await findLaboratory(tx, user.laboratoryId);
+      const lab = await findLaboratory(tx, ownerScope(user));
       await sendPasswordLink(tx, user, lab.name, ctx.config.publicUrl, { purpose: 'reset' }, made);
     }
     await recordAudit(tx, { id: null, name: null, laboratoryId: user?.laboratoryId ?? null }, {

@@ -1,5 +1,5 @@
 import seedrandom from 'seedrandom';
-import { and, eq } from 'drizzle-orm';
+import { eq } from 'drizzle-orm';
 import type { CreateStudyBody, StudySettingsPatch } from '@shared/schemas';
 import { analyseNow } from '../analyses/analyses.service';
 import { planNow } from '../plans/plans.service';
@@ -16,6 +16,7 @@ import type { Database } from './client';
 import { analytes, instruments, studies, users } from './schema';
 import { SERVER_KINDS } from '../kinds';
 import { seedDemoReleases } from '../releases/demo';
+import { systemScope } from './lab-scope';
 
 const gaussian = (rng: () => number) => Math.sqrt(-2 * Math.log(1 - rng())) * Math.cos(2 * Math.PI * rng());
 
@@ -116,9 +117,10 @@ const COMMENTS: Record<string, string> = {
 
 /** The demo laboratory's analysed studies (skipped when a study of that title exists). */
 export async function seedDemoStudies(db: Database, labId: number, publicUrl: string): Promise<void> {
+  const seed = systemScope(labId, 'the demo seed');
   const [tech] = await db.select().from(users).where(eq(users.email, 'tech@valeharbor.example'));
   const me = toSignedIn(tech);
-  const labInstruments = await db.select().from(instruments).where(eq(instruments.laboratoryId, labId));
+  const labInstruments = await db.select().from(instruments).where(seed.where(instruments));
   const byName = (n: string) => labInstruments.find((i) => i.name === n)!.id;
   const jobs = new AnalysisJobs(db, '');
   const [director] = await db.select().from(users).where(eq(users.email, 'director@valeharbor.example'));
@@ -133,9 +135,9 @@ export async function seedDemoStudies(db: Database, labId: number, publicUrl: st
     }
   };
   for (const demo of COMPARISONS) {
-    const exists = await db.select({ id: studies.id }).from(studies).where(and(eq(studies.laboratoryId, labId), eq(studies.title, demo.title)));
+    const exists = await db.select({ id: studies.id }).from(studies).where(seed.where(studies, eq(studies.title, demo.title)));
     if (exists.length) continue;
-    const [analyte] = await db.select().from(analytes).where(and(eq(analytes.laboratoryId, labId), eq(analytes.name, demo.analyte)));
+    const [analyte] = await db.select().from(analytes).where(seed.where(analytes, eq(analytes.name, demo.analyte)));
     const body: CreateStudyBody = {
       kind: 'method-comparison', title: demo.title, purpose: demo.purpose, analyteId: analyte.id,
       comparativeInstrumentId: byName('Chemistry line 1'), candidateInstrumentId: byName('Chemistry line 2'), settings: demo.settings,
@@ -146,9 +148,9 @@ export async function seedDemoStudies(db: Database, labId: number, publicUrl: st
     await finish(study.id, demo.finish);
   }
   for (const demo of INTERVALS) {
-    const exists = await db.select({ id: studies.id }).from(studies).where(and(eq(studies.laboratoryId, labId), eq(studies.title, demo.title)));
+    const exists = await db.select({ id: studies.id }).from(studies).where(seed.where(studies, eq(studies.title, demo.title)));
     if (exists.length) continue;
-    const [analyte] = await db.select().from(analytes).where(and(eq(analytes.laboratoryId, labId), eq(analytes.name, demo.analyte)));
+    const [analyte] = await db.select().from(analytes).where(seed.where(analytes, eq(analytes.name, demo.analyte)));
     const study = await createStudy(db, me, { kind: demo.kind, title: demo.title, purpose: demo.purpose, analyteId: analyte.id, instrumentId: byName(demo.instrument), settings: demo.settings });
     await putRows(db, me, study.id, study.version, demo.rows as Record<string, unknown>[]);
     await analyseNow(db, jobs, me, study.id);
@@ -157,9 +159,9 @@ export async function seedDemoStudies(db: Database, labId: number, publicUrl: st
   // The demos kinds bring themselves (server/kinds/<kind> demos); one instrument each.
   for (const kind of SERVER_KINDS) {
     for (const demo of kind.demos ?? []) {
-      const exists = await db.select({ id: studies.id }).from(studies).where(and(eq(studies.laboratoryId, labId), eq(studies.title, demo.title)));
+      const exists = await db.select({ id: studies.id }).from(studies).where(seed.where(studies, eq(studies.title, demo.title)));
       if (exists.length) continue;
-      const [analyte] = await db.select().from(analytes).where(and(eq(analytes.laboratoryId, labId), eq(analytes.name, demo.analyte)));
+      const [analyte] = await db.select().from(analytes).where(seed.where(analytes, eq(analytes.name, demo.analyte)));
       const study = await createStudy(db, me, {
         kind: kind.meta.kind as CreateStudyBody['kind'], title: demo.title, purpose: demo.purpose, analyteId: analyte.id, instrumentId: byName(demo.instrument), settings: demo.settings,
       });
@@ -175,9 +177,10 @@ export async function seedDemoStudies(db: Database, labId: number, publicUrl: st
 /** A draft comparison planned before any specimen is drawn: its plan by simulation set and run (invented figures). */
 export const DEMO_PLAN_TITLE = 'Potassium: Chemistry line 2 against line 1 (planned)';
 async function seedDemoPlan(db: Database, jobs: AnalysisJobs, me: ReturnType<typeof toSignedIn>, labId: number, byName: (n: string) => number): Promise<void> {
-  const exists = await db.select({ id: studies.id }).from(studies).where(and(eq(studies.laboratoryId, labId), eq(studies.title, DEMO_PLAN_TITLE)));
+  const seed = systemScope(labId, 'the demo seed');
+  const exists = await db.select({ id: studies.id }).from(studies).where(seed.where(studies, eq(studies.title, DEMO_PLAN_TITLE)));
   if (exists.length) return;
-  const [analyte] = await db.select().from(analytes).where(and(eq(analytes.laboratoryId, labId), eq(analytes.name, 'Potassium')));
+  const [analyte] = await db.select().from(analytes).where(seed.where(analytes, eq(analytes.name, 'Potassium')));
   const study = await createStudy(db, me, {
     kind: 'method-comparison', title: DEMO_PLAN_TITLE, analyteId: analyte.id,
     purpose: 'How many specimens does the potassium comparison need? Planned by simulation before any specimen is drawn (invented demo study).',

@@ -1,5 +1,6 @@
 import { Router, type Request, type RequestHandler, type Response } from 'express';
 import type { Role } from '@shared/schemas';
+import { scopeOf } from '../db/lab-scope';
 import { requireRole, requireSignedIn } from './require-role';
 
 export type Access = readonly Role[] | 'public' | 'signed-in';
@@ -27,6 +28,9 @@ export function routerFrom(specs: readonly RouteSpec[]): Router {
   const router = Router();
   for (const s of specs) {
     router[s.method](s.path, ...guardFor(s.access), ...(s.before ?? []), async (req, res) => {
+      // The request's laboratory scope is made here, once, from the signed-in user; services reach the same
+      // object with scopeOf(me) and filter every query of laboratory rows through it (server/db/lab-scope.ts).
+      if (req.user) scopeOf(req.user);
       await s.handler(req, res);
     });
   }

@@ -1,4 +1,4 @@
-import { and, desc, eq, isNotNull, ne, sql } from 'drizzle-orm';
+import { methodComparisonMeta } from '@shared/kinds/method-comparison/meta';
 import { planOptionPath, planOptionsFor, type SamplePlan } from '@shared/kinds/method-comparison/sample-plan';
 import { parseKindSettings } from '@shared/kinds/settings';
 import type { ImprecisionSuggestion, StudyPlan } from '@shared/schemas';
@@ -11,16 +11,18 @@ import type { AnalysisJobs } from '../analyses/analysis-jobs';
 import { recordAudit } from '../audit/audit';
 import { actorOf, type SignedInUser } from '../auth/session-user';
 import type { Database, Executor, Tx } from '../db/client';
-import { analyses, instruments, signatures, specimens, studies } from '../db/schema';
+import { analyses } from '../db/schema';
 import { AppError } from '../http/app-error';
 import { findStudy, type StudyRow } from '../studies/studies.repository';
 import { assertEditable } from '../studies/study-rules';
 import { planInputHash, type PlanInput } from './plan-input';
+import { ownerScope, scopeOf, type LabScope } from '../db/lab-scope';
+import { includedComparativeValues, labStudyKind, latestSignedPrecision, planRuns, sameAnalyteStudies } from './plans.repository';
 
 type Problem = { path: string; message: string };
 
 /** Only a method comparison is planned by simulation (reference intervals plan in closed form on Setup). */
-const PLANNED_KIND = 'method-comparison';
+const PLANNED_KIND = methodComparisonMeta.kind;
 
 /**
  * The plan's input as the study's settings give it now, or the problems (each naming its Setup field) that keep it
@@ -33,7 +35,7 @@ export async function planInputOf(db: Executor, study: StudyRow): Promise<{ inpu
   if (!plan) return { input: null, problems: [{ path: 'settings.samplePlan', message: 'Set the plan: the imprecision of each method, the range and the numbers of specimens to try' }] };
   let values: number[] | null = null;
   if (plan.shape === 'earlier-study') {
-    values = await comparativeValuesOf(db, study.laboratoryId, plan.earlierStudyId!, study.id);
+    values = await comparativeValuesOf(db, ownerScope(study), plan.earlierStudyId!, study.id);
     if (!values) return { input: null, problems: [{ path: 'settings.samplePlan.earlierStudyId', message: `settings.samplePlan.earlierStudyId: study ${plan.earlierStudyId} is not a method comparison of this laboratory with at least 10 comparative values` }] };
   }
   const options = planOptionsFor(settings, values)!;
@@ -48,21 +50,11 @@ export async function planInputOf(db: Executor, study: StudyRow): Promise<{ inpu
 }
 
 /** The included comparative values of another method comparison of the laboratory (at least 10), or null. */
-async function comparativeValuesOf(db: Executor, laboratoryId: number, id: number, self: number): Promise<number[] | null> {
+async function comparativeValuesOf(db: Executor, scope: LabScope, id: number, self: number): Promise<number[] | null> {
   if (id === self) return null;
-  const [other] = await db.select({ kind: studies.kind }).from(studies).where(and(eq(studies.id, id), eq(studies.laboratoryId, laboratoryId)));
-  if (other?.kind !== PLANNED_KIND) return null;
-  const rows = await db.select({ x: specimens.comparative }).from(specimens)
-    .where(and(eq(specimens.studyId, id), eq(specimens.excluded, false), isNotNull(specimens.comparative))).orderBy(specimens.position);
-  return rows.length >= 10 ? rows.map((r) => r.x!) : null;
-}
-
-/** The latest plan run of a study, and the latest finished one made from the plan as it is set now. */
-async function planRuns(db: Executor, study: StudyRow, hash: string | null) {
-  const [latest] = await db.select().from(analyses).where(and(eq(analyses.studyId, study.id), eq(analyses.purpose, 'plan'))).orderBy(desc(analyses.id)).limit(1);
-  const [current] = hash === null ? [] : await db.select().from(analyses)
-    .where(and(eq(analyses.studyId, study.id), eq(analyses.purpose, 'plan'), eq(analyses.state, 'done'), eq(analyses.inputHash, hash))).orderBy(desc(analyses.id)).limit(1);
-  return { latest: latest ?? null, current: current ?? null };
+  if (await labStudyKind(db, scope, id) !== PLANNED_KIND) return null;
+  const values = await includedComparativeValues(db, id);
+  return values.length >= 10 ? values : null;
 }
 
 /** The finished run of the plan as it is set now (what plan approval and the report cover), or null. */
@@ -77,7 +69,7 @@ export const hasSamplePlan = (study: StudyRow): boolean =>
   study.kind === PLANNED_KIND && (study.settings as { samplePlan?: unknown }).samplePlan != null;
 
 export async function getPlan(db: Database, me: SignedInUser, id: number): Promise<StudyPlan> {
-  const study = await findStudy(db, me.laboratoryId, id);
+  const study = await findStudy(db, scopeOf(me), id);
   if (study.kind !== PLANNED_KIND) throw new AppError('invalid_request', 'Only a method comparison is planned by simulation; reference intervals show their plan on Setup', [{ path: 'kind', message: 'not a method comparison' }]);
   const { input, problems } = await planInputOf(db, study);
   const hash = input ? planInputHash(input) : null;
@@ -109,7 +101,7 @@ export async function planNow(db: Database, jobs: AnalysisJobs, me: SignedInUser
 
 /** Inserts a queued plan run of the plan as it is set, with its audit event (in the caller's transaction). */
 async function insertPlanRun(tx: Tx, me: SignedInUser, id: number): Promise<number> {
-  const study = await findStudy(tx, me.laboratoryId, id, true);
+  const study = await findStudy(tx, scopeOf(me), id, true);
   assertEditable(study);
   const { input, problems } = await planInputOf(tx, study);
   if (!input) throw new AppError('invalid_request', problems[0].message, problems);
@@ -131,14 +123,7 @@ async function insertPlanRun(tx: Tx, me: SignedInUser, id: number): Promise<numb
  */
 async function imprecisionFrom(db: Executor, study: StudyRow, instrumentId: number | null): Promise<ImprecisionSuggestion | null> {
   if (instrumentId === null) return null;
-  const [found] = await db.select({ id: studies.id, title: studies.title, signedAt: studies.signedAt, results: analyses.results, instrument: instruments.name })
-    .from(studies)
-    .innerJoin(signatures, and(eq(signatures.studyId, studies.id), ne(signatures.meaning, 'plan-approved')))
-    .innerJoin(analyses, eq(analyses.id, signatures.analysisId))
-    .innerJoin(instruments, eq(instruments.id, studies.instrumentId))
-    .where(and(eq(studies.laboratoryId, study.laboratoryId), eq(studies.kind, 'precision'), eq(studies.state, 'signed'),
-      eq(studies.analyteId, study.analyteId), eq(studies.instrumentId, instrumentId), sql`${studies.supersededById} IS NULL`))
-    .orderBy(desc(studies.signedAt)).limit(1);
+  const found = await latestSignedPrecision(db, ownerScope(study), study.analyteId, instrumentId);
   const materials = (found?.results as PrecisionResult | null)?.materials
     ?.filter((m) => Number.isFinite(m.withinLab?.sd) && Number.isFinite(m.withinLab?.cv))
     .map((m) => ({ name: m.name, mean: m.mean, sd: m.withinLab.sd, cv: m.withinLab.cv }));
@@ -151,10 +136,6 @@ async function imprecisionFrom(db: Executor, study: StudyRow, instrumentId: numb
 
 /** Method comparisons of the same analyte with at least 10 included comparative values, newest first. */
 async function earlierStudies(db: Executor, study: StudyRow): Promise<StudyPlan['earlierStudies']> {
-  // The outer column written out: in a select list drizzle names it unqualified ("id"), which the subquery would read as its own.
-  const n = sql<number>`(SELECT count(*)::int FROM ${specimens} sp WHERE sp.study_id = "studies"."id" AND NOT sp.excluded AND sp.comparative IS NOT NULL)`;
-  const rows = await db.select({ id: studies.id, title: studies.title, n }).from(studies)
-    .where(and(eq(studies.laboratoryId, study.laboratoryId), eq(studies.kind, PLANNED_KIND), eq(studies.analyteId, study.analyteId), ne(studies.id, study.id)))
-    .orderBy(desc(studies.id)).limit(50);
+  const rows = await sameAnalyteStudies(db, ownerScope(study), study, PLANNED_KIND);
   return rows.filter((r) => r.n >= 10);
 }

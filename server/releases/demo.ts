@@ -9,6 +9,7 @@ import { DEMO_PASSWORD } from '../db/seed-data';
 import { updateDue } from './due.service';
 import { signRelease } from './release-sign.service';
 import { createRelease, linkStudy } from './releases.service';
+import { systemScope } from '../db/lab-scope';
 
 /** The glucose studies the released new system is made of (their demos are signed by the seed), by requirement. */
 const NEW_SYSTEM_STUDIES: Record<string, string> = {
@@ -30,21 +31,22 @@ export const DEMO_RELEASES = {
  * Skipped when the releases exist.
  */
 export async function seedDemoReleases(ctx: AppContext, labId: number, tech: SignedInUser, director: SignedInUser): Promise<void> {
+  const seed = systemScope(labId, 'the demo seed');
   const { db } = ctx;
-  const existing = await db.select({ id: releases.id }).from(releases).where(and(eq(releases.laboratoryId, labId), inArray(releases.title, Object.values(DEMO_RELEASES))));
+  const existing = await db.select({ id: releases.id }).from(releases).where(seed.where(releases, inArray(releases.title, Object.values(DEMO_RELEASES))));
   if (existing.length) return;
-  const [glucose] = await db.select().from(analytes).where(and(eq(analytes.laboratoryId, labId), eq(analytes.name, 'Glucose')));
-  const labInstruments = await db.select().from(instruments).where(eq(instruments.laboratoryId, labId));
+  const [glucose] = await db.select().from(analytes).where(seed.where(analytes, eq(analytes.name, 'Glucose')));
+  const labInstruments = await db.select().from(instruments).where(seed.where(instruments));
   const line = (name: string) => labInstruments.find((i) => i.name === name)!.id;
   const release = await createRelease(db, tech, {
     changeType: 'new-system', title: DEMO_RELEASES.newSystem, analyteId: glucose.id, instrumentId: line('Chemistry line 2'), comparativeInstrumentId: line('Chemistry line 1'),
     reagentLot: 'GLU-4502', note: 'Chemistry line 2 takes over glucose from line 1 (invented demo release).',
   });
   for (const [requirement, title] of Object.entries(NEW_SYSTEM_STUDIES)) {
-    const [study] = await db.select({ id: studies.id }).from(studies).where(and(eq(studies.laboratoryId, labId), eq(studies.title, title)));
+    const [study] = await db.select({ id: studies.id }).from(studies).where(seed.where(studies, eq(studies.title, title)));
     await linkStudy(db, tech, release.id, { requirement, studyId: study.id });
   }
-  const today = laboratoryDate(new Date(), await labTimeZone(db, labId));
+  const today = laboratoryDate(new Date(), await labTimeZone(db, seed));
   await signRelease(ctx, director, release.id, {
     meaning: 'released', goLiveDate: today, password: DEMO_PASSWORD,
     comment: 'All four verifications accepted; results above 28.3 mmol/L are diluted as the reportable range study found.',

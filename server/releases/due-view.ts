@@ -1,22 +1,23 @@
-import { and, asc, eq, type SQL } from 'drizzle-orm';
+import { asc, eq, type SQL } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/pg-core';
 import type { DueItem } from '@shared/schemas';
 import { daysBetween, dueStatus, dueWords } from '@shared/types/due-dates';
 import { laboratoryDate } from '@shared/types/lab-time';
 import type { Executor } from '../db/client';
+import type { LabScope } from '../db/lab-scope';
 import { labTimeZone } from '../db/lab-zone';
 import { analytes, dueItems, instruments, releases, studies } from '../db/schema';
 
 /** The laboratory's today, yyyy-mm-dd, at `now` (the reminder check passes its own clock). */
-export async function labToday(db: Executor, laboratoryId: number, now: Date = new Date()): Promise<string> {
-  return laboratoryDate(now, await labTimeZone(db, laboratoryId));
+export async function labToday(db: Executor, scope: LabScope, now: Date = new Date()): Promise<string> {
+  return laboratoryDate(now, await labTimeZone(db, scope));
 }
 
 const started = alias(releases, 'started_release');
 
 /** Due items of a laboratory matching `where`, earliest first, with their standing as of the laboratory's today. */
-export async function dueView(db: Executor, laboratoryId: number, where: SQL, now: Date = new Date()): Promise<DueItem[]> {
-  const today = await labToday(db, laboratoryId, now);
+export async function dueView(db: Executor, scope: LabScope, where: SQL, now: Date = new Date()): Promise<DueItem[]> {
+  const today = await labToday(db, scope, now);
   const rows = await db.select({
     item: dueItems, releaseTitle: releases.title, dueRules: releases.dueRules, analyteName: analytes.name, instrumentName: instruments.name,
     startedReleaseTitle: started.title, startedStudyTitle: studies.title,
@@ -26,7 +27,7 @@ export async function dueView(db: Executor, laboratoryId: number, where: SQL, no
     .innerJoin(instruments, eq(instruments.id, dueItems.instrumentId))
     .leftJoin(started, eq(started.id, dueItems.startedReleaseId))
     .leftJoin(studies, eq(studies.id, dueItems.startedStudyId))
-    .where(and(eq(dueItems.laboratoryId, laboratoryId), where))
+    .where(scope.where(dueItems, where))
     .orderBy(asc(dueItems.dueDate), asc(dueItems.id));
   return rows.map(({ item, ...r }) => ({
     id: item.id, releaseId: item.releaseId, releaseTitle: r.releaseTitle, analyte: { id: item.analyteId, name: r.analyteName },

@@ -1,4 +1,4 @@
-import { and, eq, inArray, ne, sql } from 'drizzle-orm';
+import { and, eq, inArray, sql } from 'drizzle-orm';
 import { kindMeta } from '@shared/kinds/kinds';
 import type { DueItem, DueQuery, StartFromDueBody, UpdateDueBody } from '@shared/schemas';
 import { addDays, DUE_SOON_DAYS } from '@shared/types/due-dates';
@@ -6,27 +6,25 @@ import { recordAudit } from '../audit/audit';
 import { actorOf, type SignedInUser } from '../auth/session-user';
 import type { Database, Tx } from '../db/client';
 import { dueItems, dueReminders, laboratories, releases, users } from '../db/schema';
-import { AppError, invalid, notFound } from '../http/app-error';
+import { AppError, invalid } from '../http/app-error';
 import { logFailure } from '../log';
 import { queueMail } from '../mail/outbox';
 import { startStudyFor } from './releases.service';
 import { dueView, labToday } from './due-view';
+import { scopeOf, systemScope } from '../db/lab-scope';
+import { dueItemsDoneByStudy, findDueItem } from './releases.repository';
 
 /** The laboratory's due items: pending (open or started), overdue only, or all. */
 export async function listDue(db: Database, me: SignedInUser, q: DueQuery): Promise<DueItem[]> {
   const parts = [q.status === 'all' ? sql`TRUE` : inArray(dueItems.state, ['open', 'started'])];
-  if (q.status === 'overdue') parts.push(sql`${dueItems.dueDate} < ${await labToday(db, me.laboratoryId)}`);
+  if (q.status === 'overdue') parts.push(sql`${dueItems.dueDate} < ${await labToday(db, scopeOf(me))}`);
   if (q.releaseId) parts.push(eq(dueItems.releaseId, q.releaseId));
-  return dueView(db, me.laboratoryId, and(...parts)!);
+  return dueView(db, scopeOf(me), and(...parts)!);
 }
 
-async function findDue(tx: Tx, me: SignedInUser, id: number) {
-  const [row] = await tx.select().from(dueItems).where(and(eq(dueItems.id, id), eq(dueItems.laboratoryId, me.laboratoryId))).for('update');
-  if (!row) throw notFound('Due item');
-  return row;
-}
+const findDue = (tx: Tx, me: SignedInUser, id: number) => findDueItem(tx, scopeOf(me), id);
 
-const one = async (tx: Tx, me: SignedInUser, id: number): Promise<DueItem> => (await dueView(tx, me.laboratoryId, eq(dueItems.id, id)))[0];
+const one = async (tx: Tx, me: SignedInUser, id: number): Promise<DueItem> => (await dueView(tx, scopeOf(me), eq(dueItems.id, id)))[0];
 
 /** A director moves a due date, with the reason (the history keeps the old date). */
 export function updateDue(db: Database, me: SignedInUser, id: number, body: UpdateDueBody): Promise<DueItem> {
@@ -65,8 +63,7 @@ export function startFromDue(db: Database, me: SignedInUser, id: number, body: S
 
 /** A study started from a due item was signed: the item is done (in the signature's transaction). */
 export async function dueStudySigned(tx: Tx, me: SignedInUser, studyId: number): Promise<void> {
-  const done = await tx.update(dueItems).set({ state: 'done', updatedAt: new Date() })
-    .where(and(eq(dueItems.laboratoryId, me.laboratoryId), eq(dueItems.startedStudyId, studyId), ne(dueItems.state, 'done'))).returning();
+  const done = await dueItemsDoneByStudy(tx, scopeOf(me), studyId);
   for (const d of done) await recordAudit(tx, actorOf(me), { action: 'due.done', entity: 'release', entityId: d.releaseId, studyId, after: { dueItem: d.id, label: d.label, by: `study ${studyId}` } });
 }
 
@@ -79,9 +76,10 @@ export async function dueStudySigned(tx: Tx, me: SignedInUser, studyId: number):
 export async function sendDueReminders(db: Database, now: Date = new Date(), publicUrl = ''): Promise<number> {
   let sent = 0;
   for (const lab of await db.select().from(laboratories)) {
-    const day = await labToday(db, lab.id, now);
+    const scope = systemScope(lab.id, 'the daily re-verification reminder of every laboratory');
+    const day = await labToday(db, scope, now);
     const horizon = addDays(day, DUE_SOON_DAYS);
-    const items = (await dueView(db, lab.id, and(inArray(dueItems.state, ['open', 'started']), sql`${dueItems.dueDate} <= ${horizon}`)!, now));
+    const items = (await dueView(db, scope, and(inArray(dueItems.state, ['open', 'started']), sql`${dueItems.dueDate} <= ${horizon}`)!, now));
     if (!items.length) continue;
     const wrote = await db.transaction(async (tx) => {
       const [claimed] = await tx.insert(dueReminders).values({ laboratoryId: lab.id, day, items: items.length }).onConflictDoNothing().returning();

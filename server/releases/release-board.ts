@@ -7,19 +7,12 @@ import {
 import { judgedStudies } from '../audit/archive.service';
 import type { SignedInUser } from '../auth/session-user';
 import type { Executor } from '../db/client';
-import { analytes, dueItems, instruments, laboratories, releaseSignatures, releaseStudies, releaseWaivers, releases, signatures, specimens, users } from '../db/schema';
-import { notFound } from '../http/app-error';
+import { analytes, dueItems, instruments, laboratories, releaseSignatures, releaseStudies, releaseWaivers, signatures, specimens, users } from '../db/schema';
 import { dueView } from './due-view';
+import { scopeOf } from '../db/lab-scope';
 
-export type ReleaseRow = typeof releases.$inferSelect;
-
-/** One release of the caller's laboratory; another laboratory's answers 404. */
-export async function findRelease(db: Executor, laboratoryId: number, id: number, lock = false): Promise<ReleaseRow> {
-  const q = db.select().from(releases).where(and(eq(releases.id, id), eq(releases.laboratoryId, laboratoryId)));
-  const [row] = lock ? await q.for('update') : await q;
-  if (!row) throw notFound('Release');
-  return row;
-}
+import type { ReleaseRow } from './releases.repository';
+export { findRelease, type ReleaseRow } from './releases.repository';
 
 const VERDICT_BY_KEY = new Map(KIND_METAS.flatMap((m) => m.verdicts.map((v) => [v.key, v] as const)));
 
@@ -132,7 +125,7 @@ export async function releaseView(db: Executor, me: SignedInUser, release: Relea
   const sigRows = await db.select().from(releaseSignatures).where(eq(releaseSignatures.releaseId, release.id)).orderBy(desc(releaseSignatures.id));
   const latest = sigRows[0];
   const [creator] = await db.select({ id: users.id, name: users.name }).from(users).where(eq(users.id, release.createdBy));
-  const due = await dueView(db, me.laboratoryId, eq(dueItems.releaseId, release.id));
+  const due = await dueView(db, scopeOf(me), eq(dueItems.releaseId, release.id));
   // The due item this release answers: the one it was started from (the item keeps the link).
   const [from] = await db.select({ id: dueItems.id, label: dueItems.label }).from(dueItems).where(eq(dueItems.startedReleaseId, release.id));
   const right = await mayISignRelease(db, me, release, board);

@@ -1,5 +1,5 @@
 import ExcelJS from 'exceljs';
-import { and, asc, eq, sql, type SQL } from 'drizzle-orm';
+import { eq, sql, type SQL } from 'drizzle-orm';
 import {
   CHANGE_TYPE_LABELS, RELEASE_CAUTION, RELEASE_STATE_LABELS, type ChangeType, type HistoryEvent, type ReleasePage, type ReleaseQuery, type ReleaseState,
   type ReleaseSummary, type Requirement,
@@ -12,6 +12,8 @@ import { labTimeZone, signedAndCreatedDays } from '../db/lab-zone';
 import { auditEvents } from '../db/schema';
 import { typedVerificationCode } from '../signoff/content-hash';
 import { boardOf, findRelease, type Board } from './release-board';
+import { scopeOf, type LabScope } from '../db/lab-scope';
+import { labEvents } from '../audit/audit.repository';
 
 /**
  * The releases of a laboratory, searchable like the archive: words in the title or note, a verification code as
@@ -33,13 +35,13 @@ const SORTS: Record<ReleaseQuery['sort'], SQL> = {
 };
 
 async function filters(db: Database, me: SignedInUser, q: ReleaseQuery): Promise<SQL> {
-  const parts: SQL[] = [sql`laboratory_id = ${me.laboratoryId}`];
+  const parts: SQL[] = [scopeOf(me).owns(sql`laboratory_id`)];
   if (q.changeType) parts.push(sql`change_type = ${q.changeType}`);
   if (q.state) parts.push(sql`state = ${q.state}`);
   if (q.analyteId) parts.push(sql`analyte_id = ${q.analyteId}`);
   if (q.instrumentId) parts.push(sql`${q.instrumentId} IN (instrument_id, comparative_instrument_id)`);
   if (q.signerId) parts.push(sql`signer_id = ${q.signerId}`);
-  parts.push(...await signedAndCreatedDays(db, me.laboratoryId, q, sql`sig_at`, sql`created_at`));
+  parts.push(...await signedAndCreatedDays(db, scopeOf(me), q, sql`sig_at`, sql`created_at`));
   if (q.q) {
     const code = typedVerificationCode(q.q);
     const byCode = code ? sql` OR EXISTS (SELECT 1 FROM release_signatures v WHERE v.release_id = found.id AND v.verification_code = ${code})` : sql``;
@@ -51,8 +53,8 @@ async function filters(db: Database, me: SignedInUser, q: ReleaseQuery): Promise
 type Row = Record<string, unknown>;
 
 /** A found row as the list shows it, with the board it was counted from. */
-async function summary(db: Database, r: Row): Promise<{ summary: ReleaseSummary; board: Board }> {
-  const release = await findRelease(db, Number(r.laboratory_id), Number(r.id));
+async function summary(db: Database, scope: LabScope, r: Row): Promise<{ summary: ReleaseSummary; board: Board }> {
+  const release = await findRelease(db, scope, Number(r.id));
   const board = await boardOf(db, release);
   return { board, summary: {
     id: release.id, changeType: release.changeType as ChangeType, title: release.title, analyte: { id: release.analyteId, name: String(r.analyte_name) },
@@ -70,13 +72,13 @@ export async function searchReleases(db: Database, me: SignedInUser, q: ReleaseQ
   const rows = await db.execute(sql`${BASE} SELECT * FROM found WHERE ${where} ORDER BY ${SORTS[q.sort]} ${order}, id DESC LIMIT ${q.pageSize} OFFSET ${(q.page - 1) * q.pageSize}`);
   const total = await db.execute(sql`${BASE} SELECT count(*)::int AS total FROM found WHERE ${where}`);
   const items: ReleaseSummary[] = [];
-  for (const r of rows.rows as Row[]) items.push((await summary(db, r)).summary);
+  for (const r of rows.rows as Row[]) items.push((await summary(db, scopeOf(me), r)).summary);
   return { items, total: Number((total.rows[0] as Row).total) };
 }
 
 /** The releases a search finds as a workbook: one row each, with its components, and the caution. */
 export async function exportReleases(db: Database, me: SignedInUser, q: ReleaseQuery): Promise<Buffer> {
-  const zone = await labTimeZone(db, me.laboratoryId);
+  const zone = await labTimeZone(db, scopeOf(me));
   const where = await filters(db, me, q);
   const rows = (await db.execute(sql`${BASE} SELECT * FROM found WHERE ${where} ORDER BY created_at DESC, id DESC LIMIT 5000`)).rows as Row[];
   const wb = new ExcelJS.Workbook();
@@ -90,7 +92,7 @@ export async function exportReleases(db: Database, me: SignedInUser, q: ReleaseQ
     { header: 'Verification code', key: 'code', width: 18 }, { header: 'Created by', key: 'creator', width: 20 }, { header: 'Created', key: 'created', width: 30 },
   ];
   for (const r of rows) {
-    const { summary: s, board } = await summary(db, r);
+    const { summary: s, board } = await summary(db, scopeOf(me), r);
     ws.addRow({
       id: s.id, title: s.title, change: CHANGE_TYPE_LABELS[s.changeType], analyte: s.analyte.name, instrument: s.instrument.name, lot: s.reagentLot,
       state: RELEASE_STATE_LABELS[s.state], met: `${s.met} of ${s.required}`,
@@ -107,8 +109,7 @@ export async function exportReleases(db: Database, me: SignedInUser, q: ReleaseQ
 
 /** A release's own history (every event recorded on it), oldest first. */
 export async function releaseHistory(db: Database, me: SignedInUser, id: number): Promise<HistoryEvent[]> {
-  await findRelease(db, me.laboratoryId, id);
-  const rows = await db.select().from(auditEvents)
-    .where(and(eq(auditEvents.laboratoryId, me.laboratoryId), eq(auditEvents.entity, 'release'), eq(auditEvents.entityId, String(id)))).orderBy(asc(auditEvents.id));
+  await findRelease(db, scopeOf(me), id);
+  const rows = await labEvents(db, scopeOf(me), eq(auditEvents.entity, 'release'), eq(auditEvents.entityId, String(id)));
   return rows.map((e) => ({ id: e.id, at: e.at.toISOString(), userId: e.userId, userName: e.userName, studyId: e.studyId, action: e.action, entity: e.entity, ...describeEvent(e) }));
 }

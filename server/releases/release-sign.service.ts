@@ -7,7 +7,7 @@ import {
 } from '@shared/schemas';
 import { addMonths } from '@shared/types/due-dates';
 import { plural } from '@shared/types/plural';
-import { chainOf, recordAudit } from '../audit/audit';
+import { chainOfScope, recordAudit } from '../audit/audit';
 import { sha256Hex } from '../audit/canonical-json';
 import { verifyChain } from '../audit/chain';
 import { writeCheckpoint } from '../audit/checkpoints';
@@ -23,6 +23,7 @@ import { confirmPassword, step } from '../signoff/signoff.service';
 import { boardOf, findRelease, mayISignRelease, releaseView, type Board, type ReleaseRow } from './release-board';
 import { renderReleaseReport } from './release-pdf';
 import type { ReleaseDecision, ReleaseReport, ReleaseReportRequirement } from './release-report-model';
+import { scopeOf, type LabScope } from '../db/lab-scope';
 
 /** The decision as signed (part of the content hash). */
 interface SignedDecision { meaning: 'released' | 'not-released'; goLiveDate: string | null; comment: string; signerId: number; signerName: string; signedAt: string }
@@ -111,13 +112,13 @@ function keyFiguresOf(kind: string, results: unknown, unit: string, decimals: nu
  * stored with its own hash, and (released) the re-verification it sets due from the go-live date.
  */
 export async function signRelease(ctx: AppContext, me: SignedInUser, id: number, body: ReleaseSignBody, address: string): Promise<Release> {
-  const first = await findRelease(ctx.db, me.laboratoryId, id);
+  const first = await findRelease(ctx.db, scopeOf(me), id);
   const right = await mayISignRelease(ctx.db, me, first, await boardOf(ctx.db, first));
   if (!right.allowed) throw new AppError(right.refusal ?? 'conflict', right.why);
   if (body.meaning === 'released' && !body.goLiveDate) throw invalid('goLiveDate', 'Give the go-live date: the day patient testing starts');
   await confirmPassword(ctx, me, body.password, address, { entity: 'release', entityId: id, studyId: null, meaning: body.meaning });
   return step(ctx, async (tx) => {
-    const release = await findRelease(tx, me.laboratoryId, id, true);
+    const release = await findRelease(tx, scopeOf(me), id, true);
     const board = await boardOf(tx, release);
     const now = await mayISignRelease(tx, me, release, board);
     if (!now.allowed) throw new AppError(now.refusal ?? 'conflict', now.why);
@@ -135,11 +136,11 @@ export async function signRelease(ctx: AppContext, me: SignedInUser, id: number,
     const report = await reportOf(tx, release, board, { meaning: body.meaning, meaningWords: RELEASE_MEANING_WORDS[body.meaning], signerName: me.name, signedAt, goLiveDate, comment: body.comment }, contentHash, code, due, signedAt);
     const pdf = await renderReleaseReport(report);
     const pdfSha256 = sha256Hex(pdf);
-    const anchor = await writeCheckpoint(tx, chainOf(me.laboratoryId), `before the signature of release ${id}`);
-    const [sig] = await tx.insert(releaseSignatures).values({
-      laboratoryId: me.laboratoryId, releaseId: id, meaning: body.meaning, signerId: me.id, signerName: me.name, goLiveDate, comment: body.comment, signedAt,
+    const anchor = await writeCheckpoint(tx, chainOfScope(scopeOf(me)), `before the signature of release ${id}`);
+    const [sig] = await tx.insert(releaseSignatures).values(scopeOf(me).values({
+      releaseId: id, meaning: body.meaning, signerId: me.id, signerName: me.name, goLiveDate, comment: body.comment, signedAt,
       content, contentHash, verificationCode: code, pdf, pdfSha256, chainLength: anchor?.length ?? null, chainHeadHash: anchor?.headHash ?? null,
-    }).returning({ id: releaseSignatures.id });
+    })).returning({ id: releaseSignatures.id });
     const [row] = await tx.update(releases).set({ state: body.meaning, signedAt, version: release.version + 1, updatedAt: signedAt }).where(eq(releases.id, id)).returning();
     if (now.enteredRows) await recordAudit(tx, actorOf(me), { action: 'signature.self-sign-allowed', entity: 'release', entityId: id, reason: 'laboratory setting allows a director to sign rows they entered' });
     await recordAudit(tx, actorOf(me), {
@@ -183,7 +184,7 @@ async function notifyReleased(tx: Tx, release: ReleaseRow, by: string, meaning: 
 
 /** The release PDF: the one stored at signing, or a DRAFT preview of the dossier as it stands. */
 export async function releasePdf(db: Database, me: SignedInUser, id: number): Promise<{ bytes: Buffer; sha256: string; fileName: string }> {
-  const release = await findRelease(db, me.laboratoryId, id);
+  const release = await findRelease(db, scopeOf(me), id);
   const [sig] = await db.select().from(releaseSignatures).where(eq(releaseSignatures.releaseId, id)).orderBy(desc(releaseSignatures.id)).limit(1);
   if (sig?.pdf && release.state !== 'needs-review') return { bytes: sig.pdf, sha256: sig.pdfSha256 ?? sha256Hex(sig.pdf), fileName: `parallax-release-${id}-signed.pdf` };
   const board = await boardOf(db, release);
@@ -198,7 +199,7 @@ export async function releasePdf(db: Database, me: SignedInUser, id: number): Pr
  * study's own re-check (rows, settings, results, PDF, analysis input). Recorded as an event; changes nothing else.
  */
 export async function checkReleaseIntegrity(db: Database, me: SignedInUser, id: number): Promise<ReleaseIntegrityReport> {
-  const release = await findRelease(db, me.laboratoryId, id);
+  const release = await findRelease(db, scopeOf(me), id);
   const [sig] = await db.select().from(releaseSignatures).where(eq(releaseSignatures.releaseId, id)).orderBy(desc(releaseSignatures.id)).limit(1);
   if (!sig) throw new AppError('conflict', 'Only a signed release can be re-checked; this one has no signature yet');
   const stored = sig.content as ReturnType<typeof releaseContent>;
@@ -207,7 +208,7 @@ export async function checkReleaseIntegrity(db: Database, me: SignedInUser, id: 
   for (const c of stored.components) {
     const [own] = await db.select().from(signatures).where(and(eq(signatures.studyId, c.studyId), ne(signatures.meaning, 'plan-approved'))).orderBy(desc(signatures.id)).limit(1);
     now.push({ ...c, meaning: own?.meaning ?? '(none)', contentHash: own?.contentHash ?? '(missing)', verificationCode: own?.verificationCode ?? '(missing)' });
-    const checks = await studyChecks(db, me.laboratoryId, c.studyId).catch((err: Error): CheckResult[] => [{ name: 'Study', passed: false, detail: err.message }]);
+    const checks = await studyChecks(db, scopeOf(me), c.studyId).catch((err: Error): CheckResult[] => [{ name: 'Study', passed: false, detail: err.message }]);
     components.push({ requirement: c.requirement, studyId: c.studyId, passed: checks.every((x) => x.passed), checks });
   }
   const board = await boardOf(db, release);
@@ -224,7 +225,7 @@ export async function checkReleaseIntegrity(db: Database, me: SignedInUser, id: 
     name: 'Signed PDF', passed: pdfHash === sig.pdfSha256,
     detail: pdfHash === sig.pdfSha256 ? `The PDF's bytes still hash to ${sig.pdfSha256}.` : `The PDF's bytes hash to ${pdfHash || '(missing)'}, not to the recorded ${sig.pdfSha256}.`,
   });
-  checks.push(await historyCheck(db, me.laboratoryId, id, sig));
+  checks.push(await historyCheck(db, scopeOf(me), id, sig));
   const failedComponents = components.filter((c) => !c.passed);
   checks.push({
     name: 'Component studies', passed: failedComponents.length === 0,
@@ -238,9 +239,9 @@ export async function checkReleaseIntegrity(db: Database, me: SignedInUser, id: 
   return { releaseId: id, passed, checks, components, checkedAt: new Date().toISOString() };
 }
 
-async function historyCheck(db: Executor, laboratoryId: number, releaseId: number, sig: typeof releaseSignatures.$inferSelect): Promise<CheckResult> {
-  const chain = await verifyChain(db, laboratoryId);
-  const events = await db.select().from(auditEvents).where(and(eq(auditEvents.laboratoryId, laboratoryId), eq(auditEvents.entity, 'release'), eq(auditEvents.entityId, String(releaseId)), eq(auditEvents.action, 'release.signed')));
+async function historyCheck(db: Executor, scope: LabScope, releaseId: number, sig: typeof releaseSignatures.$inferSelect): Promise<CheckResult> {
+  const chain = await verifyChain(db, scope);
+  const events = await db.select().from(auditEvents).where(scope.where(auditEvents, eq(auditEvents.entity, 'release'), eq(auditEvents.entityId, String(releaseId)), eq(auditEvents.action, 'release.signed')));
   const eventMatches = events.some((e) => (e.after as { contentHash?: string } | null)?.contentHash === sig.contentHash);
   const anchored = sig.chainLength === null || chain.hashAt(sig.chainLength) === sig.chainHeadHash;
   const name = 'History chain';

@@ -12,6 +12,8 @@ import { findLabAnalyte, findLabInstrument, findStudy, type StudyRow } from '../
 import { createStudyIn } from '../studies/studies.service';
 import { findRelease, releaseView, type ReleaseRow } from './release-board';
 import { templateOf } from './templates';
+import { scopeOf } from '../db/lab-scope';
+import { labDueItemForUpdate } from './releases.repository';
 
 /** Keys for a custom change's requirements: a given key is kept, else one is made from the label (as the client makes it). */
 function keyed(list: (Omit<Requirement, 'key'> & { key?: string })[]): Requirement[] {
@@ -40,12 +42,12 @@ function assertOpen(release: ReleaseRow, what: string, alsoNeedsReview = false):
  */
 export function createRelease(db: Database, me: SignedInUser, body: CreateReleaseBody): Promise<Release> {
   return db.transaction(async (tx) => {
-    if (!(await findLabAnalyte(tx, me.laboratoryId, body.analyteId))) throw invalid('analyteId', 'Choose an analyte from the catalog');
+    if (!(await findLabAnalyte(tx, scopeOf(me), body.analyteId))) throw invalid('analyteId', 'Choose an analyte from the catalog');
     for (const field of ['instrumentId', 'comparativeInstrumentId'] as const) {
       const id = body[field];
-      if (id && !(await findLabInstrument(tx, me.laboratoryId, id))) throw invalid(field, 'Choose an instrument from the catalog');
+      if (id && !(await findLabInstrument(tx, scopeOf(me), id))) throw invalid(field, 'Choose an instrument from the catalog');
     }
-    const template = await templateOf(tx, me.laboratoryId, body.changeType);
+    const template = await templateOf(tx, scopeOf(me), body.changeType);
     let requirements = template.requirements;
     if (body.requirements) {
       if (body.changeType !== 'custom') throw invalid('requirements', `A ${CHANGE_TYPE_LABELS[body.changeType].toLowerCase()} takes its requirements from the laboratory's template; choose "custom" to pick them`);
@@ -54,15 +56,15 @@ export function createRelease(db: Database, me: SignedInUser, body: CreateReleas
     }
     let due: typeof dueItems.$inferSelect | undefined;
     if (body.dueItemId) {
-      [due] = await tx.select().from(dueItems).where(and(eq(dueItems.id, body.dueItemId), eq(dueItems.laboratoryId, me.laboratoryId))).for('update');
+      due = await labDueItemForUpdate(tx, scopeOf(me), body.dueItemId);
       if (!due) throw invalid('dueItemId', 'There is no such due item in this laboratory');
       if (due.state !== 'open') throw invalid('dueItemId', 'Something was already started from this due item');
     }
-    const [row] = await tx.insert(releases).values({
-      laboratoryId: me.laboratoryId, changeType: body.changeType, title: body.title, analyteId: body.analyteId, instrumentId: body.instrumentId,
+    const [row] = await tx.insert(releases).values(scopeOf(me).values({
+      changeType: body.changeType, title: body.title, analyteId: body.analyteId, instrumentId: body.instrumentId,
       comparativeInstrumentId: body.comparativeInstrumentId ?? null, reagentLot: body.reagentLot, note: body.note, requirements,
       dueRules: template.dueRules, createdBy: me.id,
-    }).returning();
+    })).returning();
     await recordAudit(tx, actorOf(me), {
       action: 'release.created', entity: 'release', entityId: row.id,
       after: { title: row.title, changeType: row.changeType, analyteId: row.analyteId, instrumentId: row.instrumentId, reagentLot: row.reagentLot, requirements: requirements.map((r) => r.label), fromDueItem: due?.id ?? null },
@@ -78,7 +80,7 @@ export function createRelease(db: Database, me: SignedInUser, body: CreateReleas
 /** Title, lot, note and (custom changes, directors) requirements of an open release, with its version. */
 export function updateRelease(db: Database, me: SignedInUser, id: number, body: UpdateReleaseBody): Promise<Release> {
   return db.transaction(async (tx) => {
-    const release = await findRelease(tx, me.laboratoryId, id, true);
+    const release = await findRelease(tx, scopeOf(me), id, true);
     assertOpen(release, 'it can be changed');
     if (release.version !== body.version) {
       throw new AppError('conflict', 'Someone else changed this release since you loaded it; reload to see their change', [
@@ -143,7 +145,7 @@ export async function linkIn(tx: Tx, me: SignedInUser, release: ReleaseRow, key:
   if (study.analyteId !== release.analyteId) throw invalid('studyId', `Study ${study.id} is of another analyte than this release`);
   const [taken] = await tx.select().from(releaseStudies).where(eq(releaseStudies.studyId, study.id));
   if (taken) throw invalid('studyId', taken.releaseId === release.id ? `Study ${study.id} is already linked to this release` : `Study ${study.id} already belongs to release ${taken.releaseId}`);
-  await tx.insert(releaseStudies).values({ laboratoryId: me.laboratoryId, releaseId: release.id, studyId: study.id, requirementKey: key, linkedBy: me.id });
+  await tx.insert(releaseStudies).values(scopeOf(me).values({ releaseId: release.id, studyId: study.id, requirementKey: key, linkedBy: me.id }));
   await recordAudit(tx, actorOf(me), {
     action: 'release.study-linked', entity: 'release', entityId: release.id, studyId: study.id,
     after: { requirement: req.label, study: study.id, title: study.title },
@@ -153,7 +155,7 @@ export async function linkIn(tx: Tx, me: SignedInUser, release: ReleaseRow, key:
 /** Links an existing study to a requirement, or starts a new draft study for it. */
 export function linkStudy(db: Database, me: SignedInUser, id: number, body: LinkStudyBody): Promise<Release> {
   return db.transaction(async (tx) => {
-    const release = await findRelease(tx, me.laboratoryId, id, true);
+    const release = await findRelease(tx, scopeOf(me), id, true);
     assertOpen(release, 'studies are linked', true);
     const req = requirementOf(release, body.requirement);
     let studyId: number;
@@ -165,7 +167,7 @@ export function linkStudy(db: Database, me: SignedInUser, id: number, body: Link
     } else {
       studyId = body.studyId;
     }
-    const study = await findStudy(tx, me.laboratoryId, studyId, true).catch((err: unknown) => {
+    const study = await findStudy(tx, scopeOf(me), studyId, true).catch((err: unknown) => {
       throw err instanceof AppError && err.code === 'not_found' ? invalid('studyId', `There is no study ${studyId} in this laboratory`) : err;
     });
     await linkIn(tx, me, release, body.requirement, study);
@@ -177,7 +179,7 @@ export function linkStudy(db: Database, me: SignedInUser, id: number, body: Link
 /** Unlinks a study from an open release. */
 export function unlinkStudy(db: Database, me: SignedInUser, id: number, studyId: number): Promise<Release> {
   return db.transaction(async (tx) => {
-    const release = await findRelease(tx, me.laboratoryId, id, true);
+    const release = await findRelease(tx, scopeOf(me), id, true);
     assertOpen(release, 'studies are unlinked');
     const [link] = await tx.select().from(releaseStudies).where(and(eq(releaseStudies.releaseId, id), eq(releaseStudies.studyId, studyId)));
     if (!link) throw new AppError('not_found', `Study ${studyId} is not linked to this release`);
@@ -191,12 +193,12 @@ export function unlinkStudy(db: Database, me: SignedInUser, id: number, studyId:
 /** A director waives a requirement with a reason (permanent; the PDF lists it). */
 export function waiveRequirement(db: Database, me: SignedInUser, id: number, body: WaiverBody): Promise<Release> {
   return db.transaction(async (tx) => {
-    const release = await findRelease(tx, me.laboratoryId, id, true);
+    const release = await findRelease(tx, scopeOf(me), id, true);
     assertOpen(release, 'requirements are waived', true);
     const req = requirementOf(release, body.requirement);
     const [already] = await tx.select().from(releaseWaivers).where(and(eq(releaseWaivers.releaseId, id), eq(releaseWaivers.requirementKey, req.key)));
     if (already) throw new AppError('conflict', `"${req.label}" is already waived`);
-    await tx.insert(releaseWaivers).values({ laboratoryId: me.laboratoryId, releaseId: id, requirementKey: req.key, reason: body.reason, waivedBy: me.id, waivedByName: me.name });
+    await tx.insert(releaseWaivers).values(scopeOf(me).values({ releaseId: id, requirementKey: req.key, reason: body.reason, waivedBy: me.id, waivedByName: me.name }));
     await recordAudit(tx, actorOf(me), { action: 'release.waived', entity: 'release', entityId: id, reason: body.reason, after: { requirement: req.label } });
     const [row] = await tx.update(releases).set({ version: release.version + 1, updatedAt: new Date() }).where(eq(releases.id, id)).returning();
     return releaseView(tx, me, row);
@@ -204,7 +206,7 @@ export function waiveRequirement(db: Database, me: SignedInUser, id: number, bod
 }
 
 export async function getRelease(db: Database, me: SignedInUser, id: number): Promise<Release> {
-  return releaseView(db, me, await findRelease(db, me.laboratoryId, id));
+  return releaseView(db, me, await findRelease(db, scopeOf(me), id));
 }
 
 /**
@@ -214,7 +216,7 @@ export async function getRelease(db: Database, me: SignedInUser, id: number): Pr
 export async function amendedComponent(tx: Tx, me: SignedInUser, old: StudyRow, amendment: StudyRow, reason: string): Promise<void> {
   const [link] = await tx.select().from(releaseStudies).where(eq(releaseStudies.studyId, old.id));
   if (!link) return;
-  const release = await findRelease(tx, me.laboratoryId, link.releaseId, true);
+  const release = await findRelease(tx, scopeOf(me), link.releaseId, true);
   if (release.state === 'not-released') return;
   await linkIn(tx, me, release, link.requirementKey, amendment);
   if (release.state === 'released') {

@@ -1,4 +1,4 @@
-import { and, eq } from 'drizzle-orm';
+import { eq } from 'drizzle-orm';
 import {
   CHANGE_TYPE_LABELS, CHANGE_TYPES, type ChangeType, type DueRule, type ReleaseTemplate, type Requirement, type UpdateTemplateBody,
 } from '@shared/schemas';
@@ -7,6 +7,8 @@ import { actorOf, type SignedInUser } from '../auth/session-user';
 import type { Database, Executor } from '../db/client';
 import { releaseTemplates } from '../db/schema';
 import { AppError } from '../http/app-error';
+import { scopeOf, type LabScope } from '../db/lab-scope';
+import { labTemplateRow, labTemplateRows } from './releases.repository';
 
 /**
  * What each change type requires until the laboratory's administrator changes it, with the rule each follows.
@@ -59,21 +61,19 @@ const view = (changeType: ChangeType, row: Row | undefined): ReleaseTemplate => 
 });
 
 /** The laboratory's template of one change type: its own when the administrator saved one, else the default (version 0). */
-export async function templateOf(db: Executor, laboratoryId: number, changeType: ChangeType): Promise<ReleaseTemplate> {
-  const [row] = await db.select().from(releaseTemplates).where(and(eq(releaseTemplates.laboratoryId, laboratoryId), eq(releaseTemplates.changeType, changeType)));
-  return view(changeType, row);
+export async function templateOf(db: Executor, scope: LabScope, changeType: ChangeType): Promise<ReleaseTemplate> {
+  return view(changeType, await labTemplateRow(db, scope, changeType));
 }
 
 export async function listTemplates(db: Executor, me: SignedInUser): Promise<ReleaseTemplate[]> {
-  const rows = await db.select().from(releaseTemplates).where(eq(releaseTemplates.laboratoryId, me.laboratoryId));
+  const rows = await labTemplateRows(db, scopeOf(me));
   return CHANGE_TYPES.map((t) => view(t, rows.find((r) => r.changeType === t)));
 }
 
 /** The administrator saves a template (version 0 for the first save over the default); audited with before and after. */
 export function saveTemplate(db: Database, me: SignedInUser, changeType: ChangeType, body: UpdateTemplateBody): Promise<ReleaseTemplate> {
   return db.transaction(async (tx) => {
-    const [row] = await tx.select().from(releaseTemplates)
-      .where(and(eq(releaseTemplates.laboratoryId, me.laboratoryId), eq(releaseTemplates.changeType, changeType))).for('update');
+    const row = await labTemplateRow(tx, scopeOf(me), changeType, true);
     const before = view(changeType, row);
     if (before.version !== body.version) {
       throw new AppError('conflict', `This template was changed meanwhile (version ${before.version}, not ${body.version}); open it again`);
@@ -81,7 +81,7 @@ export function saveTemplate(db: Database, me: SignedInUser, changeType: ChangeT
     const values = { requirements: body.requirements, dueRules: body.dueRules, updatedBy: me.id, updatedAt: new Date() };
     const [saved] = row
       ? await tx.update(releaseTemplates).set({ ...values, version: row.version + 1 }).where(eq(releaseTemplates.id, row.id)).returning()
-      : await tx.insert(releaseTemplates).values({ ...values, laboratoryId: me.laboratoryId, changeType, version: 1 }).returning();
+      : await tx.insert(releaseTemplates).values(scopeOf(me).values({ ...values, changeType, version: 1 })).returning();
     await recordAudit(tx, actorOf(me), {
       action: 'release-template.updated', entity: 'release-template', entityId: changeType,
       before: { requirements: before.requirements, dueRules: before.dueRules }, after: { requirements: body.requirements, dueRules: body.dueRules },

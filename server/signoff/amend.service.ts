@@ -14,11 +14,12 @@ import { contentHashOf, verificationCode } from './content-hash';
 import { currentPlanRun, hasSamplePlan } from '../plans/plans.service';
 import { planResultsHash } from '../plans/plan-input';
 import { confirmPassword, step, studyAttempt } from './signoff.service';
+import { scopeOf } from '../db/lab-scope';
 
 /** Copies a signed study into a new draft that records what it supersedes. */
 export function amendStudy(ctx: AppContext, me: SignedInUser, id: number, reason: string): Promise<Study> {
   return step(ctx, async (tx) => {
-    const old = await findStudy(tx, me.laboratoryId, id, true);
+    const old = await findStudy(tx, scopeOf(me), id, true);
     if (old.state !== 'signed') throw new AppError('conflict', 'Only a signed study can be amended; a draft can simply be edited');
     if (old.supersededById) throw new AppError('conflict', `This study is already superseded by study ${old.supersededById}`);
     const pending = await tx.select({ id: studies.id }).from(studies).where(eq(studies.supersedesId, id));
@@ -46,10 +47,10 @@ function draftForPlan(study: StudyRow): StudyRow {
 
 /** The director approves the plan before data: an electronic signature of its own. */
 export async function approvePlan(ctx: AppContext, me: SignedInUser, id: number, body: PlanApprovalBody, address: string): Promise<Study> {
-  draftForPlan(await findStudy(ctx.db, me.laboratoryId, id));
+  draftForPlan(await findStudy(ctx.db, scopeOf(me), id));
   await confirmPassword(ctx, me, body.password, address, studyAttempt(id, 'plan-approved'));
   return step(ctx, async (tx) => {
-    const study = draftForPlan(await findStudy(tx, me.laboratoryId, id, true));
+    const study = draftForPlan(await findStudy(tx, scopeOf(me), id, true));
     const plan: Record<string, unknown> = Object.fromEntries(planFieldsOf(study.kind).map((f) => [f, (study.settings as Record<string, unknown>)[f]]));
     // A plan by simulation is approved with its figures: the run made from the plan as it is set now.
     if (hasSamplePlan(study)) {

@@ -8,13 +8,14 @@ import { findStudy } from '../studies/studies.repository';
 import { findingsOf } from '../studies/study-view';
 import { contentHashOf, signedContent, verificationCode } from './content-hash';
 import { renderStudyPdf } from './study-pdf';
+import { scopeOf } from '../db/lab-scope';
 
 const WORDS: Record<string, string> = {
   'plan-approved': 'Plan approved', accepted: 'Accepted for patient testing', 'not-accepted': 'Not accepted for patient testing',
 };
 
 export async function listSignatures(db: Database, me: SignedInUser, id: number): Promise<Signature[]> {
-  await findStudy(db, me.laboratoryId, id);
+  await findStudy(db, scopeOf(me), id);
   const rows = await db.select().from(signatures).where(eq(signatures.studyId, id)).orderBy(asc(signatures.id));
   return rows.map((s) => ({
     id: s.id, meaning: s.meaning as Signature['meaning'], meaningWords: WORDS[s.meaning] ?? s.meaning, signerName: s.signerName, comment: s.comment,
@@ -24,7 +25,7 @@ export async function listSignatures(db: Database, me: SignedInUser, id: number)
 
 /** A signed study answers the bytes stored at signing; any other a fresh preview marked DRAFT. */
 export async function studyReport(db: Database, me: SignedInUser, id: number): Promise<{ bytes: Buffer; sha256: string; fileName: string }> {
-  const study = await findStudy(db, me.laboratoryId, id);
+  const study = await findStudy(db, scopeOf(me), id);
   const base = `parallax-study-${id}`;
   if (study.state === 'signed') {
     const [sig] = (await db.select().from(signatures).where(eq(signatures.studyId, id))).filter((s) => s.meaning !== 'plan-approved');

@@ -1,6 +1,7 @@
 import { eq } from 'drizzle-orm';
 import type { SignBody, Study } from '@shared/schemas';
-import { chainOf, recordAudit } from '../audit/audit';
+import { scopeOf } from '../db/lab-scope';
+import { chainOfScope, recordAudit } from '../audit/audit';
 import { writeCheckpoint } from '../audit/checkpoints';
 import { sha256Hex } from '../audit/canonical-json';
 import { actorOf, SignedInUser } from '../auth/session-user';
@@ -50,7 +51,7 @@ export async function signStudy(ctx: AppContext, me: SignedInUser, id: number, b
     const pdf = await renderStudyPdf(tx, study, findings.currentId, { ...signature, draft: false });
     const pdfSha256 = sha256Hex(pdf);
     // The laboratory's history as it stood just before this signature: a signed checkpoint, and its length and newest hash kept with the signature.
-    const anchor = await writeCheckpoint(tx, chainOf(me.laboratoryId), `before the signature of study ${id}`);
+    const anchor = await writeCheckpoint(tx, chainOfScope(scopeOf(me)), `before the signature of study ${id}`);
     const [sig] = await tx.insert(signatures).values({ ...signature, pdf, pdfSha256, chainLength: anchor?.length ?? null, chainHeadHash: anchor?.headHash ?? null })
       .returning({ id: signatures.id });
     const [row] = await tx.update(studies).set({ state: 'signed', signedAt, version: study.version + 1, updatedAt: signedAt }).where(eq(studies.id, id)).returning();

@@ -14,6 +14,7 @@ import { studies } from '../db/schema';
 import { studyView } from '../studies/study-view';
 import { notifyAuthor, notifySubmitted } from './notifications';
 import { submissionProblems } from './submission-checks';
+import { scopeOf } from '../db/lab-scope';
 
 /** Runs a sign-off step in one transaction, then sends the mail it queued. */
 export async function step<T>(ctx: AppContext, work: (tx: Tx) => Promise<T>): Promise<T> {
@@ -28,7 +29,7 @@ export async function step<T>(ctx: AppContext, work: (tx: Tx) => Promise<T>): Pr
  */
 export function submitStudy(ctx: AppContext, me: SignedInUser, id: number, note = ''): Promise<Study> {
   return step(ctx, async (tx) => {
-    const study = await findStudy(tx, me.laboratoryId, id, true);
+    const study = await findStudy(tx, scopeOf(me), id, true);
     if (study.state !== 'draft') throw new AppError('conflict', 'Only a draft can be submitted');
     const problems = await submissionProblems(tx, study);
     if (problems.length) throw new AppError('invalid_request', `The study cannot be submitted yet: ${problems.map((p) => p.message).join('; ')}`, problems);
@@ -53,7 +54,7 @@ export function returnStudy(ctx: AppContext, me: SignedInUser, id: number, comme
 }
 
 export async function awaiting(tx: Executor, me: SignedInUser, id: number): Promise<StudyRow> {
-  const study = await findStudy(tx, me.laboratoryId, id, true);
+  const study = await findStudy(tx, scopeOf(me), id, true);
   if (study.state !== 'awaiting-signoff') throw new AppError('conflict', 'This study is not awaiting sign-off');
   return study;
 }

@@ -12,6 +12,7 @@ import { assertEditable, assertPlanApproved } from '../studies/study-rules';
 import { loadRows, StoredRow, storeInputHash } from './input-hash';
 import { diffRows } from './row-diff';
 import { CleanRow, validateRows } from './row-validation';
+import { scopeOf } from '../db/lab-scope';
 
 export const rowView = (r: StoredRow): SpecimenRow => ({
   position: r.position, label: r.label, comparative: r.comparative, candidate: r.candidate, value: r.value,
@@ -38,7 +39,7 @@ export function rowsAnswer(version: number, stored: StoredRow[]): SpecimenRows {
 }
 
 export async function getRows(db: Database, me: SignedInUser, studyId: number): Promise<SpecimenRows> {
-  const study = await findStudy(db, me.laboratoryId, studyId);
+  const study = await findStudy(db, scopeOf(me), studyId);
   return rowsAnswer(study.version, await loadRows(db, study.id));
 }
 
@@ -89,7 +90,7 @@ const sameRow = (a: CleanRow, b: CleanRow | undefined) => !!b && JSON.stringify(
 
 export async function putRows(db: Database, me: SignedInUser, studyId: number, version: number, raw: Record<string, unknown>[]): Promise<SpecimenRows> {
   return db.transaction(async (tx) => {
-    const study = await findStudy(tx, me.laboratoryId, studyId, true);
+    const study = await findStudy(tx, scopeOf(me), studyId, true);
     assertEditable(study);
     const rows = await cleanRowsFor(tx, study, raw);
     return writeRows(tx, me, study, version, rows, 'specimens.saved');

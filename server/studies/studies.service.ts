@@ -1,12 +1,13 @@
-import { and, asc, desc, eq, ilike, inArray, or, sql, SQL } from 'drizzle-orm';
+import { asc, desc, eq, ilike, or, sql, SQL } from 'drizzle-orm';
 import { StudySettings, type CreateStudyBody, type Study, type StudyListQuery, type StudyPage, type UpdateStudyBody, type Worklist } from '@shared/schemas';
 import { recordAudit } from '../audit/audit';
 import { actorOf, SignedInUser } from '../auth/session-user';
 import type { Database, Tx } from '../db/client';
 import { inLabDays } from '../db/lab-zone';
+import { scopeOf } from '../db/lab-scope';
 import { specimens, studies } from '../db/schema';
 import { invalid } from '../http/app-error';
-import { bumpVersion, findLabAnalyte, findLabInstrument, findStudy } from './studies.repository';
+import { bumpVersion, findLabAnalyte, findLabInstrument, findStudy, studyPage, worklistRows } from './studies.repository';
 import { fieldWords } from '@shared/types/audit-words';
 import { assertEditable } from './study-rules';
 import { initialSettings, planFieldsOf } from './study-settings';
@@ -25,10 +26,10 @@ const twoLots = (settings: unknown): boolean => {
 };
 
 async function checkRefs(tx: Tx, me: SignedInUser, kind: string, ids: { analyteId?: number; comparativeInstrumentId?: number | null; candidateInstrumentId?: number | null; instrumentId?: number | null }, settings?: unknown) {
-  if (ids.analyteId !== undefined && !(await findLabAnalyte(tx, me.laboratoryId, ids.analyteId))) throw invalid('analyteId', 'Choose an analyte from the catalog');
+  if (ids.analyteId !== undefined && !(await findLabAnalyte(tx, scopeOf(me), ids.analyteId))) throw invalid('analyteId', 'Choose an analyte from the catalog');
   for (const field of ['comparativeInstrumentId', 'candidateInstrumentId', 'instrumentId'] as const) {
     const id = ids[field];
-    if (id !== undefined && id !== null && !(await findLabInstrument(tx, me.laboratoryId, id))) throw invalid(field, 'Choose an instrument from the catalog');
+    if (id !== undefined && id !== null && !(await findLabInstrument(tx, scopeOf(me), id))) throw invalid(field, 'Choose an instrument from the catalog');
   }
   if (kindMeta(kind).instruments === 'pair' && ids.comparativeInstrumentId && ids.comparativeInstrumentId === ids.candidateInstrumentId && !twoLots(settings)) {
     throw invalid('candidateInstrumentId', 'The candidate instrument must differ from the comparative one, unless two reagent lots are compared on it (give both lots)');
@@ -47,20 +48,20 @@ export async function createStudyIn(tx: Tx, me: SignedInUser, body: CreateStudyB
     throw invalid(body.comparativeInstrumentId ? 'candidateInstrumentId' : 'comparativeInstrumentId', `A ${kindMeta(body.kind).label.toLowerCase()} needs a comparative and a candidate instrument`);
   }
   if (!pair && !body.instrumentId) throw invalid('instrumentId', 'Choose the instrument');
-  const analyte = (await findLabAnalyte(tx, me.laboratoryId, body.analyteId))!;
-  const [row] = await tx.insert(studies).values({
-    laboratoryId: me.laboratoryId, kind: body.kind, title: body.title, purpose: body.purpose, analyteId: body.analyteId,
+  const analyte = (await findLabAnalyte(tx, scopeOf(me), body.analyteId))!;
+  const [row] = await tx.insert(studies).values(scopeOf(me).values({
+    kind: body.kind, title: body.title, purpose: body.purpose, analyteId: body.analyteId,
     comparativeInstrumentId: body.comparativeInstrumentId ?? null, candidateInstrumentId: body.candidateInstrumentId ?? null,
     instrumentId: body.instrumentId ?? null, settings: checkedSettings(() => initialSettings(body.kind, analyte, body.settings)), createdBy: me.id,
-  }).returning();
+  })).returning();
   await recordAudit(tx, actorOf(me), { action: 'study.created', entity: 'study', entityId: row.id, studyId: row.id, after: { ...body, settings: row.settings } });
   await storeInputHash(tx, row.id);
-  return studyView(tx, (await findStudy(tx, me.laboratoryId, row.id))!, me);
+  return studyView(tx, (await findStudy(tx, scopeOf(me), row.id))!, me);
 }
 
 export async function updateStudy(db: Database, me: SignedInUser, id: number, body: UpdateStudyBody): Promise<Study> {
   return db.transaction(async (tx) => {
-    const study = await findStudy(tx, me.laboratoryId, id, true);
+    const study = await findStudy(tx, scopeOf(me), id, true);
     assertEditable(study);
     await checkRefs(tx, me, study.kind, body, { ...(study.settings as object), ...(body.settings ?? {}) });
     const { version, settings: given, reason, ...fields } = body;
@@ -73,7 +74,7 @@ export async function updateStudy(db: Database, me: SignedInUser, id: number, bo
     let updated = await bumpVersion(tx, study, version, { ...fields, ...(merged ? { settings: merged } : {}) });
     if (merged) {
       await storeInputHash(tx, id);
-      updated = await findStudy(tx, me.laboratoryId, id);
+      updated = await findStudy(tx, scopeOf(me), id);
     }
     const changed = (Object.keys(fields) as (keyof typeof fields)[]).filter((k) => fields[k] !== undefined);
     await recordAudit(tx, actorOf(me), {
@@ -126,27 +127,24 @@ const pick = (row: typeof studies.$inferSelect, fields: string[], settingKeys?: 
 });
 
 export async function getStudy(db: Database, me: SignedInUser, id: number): Promise<Study> {
-  return studyView(db, await findStudy(db, me.laboratoryId, id), me);
+  return studyView(db, await findStudy(db, scopeOf(me), id), me);
 }
 
 const SORT = { title: studies.title, updatedAt: studies.updatedAt, state: studies.state, kind: studies.kind } as const;
 
 export async function listStudies(db: Database, me: SignedInUser, q: StudyListQuery): Promise<StudyPage> {
-  const where: SQL[] = [eq(studies.laboratoryId, me.laboratoryId)];
+  const scope = scopeOf(me);
+  const where: SQL[] = [];
   if (q.kind) where.push(eq(studies.kind, q.kind));
   if (q.state) where.push(eq(studies.state, q.state));
   if (q.analyteId) where.push(eq(studies.analyteId, q.analyteId));
   if (q.instrumentId) where.push(or(eq(studies.comparativeInstrumentId, q.instrumentId), eq(studies.candidateInstrumentId, q.instrumentId), eq(studies.instrumentId, q.instrumentId))!);
-  const days = await inLabDays(db, me.laboratoryId, studies.updatedAt, q);
+  const days = await inLabDays(db, scope, studies.updatedAt, q);
   if (days) where.push(days);
   if (q.q) where.push(or(ilike(studies.title, `%${escapeLike(q.q)}%`), ilike(studies.purpose, `%${escapeLike(q.q)}%`))!);
   const n = sql<number>`coalesce(${studies.includedCount}, (SELECT count(*) FROM ${specimens} s WHERE s.study_id = ${studies.id} AND NOT s.excluded))`;
   const sortColumn = q.sort === 'n' ? n : SORT[q.sort];
-  const rows = await db.select().from(studies).where(and(...where))
-    .orderBy(q.order === 'asc' ? asc(sortColumn) : desc(sortColumn), desc(studies.id))
-    .limit(q.pageSize).offset((q.page - 1) * q.pageSize);
-  // Counted apart: a window count over the page's query would read every match instead of the index's first page.
-  const [{ total }] = await db.select({ total: sql<number>`count(*)::int` }).from(studies).where(and(...where));
+  const { rows, total } = await studyPage(db, scope, where, q.order === 'asc' ? asc(sortColumn) : desc(sortColumn), q.pageSize, (q.page - 1) * q.pageSize);
   return { items: await summarise(db, rows), total };
 }
 
@@ -156,12 +154,7 @@ export async function worklist(db: Database, me: SignedInUser): Promise<Worklist
   // The four lists' studies in one statement (each list newest first, with its own limit), then summarised
   // in one pass; a study is in at most one list, told apart by its state, author and return. "Awaiting my
   // signature" holds only what this person may sign (the sign-off rule, `signableBy`).
-  const ids = sql`
-    SELECT id FROM (SELECT id FROM ${studies} WHERE laboratory_id = ${me.laboratoryId} AND created_by = ${me.id} AND state = 'draft' AND returned_at IS NULL ORDER BY updated_at DESC LIMIT 20) drafts
-    UNION ALL SELECT id FROM (SELECT id FROM ${studies} WHERE laboratory_id = ${me.laboratoryId} AND created_by = ${me.id} AND state = 'draft' AND returned_at IS NOT NULL ORDER BY updated_at DESC LIMIT 20) returned
-    UNION ALL SELECT id FROM (SELECT id FROM ${studies} WHERE laboratory_id = ${me.laboratoryId} AND ${signableBy(me)} ORDER BY updated_at DESC LIMIT 20) awaiting
-    UNION ALL SELECT id FROM (SELECT id FROM ${studies} WHERE laboratory_id = ${me.laboratoryId} AND state = 'signed' ORDER BY updated_at DESC LIMIT 10) signed`;
-  const rows = await db.select().from(studies).where(sql`${studies.id} IN (${ids})`).orderBy(desc(studies.updatedAt), desc(studies.id));
+  const rows = await worklistRows(db, scopeOf(me), me.id, signableBy(me));
   const all = await summarise(db, rows);
   const part = (keep: (r: (typeof rows)[number]) => boolean) => rows.filter(keep).map((r) => all.find((x) => x.id === r.id)!);
   const mine = (r: (typeof rows)[number]) => r.createdBy === me.id && r.state === 'draft';

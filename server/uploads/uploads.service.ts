@@ -14,6 +14,7 @@ import { neededFields, suggestMapping, unmappedNotes } from './column-mapping';
 import { kindMeta } from '@shared/kinds/kinds';
 import type { ParsedTable } from './parse-file';
 import { uploadParser } from './parse-pool';
+import { scopeOf } from '../db/lab-scope';
 
 /**
  * Stores the original file with its SHA-256 and answers the preview; nothing touches the rows yet. The preview
@@ -24,18 +25,18 @@ import { uploadParser } from './parse-pool';
  */
 export async function receiveUpload(db: Database, me: SignedInUser, studyId: number, file: { originalname: string; mimetype: string; buffer: Buffer } | undefined): Promise<UploadPreview> {
   if (!file) throw invalid('file', 'Choose a file to upload (field "file")');
-  assertEditable(await findStudy(db, me.laboratoryId, studyId));
+  assertEditable(await findStudy(db, scopeOf(me), studyId));
   const studyLabels = (await db.select({ label: specimens.label }).from(specimens).where(eq(specimens.studyId, studyId))).map((r) => r.label);
   const table = await uploadParser().parse(file.originalname, file.buffer, studyLabels);
   const sha256 = sha256Hex(file.buffer);
   const json = Buffer.from(table.json.buffer, table.json.byteOffset, table.json.byteLength); // UTF-8, stored as it came from the worker
   return db.transaction(async (tx) => {
-    const study = await findStudy(tx, me.laboratoryId, studyId, true);
+    const study = await findStudy(tx, scopeOf(me), studyId, true);
     assertEditable(study);
-    const [row] = await tx.insert(uploads).values({
-      laboratoryId: me.laboratoryId, studyId, fileName: file.originalname, mediaType: file.mimetype, size: file.buffer.length,
+    const [row] = await tx.insert(uploads).values(scopeOf(me).values({
+      studyId, fileName: file.originalname, mediaType: file.mimetype, size: file.buffer.length,
       sha256, bytes: file.buffer, parsed: sql`convert_from(${json}, 'UTF8')::jsonb`, uploadedBy: me.id,
-    }).returning({ id: uploads.id });
+    })).returning({ id: uploads.id });
     await recordAudit(tx, actorOf(me), { action: 'upload.received', entity: 'upload', entityId: row.id, studyId, after: { fileName: file.originalname, size: file.buffer.length, sha256, rows: table.rowCount } });
     const suggestedMapping = suggestMapping(study.kind, table.columns, table.sample);
     const labels = suggestedMapping.label ? table.labelChecks[suggestedMapping.label] : undefined;
@@ -50,7 +51,7 @@ export async function receiveUpload(db: Database, me: SignedInUser, studyId: num
 /** Imports an upload with the user's column mapping, replacing or appending rows in one transaction. */
 export async function importUpload(db: Database, me: SignedInUser, studyId: number, uploadId: number, body: ImportBody): Promise<SpecimenRows> {
   return db.transaction(async (tx) => {
-    const study = await findStudy(tx, me.laboratoryId, studyId, true);
+    const study = await findStudy(tx, scopeOf(me), studyId, true);
     assertEditable(study);
     const [upload] = await tx.select().from(uploads).where(and(eq(uploads.id, uploadId), eq(uploads.studyId, study.id)));
     if (!upload) throw notFound('Upload');
