@@ -139,7 +139,7 @@ export class AnalysisJobs {
       await this.finish(claimed, { state: 'done', results, progress: 1, durationMs: Date.now() - started });
     } catch (err) {
       clearInterval(beat);
-      await this.finish(claimed, { state: 'failed', error: (err as Error).message, durationMs: Date.now() - started });
+      await this.finish(claimed, { state: 'failed', error: failureWords(err), durationMs: Date.now() - started });
     }
   }
 
@@ -225,4 +225,17 @@ export class AnalysisJobs {
 async function workerActor(tx: Tx, studyId: number) {
   const [study] = await tx.select({ lab: studies.laboratoryId }).from(studies).where(eq(studies.id, studyId));
   return { id: null, name: 'analysis worker', laboratoryId: study.lab };
+}
+
+/**
+ * What a failed run says to people: the engine's own words when it refused the data, or, when the worker thread
+ * itself died (the thread library says only "worker exited with code: 70"), what happened and what to do.
+ */
+export function failureWords(err: unknown): string {
+  // (an error from a worker thread comes from another realm: read its message, do not test instanceof)
+  const message = typeof (err as { message?: unknown } | null)?.message === 'string' ? (err as Error).message : String(err);
+  const died = /worker (?:exited|terminated)(?: with code:? *(-?\d+))?/i.exec(message);
+  if (!died) return message;
+  const code = died[1] !== undefined ? ` (exit code ${died[1]})` : '';
+  return `The analysis worker stopped unexpectedly${code} before finishing; run the analysis again, and tell the administrator if it keeps happening`;
 }

@@ -101,7 +101,7 @@ it('marks a run whose worker thread dies in the middle as failed, not running, a
   const second = await queue(tech, study.id);
   const failed = await waitForAnalysis(tech, second);
   expect(failed).toMatchObject({ state: 'failed', results: null });
-  expect(failed.error).toMatch(/exited with code: 70/);
+  expect(failed.error).toBe('The analysis worker stopped unexpectedly (exit code 70) before finishing; run the analysis again, and tell the administrator if it keeps happening');
   const [row] = await h.database.db.select().from(analyses).where(eq(analyses.id, second));
   expect(row).toMatchObject({ state: 'failed', attempt: 1 });
   expect(row.finishedAt).not.toBeNull();
