@@ -1,6 +1,6 @@
-import { and, eq } from 'drizzle-orm';
+import { and, desc, eq, isNull } from 'drizzle-orm';
 import { planComparison, type ComparisonPlanResult } from '@shared/stats/plan-comparison';
-import { analyses, auditEvents, studies } from '../db/schema';
+import { analyses, auditEvents, studies, users } from '../db/schema';
 import { analysedComparison, createComparison, waitForAnalysis } from '../test/fixtures';
 import { apiPatch, apiPost, Harness, signedIn, signedStudy, startHarness, type Session } from '../test/harness';
 import { planResultsHash } from './plan-input';
@@ -139,9 +139,17 @@ describe('a plan by simulation', () => {
 
   it('offers the imprecision a signed precision study of the same analyte and instrument found', async () => {
     const { tech } = await people();
-    const [precision] = await h.database.db.select().from(studies).where(and(eq(studies.kind, 'precision'), eq(studies.state, 'signed')));
+    // The demo laboratory's signed precision study gives the analyte and the instrument; the one the plan must offer is
+    // the latest signed, not superseded precision study of that pair in the laboratory (other suites may sign more).
+    const [{ lab }] = await h.database.db.select({ lab: users.laboratoryId }).from(users).where(eq(users.email, 'tech@valeharbor.example'));
+    const signedPrecision = (analyteId?: number, instrumentId?: number | null) => h.database.db.select().from(studies)
+      .where(and(eq(studies.laboratoryId, lab), eq(studies.kind, 'precision'), eq(studies.state, 'signed'), isNull(studies.supersededById),
+        ...(analyteId ? [eq(studies.analyteId, analyteId)] : []), ...(instrumentId ? [eq(studies.instrumentId, instrumentId)] : [])))
+      .orderBy(desc(studies.signedAt)).limit(1);
+    const [demo] = await signedPrecision();
     const study = await createComparison(h, tech, `Planned on the precision study's line ${Date.now()}`, { seed: 'plan-api' });
-    await h.database.db.update(studies).set({ candidateInstrumentId: precision.instrumentId, analyteId: precision.analyteId }).where(eq(studies.id, study.id));
+    await h.database.db.update(studies).set({ candidateInstrumentId: demo.instrumentId, analyteId: demo.analyteId }).where(eq(studies.id, study.id));
+    const [precision] = await signedPrecision(demo.analyteId, demo.instrumentId);
     const plan = (await tech.agent.get(`/api/v1/studies/${study.id}/plan`).expect(200)).body;
     const found = plan.imprecision.candidate;
     expect(found).toMatchObject({ studyId: precision.id, title: precision.title });
